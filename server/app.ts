@@ -1,0 +1,64 @@
+// Builds the Express app: security headers, JSON parsing, sessions, the API and the client.
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import path from 'node:path';
+import fs from 'node:fs';
+import pg from 'pg';
+import { config } from './config';
+import { installAuth, sameOriginOnly } from './middleware/auth';
+import { errorHandler, notFoundHandler } from './middleware/errors';
+import { mountRoutes } from './routes';
+
+let sessionPool: pg.Pool | null = null;
+
+/** The pool the session store uses (also used by the bench's bare route). */
+export function getSessionPool() {
+  sessionPool ??= new pg.Pool({ connectionString: config().DATABASE_URL, max: 5 });
+  return sessionPool;
+}
+
+export function createApp(): Express {
+  const c = config();
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', c.publicUrl.startsWith('https://') ? 1 : false);
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          'default-src': ["'self'"],
+          'img-src': ["'self'", 'data:', 'blob:', ...(c.S3_ENDPOINT ? [new URL(c.S3_ENDPOINT).origin] : ['http://127.0.0.1:*'])],
+          'media-src': ["'self'", 'blob:', ...(c.S3_ENDPOINT ? [new URL(c.S3_ENDPOINT).origin] : ['http://127.0.0.1:*'])],
+          'connect-src': ["'self'", ...(c.S3_ENDPOINT ? [new URL(c.S3_ENDPOINT).origin] : ['http://127.0.0.1:*'])],
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'script-src': ["'self'"],
+          'upgrade-insecure-requests': c.publicUrl.startsWith('https://') ? [] : null,
+        },
+      },
+      strictTransportSecurity: c.publicUrl.startsWith('https://'),
+      crossOriginEmbedderPolicy: false,
+    }),
+  );
+  if (c.LOG_REQUESTS) {
+    app.use((req, res, next) => {
+      const t0 = Date.now();
+      res.on('finish', () => console.log(`${req.method} ${req.originalUrl} ${res.statusCode} ${Date.now() - t0}ms`));
+      next();
+    });
+  }
+  app.use('/api', express.json({ limit: '2mb', strict: true }));
+  app.use('/api', express.text({ type: 'text/csv', limit: '10mb' }));
+  installAuth(app, getSessionPool());
+  app.use('/api', sameOriginOnly);
+  mountRoutes(app);
+  app.use('/api', notFoundHandler);
+
+  const dist = path.resolve(c.CLIENT_DIST);
+  if (c.SERVE_CLIENT && fs.existsSync(path.join(dist, 'index.html'))) {
+    app.use(express.static(dist, { index: false, maxAge: '1h' }));
+    // Client-side routes: every other GET answers the app shell.
+    app.get(/^\/(?!api\/).*/, (_req, res) => res.sendFile(path.join(dist, 'index.html')));
+  }
+  app.use(errorHandler);
+  return app;
+}

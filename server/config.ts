@@ -1,0 +1,72 @@
+// Every setting Bayslate reads from the environment, validated once, with defaults.
+// Nothing else in the server reads process.env.
+import { z } from 'zod';
+
+const bool = (def: boolean) =>
+  z
+    .enum(['0', '1', 'true', 'false', 'yes', 'no'])
+    .optional()
+    .transform((v) => (v === undefined ? def : ['1', 'true', 'yes'].includes(v)));
+
+const schema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  HOST: z.string().default('127.0.0.1'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  PUBLIC_URL: z.string().url().optional(),
+  DATABASE_URL: z.string().min(1, 'DATABASE_URL is required (npm start sets it for the local cluster)'),
+  DATABASE_POOL_MAX: z.coerce.number().int().min(1).default(10),
+  SESSION_SECRET: z.string().min(16, 'SESSION_SECRET must be at least 16 characters'),
+  SESSION_IDLE_MINUTES: z.coerce.number().int().min(1).default(8 * 60),
+  SESSION_ABSOLUTE_HOURS: z.coerce.number().int().min(1).default(7 * 24),
+  LOGIN_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
+  LOGIN_RATE_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
+  BAYSLATE_DEMO: bool(true),
+  SERVE_CLIENT: bool(true),
+  CLIENT_DIST: z.string().default('dist'),
+  LOG_REQUESTS: bool(false),
+  // Object storage: with S3_ENDPOINT unset the server runs a local fake S3 on loopback.
+  S3_ENDPOINT: z.string().url().optional(),
+  S3_BUCKET: z.string().default('bayslate-media'),
+  S3_REGION: z.string().default('us-east-1'),
+  S3_ACCESS_KEY_ID: z.string().default('S3RVER'),
+  S3_SECRET_ACCESS_KEY: z.string().default('S3RVER'),
+  S3_FORCE_PATH_STYLE: bool(true),
+  LOCAL_S3_PORT: z.coerce.number().int().min(0).default(0),
+  LOCAL_S3_DIR: z.string().default('.data/s3'),
+  UPLOAD_DIR: z.string().default('.data/uploads'),
+  UPLOAD_MAX_PHOTO_MB: z.coerce.number().positive().default(40),
+  UPLOAD_MAX_VIDEO_MB: z.coerce.number().positive().default(4096),
+  UPLOAD_MAX_DOCUMENT_MB: z.coerce.number().positive().default(25),
+  // E-mail: with SMTP_URL unset the server runs a local fake SMTP server on loopback.
+  SMTP_URL: z.string().optional(),
+  MAIL_FROM: z.string().default('Bayslate <no-reply@bayslate.test>'),
+  LOCAL_SMTP_PORT: z.coerce.number().int().min(0).default(0),
+  LOCAL_MAIL_DIR: z.string().default('.data/mail'),
+  MAIL_WORKER: bool(true),
+  MAIL_POLL_MS: z.coerce.number().int().min(10).default(2000),
+});
+
+export type Config = ReturnType<typeof loadConfig>;
+
+export function loadConfig(env: NodeJS.ProcessEnv = process.env) {
+  const parsed = schema.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
+    throw new Error(`Bayslate configuration is not valid:\n${lines.join('\n')}`);
+  }
+  const c = parsed.data;
+  return {
+    ...c,
+    isProduction: c.NODE_ENV === 'production',
+    isTest: c.NODE_ENV === 'test',
+    publicUrl: (c.PUBLIC_URL ?? `http://${c.HOST}:${c.PORT}`).replace(/\/$/, ''),
+  };
+}
+
+let current: Config | null = null;
+
+/** The process-wide configuration, read on first use. */
+export function config(): Config {
+  current ??= loadConfig();
+  return current;
+}

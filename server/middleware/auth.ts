@@ -1,0 +1,132 @@
+// Sessions in PostgreSQL, passport-local sign-in, idle and absolute timeouts, and the
+// cross-site request guard for state-changing requests.
+import type { Express, RequestHandler } from 'express';
+import session from 'express-session';
+import connectPgSimple from 'connect-pg-simple';
+import passport from 'passport';
+import { Strategy as LocalStrategy } from 'passport-local';
+import bcrypt from 'bcryptjs';
+import pg from 'pg';
+import { config } from '../config';
+import { User } from '../models';
+import { AppError } from '../errors';
+
+export const SESSION_COOKIE = 'bayslate.sid';
+
+// Compared against when the e-mail is unknown, so both failures take the same time.
+const DUMMY_HASH = bcrypt.hashSync('not-a-real-password', 10);
+
+declare module 'express-session' {
+  interface SessionData {
+    signedInAt?: number;
+  }
+}
+declare global {
+  // eslint-disable-next-line @typescript-eslint/no-namespace
+  namespace Express {
+    interface User {
+      id: number;
+      email: string;
+      name: string;
+      roles: string[];
+    }
+  }
+}
+
+export async function verifyPassword(email: string, password: string) {
+  const user = await User.findOne({ where: { email: email.trim().toLowerCase() } });
+  const ok = await bcrypt.compare(password, user?.passwordHash ?? DUMMY_HASH);
+  return ok && user && user.active ? user : null;
+}
+
+export function installAuth(app: Express, pool: pg.Pool) {
+  const c = config();
+  const PgStore = connectPgSimple(session);
+  app.use(
+    session({
+      name: SESSION_COOKIE,
+      secret: c.SESSION_SECRET,
+      store: new PgStore({ pool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: c.isTest ? false : 600 }),
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      proxy: c.publicUrl.startsWith('https://'),
+      cookie: {
+        httpOnly: true,
+        sameSite: 'lax',
+        secure: c.publicUrl.startsWith('https://') ? 'auto' : false,
+        maxAge: c.SESSION_IDLE_MINUTES * 60_000,
+      },
+    }),
+  );
+
+  passport.use(
+    new LocalStrategy({ usernameField: 'email', passwordField: 'password' }, (email, password, done) => {
+      verifyPassword(email, password).then(
+        (user) => done(null, user ? (user.toPublic() as Express.User) : false),
+        (err) => done(err),
+      );
+    }),
+  );
+  passport.serializeUser((user, done) => done(null, user.id));
+  passport.deserializeUser((id: number, done) => {
+    User.findByPk(id).then(
+      // A deactivated person is signed out at once: no user, and the session is dropped below.
+      (user) => done(null, user && user.active ? (user.toPublic() as Express.User) : false),
+      (err) => done(err),
+    );
+  });
+  app.use(passport.initialize());
+  app.use(passport.session());
+  app.use(enforceSessionLimits);
+}
+
+/** Ends sessions past the absolute limit, or whose person was deactivated. */
+const enforceSessionLimits: RequestHandler = (req, _res, next) => {
+  const s = req.session as (typeof req.session & { passport?: { user?: number } }) | undefined;
+  if (!s?.passport?.user) return next();
+  const tooOld = s.signedInAt && Date.now() - s.signedInAt > config().SESSION_ABSOLUTE_HOURS * 3_600_000;
+  if (tooOld || !req.user) {
+    return s.destroy(() => {
+      req.user = undefined;
+      next();
+    });
+  }
+  next();
+};
+
+/** Signs `user` in on a fresh session id (the pre-sign-in id is thrown away). */
+export function signIn(req: Parameters<RequestHandler>[0], user: Express.User): Promise<void> {
+  return new Promise((resolve, reject) => {
+    req.session.regenerate((err) => {
+      if (err) return reject(err);
+      req.login(user, { keepSessionInfo: false }, (err2) => {
+        if (err2) return reject(err2);
+        req.session.signedInAt = Date.now();
+        req.session.save((err3) => (err3 ? reject(err3) : resolve()));
+      });
+    });
+  });
+}
+
+const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
+
+/**
+ * Cross-site request guard: a state-changing request must come from our own origin (when the
+ * browser says where it comes from) and must be JSON or carry our header, which a plain
+ * cross-site form cannot do without a CORS preflight we never grant.
+ */
+export const sameOriginOnly: RequestHandler = (req, _res, next) => {
+  if (SAFE_METHODS.has(req.method)) return next();
+  const origin = req.get('origin');
+  if (origin) {
+    const own = new Set([config().publicUrl, `${req.protocol}://${req.get('host')}`]);
+    if (!own.has(origin)) return next(new AppError(403, 'cross_site', 'Requests from other sites are refused.'));
+  }
+  const type = req.get('content-type') ?? '';
+  const marked = req.get('x-requested-with') === 'Bayslate';
+  if (!marked && !type.startsWith('application/json')) {
+    return next(new AppError(415, 'unsupported_type', 'Send JSON (Content-Type: application/json).'));
+  }
+  next();
+};

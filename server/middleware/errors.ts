@@ -1,0 +1,43 @@
+// The one error middleware: every failure answers JSON { error: { code, message, fields? } }.
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { ZodError } from 'zod';
+import {
+  ForeignKeyConstraintError,
+  OptimisticLockError,
+  UniqueConstraintError,
+  ValidationError as SequelizeValidationError,
+  DatabaseError,
+} from 'sequelize';
+import { AppError } from '../errors';
+import { config } from '../config';
+import { zodFields } from './validate';
+
+export const notFoundHandler: RequestHandler = (_req, _res, next) => {
+  next(new AppError(404, 'not_found', 'No such API route.'));
+};
+
+export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
+  let e: AppError;
+  if (err instanceof AppError) e = err;
+  else if (err instanceof ZodError) e = new AppError(400, 'bad_request', 'Some fields are not valid.', zodFields(err));
+  else if (err?.type === 'entity.parse.failed') e = new AppError(400, 'bad_json', 'The request body is not valid JSON.');
+  else if (err?.type === 'entity.too.large') e = new AppError(413, 'too_large', 'The request body is too large.');
+  else if (err instanceof OptimisticLockError)
+    e = new AppError(409, 'stale', 'Someone else changed this record since you loaded it. Reload to see their change.');
+  else if (err instanceof UniqueConstraintError)
+    e = new AppError(409, 'duplicate', 'A record with the same value already exists.', (err.errors ?? []).map((x) => ({ path: x.path ?? '', message: 'must be unique' })));
+  else if (err instanceof ForeignKeyConstraintError)
+    e = new AppError(409, 'in_use', 'This record is linked to others and cannot be changed that way.');
+  else if (err instanceof SequelizeValidationError)
+    e = new AppError(400, 'bad_request', 'Some fields are not valid.', err.errors.map((x) => ({ path: x.path ?? '', message: x.message })));
+  else if (err instanceof DatabaseError && (err.parent as { code?: string })?.code === '23514')
+    e = new AppError(400, 'bad_request', `A value is out of its allowed range (${(err.parent as { constraint?: string }).constraint ?? 'check'}).`);
+  else {
+    if (!config().isTest || process.env.BAYSLATE_TEST_LOG_ERRORS) console.error(`[error] ${req.method} ${req.originalUrl}`, err);
+    e = new AppError(500, 'internal', config().isProduction ? 'Something went wrong on the server.' : String(err?.message ?? err));
+  }
+  if (res.headersSent) return;
+  res.status(e.status).json({
+    error: { code: e.code, message: e.message, ...(e.fields?.length ? { fields: e.fields } : {}), ...(e.details ?? {}) },
+  });
+};

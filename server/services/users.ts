@@ -1,0 +1,81 @@
+// People and roles: create, change roles, deactivate (ending their sessions), reset passwords.
+// The last active owner can never be removed or demoted.
+import bcrypt from 'bcryptjs';
+import { randomBytes } from 'node:crypto';
+import { Op } from 'sequelize';
+import { sequelize, User } from '../models';
+import { AppError, badRequest, notFound } from '../errors';
+import { record, type Actor } from './activity';
+import type { CreateUserInput, UpdateUserInput } from '../../shared/schemas/auth';
+import type { Role } from '../../shared/domain';
+
+export const hashPassword = (plain: string) => bcrypt.hash(plain, 10);
+
+export async function listUsers() {
+  const users = await User.findAll({ order: [['name', 'ASC']] });
+  return users.map((u) => u.toPublic());
+}
+
+export async function createUser(actor: Actor | null, input: CreateUserInput) {
+  const temporaryPassword = input.password ? null : randomBytes(9).toString('base64url');
+  return sequelize.transaction(async (t) => {
+    const exists = await User.findOne({ where: { email: input.email }, transaction: t });
+    if (exists) throw new AppError(409, 'duplicate', 'Someone with this e-mail already exists.', [{ path: 'email', message: 'is already used' }]);
+    const user = await User.create(
+      { email: input.email, name: input.name, roles: [...new Set(input.roles)] as Role[], passwordHash: await hashPassword(input.password ?? temporaryPassword!) },
+      { transaction: t },
+    );
+    await record(t, { actor, buildId: null, entity: 'user', entityId: user.id, action: 'create', summary: `Added ${user.name} (${user.roles.join(', ')})`, after: user.toPublic() });
+    return { user: user.toPublic(), temporaryPassword };
+  });
+}
+
+async function activeOwnersOtherThan(id: number, t: import('sequelize').Transaction) {
+  return User.count({ where: { id: { [Op.ne]: id }, active: true, roles: { [Op.contains]: ['owner'] } }, transaction: t });
+}
+
+/** Ends every session of a person at once. */
+export async function endSessionsOf(userId: number, t?: import('sequelize').Transaction) {
+  await sequelize.query(`DELETE FROM "session" WHERE (sess->'passport'->>'user')::int = :userId`, { replacements: { userId }, transaction: t });
+}
+
+export async function updateUser(actor: Actor, id: number, input: UpdateUserInput) {
+  return sequelize.transaction(async (t) => {
+    // Lock owners so two simultaneous demotions cannot leave the shop with none.
+    await sequelize.query(`SELECT id FROM users WHERE 'owner' = ANY(roles) FOR UPDATE`, { transaction: t });
+    const user = await User.findByPk(id, { transaction: t });
+    if (!user) throw notFound('User');
+    const before = user.toPublic();
+    const losesOwner = user.roles.includes('owner') && user.active && ((input.roles && !input.roles.includes('owner')) || input.active === false);
+    if (losesOwner && (await activeOwnersOtherThan(id, t)) === 0) {
+      throw new AppError(409, 'last_owner', 'This is the last active owner; make someone else an owner first.', [{ path: input.active === false ? 'active' : 'roles', message: 'would leave no active owner' }]);
+    }
+    if (input.name !== undefined) user.name = input.name;
+    if (input.roles) user.roles = [...new Set(input.roles)] as Role[];
+    if (input.active !== undefined) user.active = input.active;
+    await user.save({ transaction: t });
+    if (input.active === false) await endSessionsOf(user.id, t);
+    await record(t, { actor, buildId: null, entity: 'user', entityId: user.id, action: 'update', summary: `Changed ${user.name}`, before, after: user.toPublic() });
+    return user.toPublic();
+  });
+}
+
+export async function setPassword(actor: Actor | null, id: number, password: string, endSessions: boolean) {
+  return sequelize.transaction(async (t) => {
+    const user = await User.findByPk(id, { transaction: t });
+    if (!user) throw notFound('User');
+    user.passwordHash = await hashPassword(password);
+    await user.save({ transaction: t });
+    if (endSessions) await endSessionsOf(user.id, t);
+    await record(t, { actor, buildId: null, entity: 'user', entityId: user.id, action: 'password', summary: `Password set for ${user.name}`, changes: {} });
+  });
+}
+
+export async function changeOwnPassword(actor: Actor, current: string, next: string) {
+  const user = await User.findByPk(actor.id);
+  if (!user) throw notFound('User');
+  if (!(await bcrypt.compare(current, user.passwordHash))) {
+    throw badRequest('The current password is not right.', [{ path: 'currentPassword', message: 'is not right' }]);
+  }
+  await setPassword(actor, actor.id, next, false);
+}

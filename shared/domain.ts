@@ -1,0 +1,213 @@
+// The product's vocabulary as types and value lists, shared by server and client.
+// Names follow ../shared/DESIGN.md §3. Money is integer cents; dates are ISO strings (YYYY-MM-DD).
+
+export const ROLES = ['owner', 'producer', 'installer', 'marketing'] as const;
+export type Role = (typeof ROLES)[number];
+
+export const AREAS = ['front', 'sides', 'rear', 'cabin', 'electrical', 'wheels_chassis'] as const;
+export type Area = (typeof AREAS)[number];
+export const AREA_LABELS: Record<Area, string> = {
+  front: 'Front',
+  sides: 'Sides',
+  rear: 'Rear',
+  cabin: 'Cabin',
+  electrical: 'Electrical',
+  wheels_chassis: 'Wheels & chassis',
+};
+
+export const INSTALL_STATES = ['queued', 'in_bay', 'installed'] as const;
+export type InstallState = (typeof INSTALL_STATES)[number];
+export const INSTALL_STATE_LABELS: Record<InstallState, string> = {
+  queued: 'Queued',
+  in_bay: 'In the bay',
+  installed: 'Installed',
+};
+
+export const SEGMENT_STATES = ['not_shot', 'shot'] as const;
+export type SegmentState = (typeof SEGMENT_STATES)[number];
+
+export const SAFETY_FLAGS = [
+  'srs_airbag',
+  'brakes',
+  'lighting',
+  'rear_camera',
+  'wheels_tires',
+  'high_current',
+  'lifting',
+] as const;
+export type SafetyFlag = (typeof SAFETY_FLAGS)[number];
+
+export const PART_CONDITIONS = ['new', 'take_off'] as const;
+export type PartCondition = (typeof PART_CONDITIONS)[number];
+
+export const PART_STATES = ['to_order', 'ordered', 'backordered', 'received', 'fitted', 'returned'] as const;
+export type PartState = (typeof PART_STATES)[number];
+export const PART_STATE_LABELS: Record<PartState, string> = {
+  to_order: 'To order',
+  ordered: 'Ordered',
+  backordered: 'Backordered',
+  received: 'Received',
+  fitted: 'Fitted',
+  returned: 'Returned',
+};
+
+export const DISPOSITIONS = ['keep', 'for_sale', 'sold', 'scrapped'] as const;
+export type Disposition = (typeof DISPOSITIONS)[number];
+
+export const LABOUR_KINDS = ['install', 'filming', 'prep'] as const;
+export type LabourKind = (typeof LABOUR_KINDS)[number];
+
+export const EPISODE_STATES = ['draft', 'scheduled', 'shot', 'in_edit', 'live'] as const;
+export type EpisodeState = (typeof EPISODE_STATES)[number];
+export const EPISODE_STATE_LABELS: Record<EpisodeState, string> = {
+  draft: 'Draft',
+  scheduled: 'Scheduled',
+  shot: 'Shot',
+  in_edit: 'In edit',
+  live: 'Live',
+};
+
+export const MEDIA_KINDS = ['photo', 'video', 'document'] as const;
+export type MediaKind = (typeof MEDIA_KINDS)[number];
+export const MEDIA_STAGES = ['before', 'during', 'after'] as const;
+export type MediaStage = (typeof MEDIA_STAGES)[number];
+
+export const REQUEST_STATES = ['new', 'accepted', 'declined', 'merged'] as const;
+export type RequestState = (typeof REQUEST_STATES)[number];
+
+/** Roles that may see shop cost, labour rate, budget and every money figure. */
+export const MONEY_ROLES: readonly Role[] = ['owner', 'producer'];
+/** Roles that may see retail prices (but, for marketing, not shop cost). */
+export const RETAIL_ROLES: readonly Role[] = ['owner', 'producer', 'marketing'];
+
+export function canSeeMoney(roles: readonly string[]): boolean {
+  return roles.some((r) => (MONEY_ROLES as readonly string[]).includes(r));
+}
+export function canSeeRetail(roles: readonly string[]): boolean {
+  return roles.some((r) => (RETAIL_ROLES as readonly string[]).includes(r));
+}
+
+// ---- Plain records as the API sends them (money fields absent for roles that may not see them) ----
+
+export interface BuildRecord {
+  id: number;
+  slug: string;
+  name: string;
+  year: number;
+  make: string;
+  model: string;
+  trim: string;
+  vin: string | null;
+  mileage: number | null;
+  budgetCents?: number | null;
+  labourRateCents?: number | null;
+  shopHoursPerWeek: number;
+  shootHoursPerEpisode: number;
+  releaseCadenceDays: number;
+  startDate: string;
+  isPublic: boolean;
+  campaign: string | null;
+  summary: string | null;
+  version: number;
+}
+
+export interface UpgradeRecord {
+  id: number;
+  buildId: number;
+  title: string;
+  replaces: string | null;
+  becomes: string | null;
+  area: Area;
+  estimatedHours: number;
+  valueAddedCents?: number;
+  priority: number;
+  safetyFlags: SafetyFlag[];
+  installState: InstallState;
+  installSegment: SegmentState;
+  demoSegment: SegmentState;
+  episodeId: number | null;
+  episodePosition: number | null;
+  notes: string | null;
+  tireFrom: string | null;
+  tireTo: string | null;
+  prerequisiteIds: number[];
+  version: number;
+}
+
+export interface PartRecord {
+  id: number;
+  buildId: number;
+  upgradeId: number;
+  partNumber: string;
+  description: string;
+  quantity: number;
+  unitCostCents?: number;
+  retailPriceCents?: number | null;
+  supplier: string | null;
+  condition: PartCondition;
+  productUrl: string | null;
+  expectedArrival: string | null;
+  state: PartState;
+}
+
+export interface RemovedPartRecord {
+  id: number;
+  buildId: number;
+  upgradeId: number | null;
+  description: string;
+  partNumber: string | null;
+  disposition: Disposition;
+  expectedSaleCents?: number | null;
+  actualSaleCents?: number | null;
+  soldOn: string | null;
+}
+
+export interface LabourEntryRecord {
+  id: number;
+  buildId: number;
+  upgradeId: number;
+  userId: number | null;
+  personName: string;
+  workedOn: string;
+  hours: number;
+  kind: LabourKind;
+  note: string | null;
+}
+
+export interface ExpenseRecord {
+  id: number;
+  buildId: number;
+  upgradeId: number | null;
+  description: string;
+  amountCents?: number;
+  spentOn: string;
+  category: string | null;
+}
+
+export interface EpisodeRecord {
+  id: number;
+  buildId: number;
+  number: number;
+  title: string;
+  summary: string | null;
+  state: EpisodeState;
+  shootDate: string | null;
+  releaseDate: string | null;
+  videoUrl: string | null;
+  runtimeSeconds: number | null;
+  publishedAt: string | null;
+  upgradeIds: number[];
+  version: number;
+}
+
+export interface ChapterRecord {
+  id?: number;
+  startSeconds: number;
+  title: string;
+  upgradeId: number | null;
+}
+
+/** An upgrade is done when it is installed and both of its segments are shot. */
+export function isUpgradeDone(u: Pick<UpgradeRecord, 'installState' | 'installSegment' | 'demoSegment'>): boolean {
+  return u.installState === 'installed' && u.installSegment === 'shot' && u.demoSegment === 'shot';
+}

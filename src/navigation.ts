@@ -1,0 +1,23 @@
+// What the navigation offers, and to which roles. The server enforces the same rules.
+import type { Role } from '@shared/domain';
+
+export interface NavItem {
+  label: string;
+  name: string; // route name
+  roles: Role[] | 'any';
+  icon: string; // key in components/AppIcon.vue
+}
+
+/** Top-level places. */
+export const mainNav: NavItem[] = [
+  { label: 'Builds', name: 'builds', roles: 'any', icon: 'garage' },
+  { label: 'Users & roles', name: 'users', roles: ['owner'], icon: 'people' },
+  { label: 'My account', name: 'account', roles: 'any', icon: 'person' },
+];
+
+/** Places inside one build (route names take the :buildId param). */
+export const buildNav: NavItem[] = [];
+
+export function allowed(item: NavItem, can: (...r: Role[]) => boolean) {
+  return item.roles === 'any' || can(...item.roles);
+}

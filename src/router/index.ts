@@ -1,0 +1,47 @@
+// Named routes. Only sign-in is in the first bundle; every other screen loads lazily.
+import { createRouter, createWebHistory, type RouteRecordRaw } from 'vue-router';
+import SignInView from '@/views/SignInView.vue';
+import { useSessionStore } from '@/stores/session';
+import type { Role } from '@shared/domain';
+
+declare module 'vue-router' {
+  interface RouteMeta {
+    public?: boolean;
+    roles?: Role[];
+    title?: string;
+  }
+}
+
+/** Screens inside one build; later features add theirs here. */
+export const buildRoutes: RouteRecordRaw[] = [];
+
+const routes: RouteRecordRaw[] = [
+  { path: '/sign-in', name: 'sign-in', component: SignInView, meta: { public: true, title: 'Sign in' } },
+  {
+    path: '/',
+    component: () => import('@/components/AppLayout.vue'),
+    children: [
+      { path: '', redirect: { name: 'builds' } },
+      { path: 'builds', name: 'builds', component: () => import('@/views/BuildsView.vue'), meta: { title: 'Builds' } },
+      { path: 'users', name: 'users', component: () => import('@/views/UsersView.vue'), meta: { roles: ['owner'], title: 'Users & roles' } },
+      { path: 'account', name: 'account', component: () => import('@/views/AccountView.vue'), meta: { title: 'My account' } },
+      { path: 'builds/:buildId(\\d+)', children: buildRoutes },
+    ],
+  },
+  { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { public: true, title: 'Not found' } },
+];
+
+export const router = createRouter({ history: createWebHistory(), routes });
+
+router.beforeEach(async (to) => {
+  const session = useSessionStore();
+  if (to.meta.public) return true;
+  if (!session.checked) await session.refresh();
+  if (!session.user) return { name: 'sign-in', query: to.fullPath !== '/' ? { next: to.fullPath } : {} };
+  if (to.meta.roles && !session.can(...to.meta.roles)) return { name: 'builds' };
+  return true;
+});
+
+router.afterEach((to) => {
+  document.title = to.meta.title ? `${to.meta.title} · Bayslate` : 'Bayslate';
+});

@@ -1,0 +1,95 @@
+// Bayslate's look: graphite and chalk neutrals, one warm signal accent for what needs
+// attention, and calm state colours of our own (always paired with a word or an icon).
+import type { GlobalThemeOverrides } from 'naive-ui';
+
+export const palette = {
+  graphite900: '#1d1f22',
+  graphite800: '#25272b',
+  graphite700: '#33363c',
+  graphite500: '#5c616b',
+  graphite300: '#a3a7ae',
+  chalk50: '#faf8f3',
+  chalk100: '#f1ede4',
+  chalk200: '#e4dfd3',
+  signal: '#b34a14', // warm accent: attention, overdue, caution (AA on chalk and white)
+  signalSoft: '#f6dccb',
+  steel: '#3d5a73', // primary actions
+  steelDark: '#6f93b3',
+  moss: '#3f6b45', // done / installed
+  ochre: '#8a6414', // in progress
+  slate: '#5b6470', // waiting / queued
+  plum: '#6a4a78', // shot / live media
+} as const;
+
+/** State → colour and word; screens always show the word too. */
+export const stateTone: Record<string, { color: string; label?: string }> = {
+  queued: { color: palette.slate },
+  in_bay: { color: palette.ochre },
+  installed: { color: palette.moss },
+  not_shot: { color: palette.slate },
+  shot: { color: palette.plum },
+  to_order: { color: palette.signal },
+  ordered: { color: palette.steel },
+  backordered: { color: palette.signal },
+  received: { color: palette.moss },
+  fitted: { color: palette.moss },
+  returned: { color: palette.graphite500 },
+  draft: { color: palette.slate },
+  scheduled: { color: palette.steel },
+  in_edit: { color: palette.ochre },
+  live: { color: palette.moss },
+};
+
+const font = "'Poppins', system-ui, -apple-system, 'Segoe UI', sans-serif";
+
+export const lightOverrides: GlobalThemeOverrides = {
+  common: {
+    fontFamily: font,
+    fontFamilyMono: "ui-monospace, 'DejaVu Sans Mono', monospace",
+    primaryColor: palette.steel,
+    primaryColorHover: '#4a6d8a',
+    primaryColorPressed: '#30485c',
+    primaryColorSuppl: '#4a6d8a',
+    warningColor: palette.signal,
+    warningColorHover: '#d9682a',
+    errorColor: '#b3261e',
+    successColor: palette.moss,
+    infoColor: palette.steel,
+    bodyColor: palette.chalk50,
+    cardColor: '#ffffff',
+    textColorBase: palette.graphite900,
+    textColor1: palette.graphite900,
+    textColor2: palette.graphite800,
+    textColor3: palette.graphite500,
+    borderRadius: '6px',
+    fontSize: '14px',
+  },
+  Layout: { siderColor: palette.graphite800, headerColor: palette.chalk100 },
+  DataTable: { thColor: palette.chalk100, thFontWeight: '600' },
+};
+
+export const darkOverrides: GlobalThemeOverrides = {
+  common: {
+    fontFamily: font,
+    primaryColor: palette.steelDark,
+    primaryColorHover: '#86a7c4',
+    primaryColorPressed: '#5b7d9b',
+    primaryColorSuppl: '#86a7c4',
+    warningColor: '#e38a55',
+    successColor: '#7fb287',
+    bodyColor: palette.graphite900,
+    cardColor: palette.graphite800,
+    borderRadius: '6px',
+    fontSize: '14px',
+  },
+  Layout: { siderColor: '#17181b', headerColor: palette.graphite800 },
+};
+
+export const money = new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' });
+/** Formats integer cents; null/undefined shows an em dash. */
+export function formatCents(cents: number | null | undefined): string {
+  return cents === null || cents === undefined || !Number.isFinite(cents) ? '—' : money.format(cents / 100);
+}
+export function formatHours(h: number | null | undefined): string {
+  return h === null || h === undefined || !Number.isFinite(h) ? '—' : `${Math.round(h * 10) / 10} h`;
+}

@@ -1,0 +1,47 @@
+// Vitest global setup for API and browser tests: a throwaway PostgreSQL cluster with a
+// migrated, demo-seeded template database that each test file clones, plus the local fake
+// S3 and SMTP servers. Everything is torn down at the end, passing or failing.
+import { spawnSync } from 'node:child_process';
+import path from 'node:path';
+import type { TestProject } from 'vitest/node';
+import { startThrowawayCluster } from '../../scripts/lib/pg-cluster.mjs';
+import { startTestFakes } from './fakes';
+
+declare module 'vitest' {
+  export interface ProvidedContext {
+    pgTemplateUrl: string;
+    s3Endpoint: string;
+    smtpPort: number;
+    mailDir: string;
+  }
+}
+
+const root = path.resolve(import.meta.dirname, '../..');
+
+export default async function setup(project: TestProject) {
+  const cluster = await startThrowawayCluster();
+  const fakes = await startTestFakes();
+  const env = {
+    ...process.env,
+    NODE_ENV: 'test',
+    DATABASE_URL: cluster.url,
+    SESSION_SECRET: 'test-secret-test-secret-test-secret',
+    BAYSLATE_DEMO: '1',
+    S3_ENDPOINT: fakes.s3Endpoint,
+    SMTP_URL: `smtp://127.0.0.1:${fakes.smtpPort}`,
+  };
+  const r = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/db-setup.ts'], { cwd: root, env, encoding: 'utf8' });
+  if (r.status !== 0) {
+    cluster.stop();
+    await fakes.stop();
+    throw new Error(`preparing the template database failed:\n${r.stdout}\n${r.stderr}`);
+  }
+  project.provide('pgTemplateUrl', cluster.url);
+  project.provide('s3Endpoint', fakes.s3Endpoint);
+  project.provide('smtpPort', fakes.smtpPort);
+  project.provide('mailDir', fakes.mailDir);
+  return async () => {
+    await fakes.stop();
+    cluster.stop();
+  };
+}

@@ -1,0 +1,51 @@
+// Three test projects: pure unit tests, API tests against a real throwaway PostgreSQL
+// (one database per test file, cloned from a migrated and seeded template), and browser tests.
+import { defineConfig } from 'vitest/config';
+import vue from '@vitejs/plugin-vue';
+import { fileURLToPath } from 'node:url';
+
+const alias = {
+  '@shared': fileURLToPath(new URL('./shared', import.meta.url)),
+  '@': fileURLToPath(new URL('./src', import.meta.url)),
+};
+
+export default defineConfig({
+  plugins: [vue()],
+  resolve: { alias },
+  test: {
+    projects: [
+      {
+        extends: true,
+        test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node' },
+      },
+      {
+        extends: true,
+        test: {
+          name: 'api',
+          include: ['tests/api/**/*.test.ts'],
+          environment: 'node',
+          globalSetup: ['tests/helpers/global-services.ts'],
+          setupFiles: ['tests/helpers/per-file-db.ts'],
+          testTimeout: 30_000,
+          hookTimeout: 60_000,
+          pool: 'forks',
+          maxWorkers: 2,
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: 'e2e',
+          include: ['tests/e2e/**/*.test.ts'],
+          environment: 'node',
+          globalSetup: ['tests/helpers/global-services.ts'],
+          setupFiles: ['tests/helpers/per-file-db.ts'],
+          testTimeout: 60_000,
+          hookTimeout: 90_000,
+          pool: 'forks',
+          maxWorkers: 2,
+        },
+      },
+    ],
+  },
+});
