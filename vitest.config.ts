@@ -16,12 +16,13 @@ export default defineConfig({
     projects: [
       {
         extends: true,
-        test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node' },
+        test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node', sequence: { groupOrder: 0 } },
       },
       {
         extends: true,
         test: {
           name: 'api',
+          sequence: { groupOrder: 1 },
           include: ['tests/api/**/*.test.ts'],
           environment: 'node',
           globalSetup: ['tests/helpers/global-services.ts'],
@@ -36,6 +37,7 @@ export default defineConfig({
         extends: true,
         test: {
           name: 'e2e',
+          sequence: { groupOrder: 2 },
           include: ['tests/e2e/**/*.test.ts'],
           environment: 'node',
           globalSetup: ['tests/helpers/global-services.ts'],

@@ -47,8 +47,8 @@ export interface CostRollup {
 /**
  * Rounds an amount of cents to a whole cent, halves away from zero: 0.5 → 1, 2.5 → 3, −0.5 → −1
  * (for the non-negative amounts of normal use this is plain half-up). The value is first snapped to
- * six decimals so float products such as 1.15 h × 10,000 ¢ = 11499.999999999998 round as the
- * decimal arithmetic a person would do (11,500 ¢), not one cent short.
+ * six decimals so float products such as 0.47 h × 8,550 ¢ = 4018.4999999999995 round as the decimal
+ * arithmetic a person would do (4,018.5 → 4,019 ¢), not one cent short.
  */
 export function roundHalfUpCents(x: number): number {
   const snapped = Math.round(x * 1e6) / 1e6;

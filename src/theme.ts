@@ -65,7 +65,7 @@ export const lightOverrides: GlobalThemeOverrides = {
     fontSize: '14px',
   },
   Layout: { siderColor: palette.graphite800, headerColor: palette.chalk100 },
-  DataTable: { thColor: palette.chalk100, thFontWeight: '600' },
+  DataTable: { thColor: palette.chalk100, thFontWeight: '600', thTextColor: palette.graphite900, tdTextColor: palette.graphite900 },
 };
 
 export const darkOverrides: GlobalThemeOverrides = {

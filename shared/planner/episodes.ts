@@ -30,7 +30,7 @@ export interface Locks {
  * date grid. When the two disagree the episode's own list wins: it is what was shot.
  */
 export function lockEpisodes(input: PlannerInput, prep: PreparedUpgrades): Locks {
-  const { ups, index, order } = prep;
+  const { ups, index } = prep;
   const n = ups.length;
   const cadence = input.releaseCadenceDays;
   const startDay = toDay(input.startDate);
@@ -54,13 +54,15 @@ export function lockEpisodes(input: PlannerInput, prep: PreparedUpgrades): Locks
       e.members.push(i);
     }
   }
-  for (let k = 0; k < order.length; k++) {
-    const i = order[k];
+  const extra = new Map<number, number[]>();
+  for (let i = 0; i < n; i++) {
     const fe = ups[i].fixedEpisode;
     if (fe == null || lockedOf[i] >= 0 || !(Number.isInteger(fe) && fe >= 1)) continue;
     lockedOf[i] = fe;
-    entry(fe).members.push(i);
+    if (!extra.has(fe)) extra.set(fe, []);
+    extra.get(fe)!.push(i);
   }
+  for (const [fe, list] of extra) entry(fe).members.push(...prerequisitesFirst(list, prep));
   const hoursOf = (i: number) => (Number.isFinite(ups[i].estimatedHours) ? Math.max(0, ups[i].estimatedHours) : 0);
   const episodes: PlanEpisode[] = [];
   let lastNumber = 0;
@@ -110,4 +112,26 @@ export function describeEpisode(
     locked: false,
     oversize,
   };
+}
+
+/**
+ * Orders a few upgrades so each comes after its prerequisites among them, lowest id first where free,
+ * so the result does not depend on input order. Quadratic, but only ever run on one episode's upgrades.
+ */
+function prerequisitesFirst(list: number[], prep: PreparedUpgrades): number[] {
+  const g = prep.graph;
+  const left = new Set(list);
+  const out: number[] = [];
+  while (left.size) {
+    let pick = -1;
+    for (const i of left) {
+      let ready = true;
+      for (let e = g.predStart[i]; e < g.predStart[i + 1] && ready; e++) ready = !left.has(g.predIdx[e]);
+      if (ready && (pick < 0 || prep.ups[i].id < prep.ups[pick].id)) pick = i;
+    }
+    if (pick < 0) pick = [...left][0]; // only on a cycle, which the planner refuses before this
+    left.delete(pick);
+    out.push(pick);
+  }
+  return out;
 }

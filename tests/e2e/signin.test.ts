@@ -1,0 +1,74 @@
+// Each demo role signs in through the form, sees its own navigation, and signs out.
+import { describe, it, expect, beforeAll, afterAll } from 'vitest';
+import { openBrowser, signIn, audit, type BrowserSession, startAppServer, type AppServer } from '../helpers/browser';
+import type { DemoRole } from '../helpers/api';
+
+let server: AppServer;
+beforeAll(async () => {
+  server = await startAppServer();
+});
+afterAll(async () => {
+  await server?.stop();
+});
+
+const expectations: Record<DemoRole, { sees: string[]; hidden: string[] }> = {
+  owner: { sees: ['Builds', 'Users & roles', 'My account'], hidden: [] },
+  producer: { sees: ['Builds', 'My account'], hidden: ['Users & roles'] },
+  installer: { sees: ['Builds', 'My account'], hidden: ['Users & roles'] },
+  marketing: { sees: ['Builds', 'My account'], hidden: ['Users & roles'] },
+};
+
+describe('sign-in in the browser', () => {
+  for (const role of Object.keys(expectations) as DemoRole[]) {
+    it(`${role} signs in, sees their navigation and signs out`, async () => {
+      const s: BrowserSession = await openBrowser({ server });
+      try {
+        await signIn(s, role);
+        const nav = s.page.getByRole('navigation', { name: 'Main navigation' });
+        for (const label of expectations[role].sees) expect(await nav.getByRole('link', { name: label }).isVisible()).toBe(true);
+        for (const label of expectations[role].hidden) expect(await nav.getByRole('link', { name: label }).count()).toBe(0);
+        if (role === 'owner') {
+          await nav.getByRole('link', { name: 'Users & roles' }).click();
+          await s.page.getByRole('heading', { name: 'Users & roles' }).waitFor();
+          await s.page.getByText('installer@cedar-ridge.test').waitFor();
+          await audit(s);
+        }
+        await s.page.getByRole('button', { name: 'Sign out' }).click();
+        await s.page.waitForURL(/\/sign-in/);
+        await s.page.getByRole('heading', { name: 'Sign in' }).waitFor();
+        // Signed out for real: a signed-in page sends the person back to sign-in.
+        await s.page.goto(`${server.url}/builds`);
+        await s.page.waitForURL(/\/sign-in/);
+      } finally {
+        await s.close();
+      }
+    });
+  }
+
+  it('a wrong password shows a message and stays on sign-in', async () => {
+    const s = await openBrowser({ server });
+    try {
+      await s.page.goto(`${server.url}/sign-in`);
+      await s.page.getByLabel('E-mail').fill('owner@cedar-ridge.test');
+      await s.page.getByLabel('Password', { exact: true }).fill('wrong-password');
+      await s.page.getByRole('button', { name: 'Sign in' }).click();
+      await s.page.getByRole('alert').filter({ hasText: 'do not match' }).waitFor();
+      expect(new URL(s.page.url()).pathname).toBe('/sign-in');
+      await audit(s);
+    } finally {
+      await s.close();
+    }
+  });
+
+  it('works at phone width: the menu opens and offers sign-out', async () => {
+    const s = await openBrowser({ server, phone: true });
+    try {
+      await signIn(s, 'installer');
+      await s.page.getByRole('button', { name: 'Open the menu' }).click();
+      await s.page.getByRole('button', { name: 'Sign out' }).last().click();
+      await s.page.waitForURL(/\/sign-in/);
+    } finally {
+      await s.close();
+    }
+  });
+});

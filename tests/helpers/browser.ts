@@ -1,0 +1,141 @@
+// Browser-test harness: the real server (built client included) on this file's database,
+// Debian's Chromium driven by playwright-core, and axe-core run on every page visited.
+import { spawn, type ChildProcess } from 'node:child_process';
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import net from 'node:net';
+import { createRequire } from 'node:module';
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { DEMO_EMAIL, DEMO_PASSWORD, type DemoRole } from './api';
+
+const root = path.resolve(import.meta.dirname, '../..');
+const require = createRequire(import.meta.url);
+const axePath = require.resolve('axe-core/axe.min.js');
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const s = net.createServer();
+    s.on('error', reject);
+    s.listen(0, '127.0.0.1', () => {
+      const { port } = s.address() as net.AddressInfo;
+      s.close(() => resolve(port));
+    });
+  });
+}
+
+export interface AppServer {
+  url: string;
+  port: number;
+  stop: () => Promise<void>;
+  output: () => string;
+}
+
+/** Starts `server/index.ts` as a child process, as `npm start` does, and waits until it listens. */
+export async function startAppServer(extraEnv: Record<string, string> = {}): Promise<AppServer> {
+  if (!existsSync(path.join(root, 'dist', 'index.html'))) throw new Error('dist/ is missing: run the tests through `npm test`, which builds the client');
+  const port = await freePort();
+  let out = '';
+  const child: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+    cwd: root,
+    env: { ...process.env, PORT: String(port), HOST: '127.0.0.1', SERVE_CLIENT: '1', NODE_ENV: 'test', PUBLIC_URL: `http://127.0.0.1:${port}`, ...extraEnv },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  child.stdout!.on('data', (c) => (out += c));
+  child.stderr!.on('data', (c) => (out += c));
+  await new Promise<void>((resolve, reject) => {
+    const timer = setTimeout(() => reject(new Error(`server did not start:\n${out}`)), 30_000);
+    child.stdout!.on('data', () => out.includes('server listening') && (clearTimeout(timer), resolve()));
+    child.once('exit', (code) => (clearTimeout(timer), reject(new Error(`server exited ${code}:\n${out}`))));
+  });
+  return {
+    url: `http://127.0.0.1:${port}`,
+    port,
+    output: () => out,
+    stop: () =>
+      new Promise<void>((resolve) => {
+        if (child.exitCode !== null) return resolve();
+        child.once('exit', () => resolve());
+        child.kill('SIGTERM');
+        setTimeout(() => child.kill('SIGKILL'), 5000);
+      }),
+  };
+}
+
+function chromiumPath() {
+  for (const p of ['/usr/lib/chromium/chromium', '/usr/bin/chromium']) if (existsSync(p)) return p;
+  throw new Error('Chromium is missing: `npm test` installs Debian’s chromium package');
+}
+
+export interface BrowserSession {
+  browser: Browser;
+  context: BrowserContext;
+  page: Page;
+  server: AppServer;
+  /** Pages audited so far, with their serious or critical violations (should stay empty). */
+  audited: string[];
+  close: () => Promise<void>;
+}
+
+export async function openBrowser(opts: { phone?: boolean; server?: AppServer; env?: Record<string, string> } = {}): Promise<BrowserSession> {
+  const server = opts.server ?? (await startAppServer(opts.env));
+  // Playwright gives every launch a fresh, empty profile folder of its own.
+  const browser = await chromium.launch({
+    executablePath: chromiumPath(),
+    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+  });
+  const context = await browser.newContext(
+    // bypassCSP lets the harness inject axe-core; the app's own CSP stays strict.
+    opts.phone ? { viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true, deviceScaleFactor: 2, bypassCSP: true } : { viewport: { width: 1366, height: 900 }, bypassCSP: true },
+  );
+  const page = await context.newPage();
+  const session: BrowserSession = {
+    browser,
+    context,
+    page,
+    server,
+    audited: [],
+    close: async () => {
+      await browser.close();
+      if (!opts.server) await server.stop();
+    },
+  };
+  return session;
+}
+
+/** Runs axe-core on the page as it is now; fails on any serious or critical violation. */
+export async function audit(s: BrowserSession, label?: string) {
+  const { page } = s;
+  await page.waitForLoadState('networkidle').catch(() => undefined);
+  // Let fades finish (a table fading in from its loading state is not what a person reads).
+  await page
+    .waitForFunction(() => document.getAnimations().every((a) => a.playState !== 'running' || a.effect?.getTiming().iterations === Infinity), null, { timeout: 3000 })
+    .catch(() => undefined);
+  const hasAxe = await page.evaluate(() => typeof (window as unknown as { axe?: unknown }).axe !== 'undefined');
+  if (!hasAxe) await page.addScriptTag({ path: axePath });
+  const violations = await page.evaluate(async () => {
+    const axe = (window as unknown as { axe: { run: (ctx: Document, opts: object) => Promise<{ violations: { id: string; impact: string; help: string; nodes: { target: string[]; html: string; failureSummary?: string }[] }[] }> } }).axe;
+    const r = await axe.run(document, { resultTypes: ['violations'] });
+    return r.violations
+      .filter((v) => v.impact === 'serious' || v.impact === 'critical')
+      .map((v) => `${v.impact} ${v.id}: ${v.help}\n    ${v.nodes.slice(0, 4).map((n) => `${n.target.join(' ')} ${n.html.slice(0, 160)} — ${(n.failureSummary ?? '').replace(/\s+/g, ' ').slice(0, 200)}`).join('\n    ')}`);
+  });
+  const where = label ?? page.url();
+  s.audited.push(where);
+  if (violations.length) throw new Error(`accessibility violations on ${where}:\n  ${violations.join('\n  ')}`);
+}
+
+/** Goes to a path of the app and audits the page once it has settled. */
+export async function visit(s: BrowserSession, pathname: string) {
+  await s.page.goto(s.server.url + pathname);
+  await audit(s);
+}
+
+/** Signs in through the form, as a person would, and audits the sign-in page and the landing page. */
+export async function signIn(s: BrowserSession, role: DemoRole) {
+  await visit(s, '/sign-in');
+  await s.page.getByLabel('E-mail').fill(DEMO_EMAIL[role]);
+  await s.page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
+  await s.page.getByRole('button', { name: 'Sign in' }).click();
+  await s.page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
+  await audit(s);
+}
