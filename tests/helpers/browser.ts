@@ -32,12 +32,13 @@ export interface AppServer {
 
 /** Starts `server/index.ts` as a child process, as `npm start` does, and waits until it listens. */
 export async function startAppServer(extraEnv: Record<string, string> = {}): Promise<AppServer> {
-  if (!existsSync(path.join(root, 'dist', 'index.html'))) throw new Error('dist/ is missing: run the tests through `npm test`, which builds the client');
+  if (!existsSync(path.join(root, process.env.E2E_DIST ?? 'dist', 'index.html'))) throw new Error('dist/ is missing: run the tests through `npm test`, which builds the client');
   const port = await freePort();
   let out = '';
   const child: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
     cwd: root,
-    env: { ...process.env, PORT: String(port), HOST: '127.0.0.1', SERVE_CLIENT: '1', NODE_ENV: 'test', PUBLIC_URL: `http://127.0.0.1:${port}`, ...extraEnv },
+    // E2E_DIST lets a developer test a client built into another folder than dist/.
+    env: { ...process.env, PORT: String(port), HOST: '127.0.0.1', SERVE_CLIENT: '1', CLIENT_DIST: process.env.E2E_DIST ?? 'dist', NODE_ENV: 'test', PUBLIC_URL: `http://127.0.0.1:${port}`, ...extraEnv },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   child.stdout!.on('data', (c) => (out += c));
