@@ -55,8 +55,11 @@ export function proposePlan(input: PlannerInput): Plan {
 
   // Own urgency rank, then inherited rank: the best rank among the upgrade and everything free
   // that depends on it, computed in reverse prerequisite order (linear).
+  // A missing priority or vote count sorts as the least urgent / no votes rather than poisoning the sort.
+  const prio = (i: number) => (Number.isFinite(ups[i].priority) ? ups[i].priority : 5);
+  const votes = (i: number) => (Number.isFinite(ups[i].votes) ? ups[i].votes : 0);
   const byOwn = Array.from({ length: n }, (_, i) => i).sort(
-    (a, b) => ups[a].priority - ups[b].priority || (ups[b].votes ?? 0) - (ups[a].votes ?? 0) || ups[a].id - ups[b].id,
+    (a, b) => prio(a) - prio(b) || votes(b) - votes(a) || ups[a].id - ups[b].id,
   );
   const ownRank = new Int32Array(n);
   byOwn.forEach((i, r) => (ownRank[i] = r));
@@ -68,7 +71,7 @@ export function proposePlan(input: PlannerInput): Plan {
       if (free[s] && effRank[s] < effRank[i]) effRank[i] = effRank[s];
     }
   }
-  const effLevel = (i: number) => ups[byOwn[effRank[i]]].priority;
+  const effLevel = (i: number) => prio(byOwn[effRank[i]]);
   const items = byOwn.filter((i) => free[i]).sort((a, b) => effRank[a] - effRank[b] || ownRank[a] - ownRank[b]);
   const pos = new Int32Array(n).fill(-1);
   items.forEach((i, p) => (pos[i] = p));

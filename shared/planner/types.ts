@@ -59,7 +59,7 @@ export type Plan =
       buildDoneDate: string | null;
       /** Hours one new episode may hold: min(shoot hours per episode, shop hours per cadence). */
       capacityHours: number;
-      /** Upgrades the planner could not place: those whose estimated hours are not a finite number ≥ 0. */
+      /** Upgrades it could not place: estimated hours not a finite number ≥ 0, or a prerequisite that is unplaced. */
       unplaced: number[];
     }
   | { ok: false; cycle: number[] };

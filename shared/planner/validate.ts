@@ -25,7 +25,7 @@ export function validatePlan(input: PlannerInput, plan: PlanToValidate): PlanVio
     const titles = cycle.map((id) => name(index.get(id)!));
     out.push({
       kind: 'cycle',
-      message: `Prerequisites form a cycle: ${[...titles, titles[0]].join(' → ')}; no order can satisfy them.`,
+      message: `Prerequisites form a cycle, so no order can satisfy them (each must come before the next): ${[...titles, titles[0]].join(' → ')}.`,
       upgradeIds: cycle,
       episodeNumbers: [],
     });
