@@ -100,7 +100,7 @@ export function signIn(req: Parameters<RequestHandler>[0], user: Express.User): 
   return new Promise((resolve, reject) => {
     req.session.regenerate((err) => {
       if (err) return reject(err);
-      req.login(user, { keepSessionInfo: false }, (err2) => {
+      req.login(user, (err2) => {
         if (err2) return reject(err2);
         req.session.signedInAt = Date.now();
         req.session.save((err3) => (err3 ? reject(err3) : resolve()));

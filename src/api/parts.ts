@@ -1,0 +1,32 @@
+// Parts of one build: list (by upgrade or state), create, change, delete, CSV export and import.
+import { api, qs, request } from './http';
+import type { PartRecord, PartState } from '@shared/domain';
+import type { ImportReport } from './upgrades';
+
+/** A part as the API sends it; order and arrival dates and the version come along when present. */
+export type PartRow = PartRecord & { orderedOn?: string | null; receivedOn?: string | null; version?: number };
+export type PartInput = Partial<Omit<PartRow, 'id' | 'buildId'>>;
+
+const base = (buildId: number) => `/api/builds/${buildId}/parts`;
+
+export const partsApi = {
+  list: (buildId: number, q: { upgradeId?: number; state?: PartState; page?: number; pageSize?: number } = {}) =>
+    api.get<{ parts: PartRow[]; total: number }>(base(buildId) + qs({ ...q })),
+  create: (buildId: number, body: PartInput) => api.post<{ part: PartRow }>(base(buildId), body),
+  update: (buildId: number, id: number, body: PartInput) => api.patch<{ part: PartRow }>(`${base(buildId)}/${id}`, body),
+  remove: (buildId: number, id: number) => api.del<void>(`${base(buildId)}/${id}`),
+  exportCsv: (buildId: number) => request<string>('GET', `${base(buildId)}.csv`, undefined, { raw: true }),
+  importCsv: (buildId: number, csv: string, dryRun: boolean) =>
+    request<ImportReport>('POST', `${base(buildId)}/import${dryRun ? '?dryRun=1' : ''}`, csv, { contentType: 'text/csv' }),
+};
+
+/** Every part of a build, paging through the list. */
+export async function allParts(buildId: number): Promise<PartRow[]> {
+  const out: PartRow[] = [];
+  for (let page = 1; page < 50; page++) {
+    const r = await partsApi.list(buildId, { page, pageSize: 500 });
+    out.push(...r.parts);
+    if (out.length >= r.total || r.parts.length === 0) break;
+  }
+  return out;
+}

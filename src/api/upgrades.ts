@@ -1,0 +1,86 @@
+// Upgrades of one build: the paged, filtered backlog, one upgrade with its lines, changes,
+// prerequisites, activity history and the backlog's CSV export and import.
+import { api, qs, request } from './http';
+import type { Area, InstallState, SafetyFlag, SegmentState, UpgradeRecord, PartRecord, RemovedPartRecord, LabourEntryRecord, ExpenseRecord } from '@shared/domain';
+
+export type UpgradeSort = 'title' | 'area' | 'priority' | 'estimatedHours' | 'installState' | 'episode';
+
+export interface UpgradeQuery {
+  area?: Area | null;
+  installState?: InstallState | null;
+  /** An episode id, or 'none' for upgrades not yet in an episode. */
+  episodeId?: number | 'none' | null;
+  safetyFlag?: SafetyFlag | null;
+  q?: string | null;
+  sort?: UpgradeSort | null;
+  dir?: 'asc' | 'desc' | null;
+  page?: number;
+  pageSize?: number;
+}
+
+export interface UpgradePage {
+  upgrades: UpgradeRecord[];
+  total: number;
+  page: number;
+  pageSize: number;
+}
+
+export interface UpgradeDetail {
+  upgrade: UpgradeRecord;
+  parts: PartRecord[];
+  removedParts: RemovedPartRecord[];
+  labour: LabourEntryRecord[];
+  expenses: ExpenseRecord[];
+}
+
+export interface ActivityRow {
+  id: number;
+  userName: string | null;
+  entity: string;
+  entityId: number | null;
+  action: string;
+  summary: string;
+  changes: Record<string, [unknown, unknown]>;
+  createdAt: string;
+}
+
+/** Fields producers and owners edit (money fields are sent only by those who see money). */
+export type UpgradeInput = Partial<Omit<UpgradeRecord, 'id' | 'buildId' | 'version' | 'prerequisiteIds' | 'episodePosition'>>;
+
+/** The fields an installer may change. */
+export type InstallerChange = { installState?: InstallState; installSegment?: SegmentState; demoSegment?: SegmentState };
+
+/** The answer of a CSV import, dry run or not. */
+export interface ImportReport {
+  ok: boolean;
+  rows: Record<string, unknown>[] | number;
+  errors: { line: number; field?: string; message: string }[];
+}
+
+const base = (buildId: number) => `/api/builds/${buildId}/upgrades`;
+
+export const upgradesApi = {
+  list: (buildId: number, q: UpgradeQuery = {}) => api.get<UpgradePage>(base(buildId) + qs({ ...q })),
+  get: (buildId: number, id: number) => api.get<UpgradeDetail>(`${base(buildId)}/${id}`),
+  create: (buildId: number, body: UpgradeInput) => api.post<{ upgrade: UpgradeRecord }>(base(buildId), body),
+  update: (buildId: number, id: number, body: (UpgradeInput | InstallerChange) & { version: number }) =>
+    api.patch<{ upgrade: UpgradeRecord }>(`${base(buildId)}/${id}`, body),
+  remove: (buildId: number, id: number) => api.del<void>(`${base(buildId)}/${id}`),
+  setPrerequisites: (buildId: number, id: number, prerequisiteIds: number[]) =>
+    api.put<{ upgrade: UpgradeRecord }>(`${base(buildId)}/${id}/prerequisites`, { prerequisiteIds }),
+  activity: (buildId: number, id: number) => api.get<{ activity: ActivityRow[] }>(`${base(buildId)}/${id}/activity`),
+  exportCsv: (buildId: number) => request<string>('GET', `${base(buildId)}.csv`, undefined, { raw: true }),
+  importCsv: (buildId: number, csv: string, dryRun: boolean) =>
+    request<ImportReport>('POST', `${base(buildId)}/import${dryRun ? '?dryRun=1' : ''}`, csv, { contentType: 'text/csv' }),
+};
+
+/** Every upgrade of a build (the backlog pages through; pickers need them all). */
+export async function allUpgrades(buildId: number): Promise<UpgradeRecord[]> {
+  const out: UpgradeRecord[] = [];
+  for (let page = 1; page < 50; page++) {
+    const r = await upgradesApi.list(buildId, { page, pageSize: 500, sort: 'title', dir: 'asc' });
+    out.push(...r.upgrades);
+    if (out.length >= r.total || r.upgrades.length === 0) break;
+  }
+  return out;
+}

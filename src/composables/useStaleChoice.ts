@@ -1,0 +1,31 @@
+// What to do when someone else saved first (409 stale): reload their version, or apply mine again
+// on top of it. One dialog wording for every screen that edits versioned records.
+import { useDialog } from 'naive-ui';
+import { ApiError } from '@/api/http';
+
+export function isStale(e: unknown): e is ApiError {
+  return e instanceof ApiError && e.status === 409 && e.code === 'stale';
+}
+
+/** The current record the server sent with a stale answer, if any. */
+export function staleCurrent<T>(e: ApiError): T | null {
+  return ((e.body as { current?: T }).current ?? null) as T | null;
+}
+
+export function useStaleChoice() {
+  const dialog = useDialog();
+  return (what: string, actions: { reload: () => unknown; reapply: () => unknown }) =>
+    dialog.warning({
+      title: 'Someone else changed this first',
+      content: `${what} was saved by someone else while you were editing. Reload to see their version, or apply your change again on top of it.`,
+      positiveText: 'Apply my change again',
+      negativeText: 'Reload',
+      maskClosable: false,
+      onPositiveClick: () => {
+        actions.reapply();
+      },
+      onNegativeClick: () => {
+        actions.reload();
+      },
+    });
+}
