@@ -37,6 +37,8 @@ const schema = z.object({
   UPLOAD_MAX_PHOTO_MB: z.coerce.number().positive().default(40),
   UPLOAD_MAX_VIDEO_MB: z.coerce.number().positive().default(4096),
   UPLOAD_MAX_DOCUMENT_MB: z.coerce.number().positive().default(25),
+  // How long a presigned media URL stays valid (short: links must not outlive a role change).
+  MEDIA_URL_TTL_SECONDS: z.coerce.number().int().min(10).max(7 * 24 * 3600).default(900),
   // E-mail: with SMTP_URL unset the server runs a local fake SMTP server on loopback.
   SMTP_URL: z.string().optional(),
   MAIL_FROM: z.string().default('Bayslate <no-reply@bayslate.test>'),

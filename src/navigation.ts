@@ -16,7 +16,11 @@ export const mainNav: NavItem[] = [
 ];
 
 /** Places inside one build (route names take the :buildId param). */
-export const buildNav: NavItem[] = [];
+export const buildNav: NavItem[] = [
+  { label: 'Backlog', name: 'backlog', roles: 'any', icon: 'list' },
+  { label: 'Parts', name: 'parts', roles: 'any', icon: 'box' },
+  { label: 'Settings', name: 'build-settings', roles: ['producer'], icon: 'settings' },
+];
 
 export function allowed(item: NavItem, can: (...r: Role[]) => boolean) {
   return item.roles === 'any' || can(...item.roles);

@@ -11,6 +11,7 @@ import { Expense } from './expense';
 import { Episode } from './episode';
 import { EpisodeChapter } from './episodeChapter';
 import { Activity } from './activity';
+import { Media } from './media';
 
 Build.hasMany(Upgrade, { foreignKey: 'buildId', as: 'upgrades' });
 Upgrade.belongsTo(Build, { foreignKey: 'buildId', as: 'build' });
@@ -25,6 +26,7 @@ Episode.hasMany(Upgrade, { foreignKey: 'episodeId', as: 'upgrades' });
 Upgrade.belongsTo(Episode, { foreignKey: 'episodeId', as: 'episode' });
 Episode.hasMany(EpisodeChapter, { foreignKey: 'episodeId', as: 'chapters' });
 LabourEntry.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+Media.belongsTo(User, { foreignKey: 'uploadedBy', as: 'uploader' });
 
 export {
   sequelize,
@@ -39,4 +41,5 @@ export {
   Episode,
   EpisodeChapter,
   Activity,
+  Media,
 };

@@ -1,6 +1,6 @@
 // Sign-in, sign-out, who am I, and changing one's own password.
 import { Router } from 'express';
-import rateLimit from 'express-rate-limit';
+import rateLimit, { ipKeyGenerator } from 'express-rate-limit';
 import { config } from '../config';
 import { validate } from '../middleware/validate';
 import { requireSignedIn } from '../middleware/roles';
@@ -18,7 +18,7 @@ export function authRouter() {
     standardHeaders: 'draft-7',
     legacyHeaders: false,
     // Count per address and e-mail together, and per address alone at a looser limit below.
-    keyGenerator: (req) => `${req.ip}|${String(req.body?.email ?? '').toLowerCase()}`,
+    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').toLowerCase()}`,
     handler: (_req, _res, next) =>
       next(new AppError(429, 'too_many_attempts', 'Too many sign-in attempts. Wait a few minutes and try again.')),
   });

@@ -13,7 +13,12 @@ declare module 'vue-router' {
 }
 
 /** Screens inside one build; later features add theirs here. */
-export const buildRoutes: RouteRecordRaw[] = [];
+export const buildRoutes: RouteRecordRaw[] = [
+  { path: '', redirect: { name: 'backlog' } },
+  { path: 'backlog', name: 'backlog', component: () => import('@/views/BacklogView.vue'), meta: { title: 'Backlog' } },
+  { path: 'parts', name: 'parts', component: () => import('@/views/PartsView.vue'), meta: { title: 'Parts' } },
+  { path: 'settings', name: 'build-settings', component: () => import('@/views/BuildSettingsView.vue'), meta: { roles: ['producer'], title: 'Build settings' } },
+];
 
 const routes: RouteRecordRaw[] = [
   { path: '/sign-in', name: 'sign-in', component: SignInView, meta: { public: true, title: 'Sign in' } },

@@ -1,0 +1,96 @@
+// The build overview's data in one SQL round trip: every table summed in the database, grouped by
+// upgrade and by date, and sent back as compact JSON arrays (one row, one column per list).
+import { QueryTypes } from 'sequelize';
+import { sequelize } from '../db/sequelize';
+import type { Area, Disposition, EpisodeState, InstallState, SegmentState } from '../../shared/domain';
+
+export interface OverviewData {
+  upgrades: {
+    id: number;
+    title: string;
+    area: Area;
+    episodeId: number | null;
+    estimatedHours: number;
+    valueAddedCents: number;
+    installState: InstallState;
+    installSegment: SegmentState;
+    demoSegment: SegmentState;
+    installedOn: string | null;
+  }[];
+  episodes: { id: number; number: number; title: string; state: EpisodeState; shootDate: string | null }[];
+  /** Hours per upgrade per day worked. */
+  labour: { upgradeId: number; workedOn: string; hours: number }[];
+  /** Part lines (returned ones excluded) summed per upgrade per order date (or received date). */
+  parts: { upgradeId: number; spentOn: string | null; cents: number }[];
+  expenses: { upgradeId: number | null; spentOn: string; cents: number }[];
+  /** Removed parts sold or for sale, summed per upgrade, disposition and sale date. */
+  removed: { upgradeId: number | null; disposition: Disposition; soldOn: string | null; expectedCents: number; actualCents: number }[];
+}
+
+// Arrays instead of objects keep the JSON small and quick to parse; the positions are mapped below.
+// Sums of cents are cast to bigint so no integer overflow can occur inside the database.
+const SQL = `
+WITH
+  u AS (SELECT id, title, area, episode_id, estimated_hours, value_added_cents, install_state,
+               install_segment, demo_segment, installed_on
+          FROM upgrades WHERE build_id = $1),
+  e AS (SELECT id, number, title, state, shoot_date FROM episodes WHERE build_id = $1),
+  l AS (SELECT upgrade_id, worked_on, sum(hours) AS hours
+          FROM labour_entries WHERE build_id = $1 GROUP BY upgrade_id, worked_on),
+  p AS (SELECT upgrade_id, coalesce(ordered_on, received_on) AS spent_on,
+               sum(quantity::bigint * unit_cost_cents) AS cents
+          FROM parts WHERE build_id = $1 AND state <> 'returned'
+         GROUP BY upgrade_id, coalesce(ordered_on, received_on)),
+  x AS (SELECT upgrade_id, spent_on, sum(amount_cents::bigint) AS cents
+          FROM expenses WHERE build_id = $1 GROUP BY upgrade_id, spent_on),
+  r AS (SELECT upgrade_id, disposition, sold_on,
+               sum(coalesce(expected_sale_cents, 0)::bigint) AS expected,
+               sum(coalesce(actual_sale_cents, 0)::bigint) AS actual
+          FROM removed_parts WHERE build_id = $1 AND disposition IN ('sold', 'for_sale')
+         GROUP BY upgrade_id, disposition, sold_on)
+SELECT
+  (SELECT coalesce(json_agg(json_build_array(id, title, area, episode_id, estimated_hours, value_added_cents,
+          install_state, install_segment, demo_segment, installed_on) ORDER BY id), '[]') FROM u) AS upgrades,
+  (SELECT coalesce(json_agg(json_build_array(id, number, title, state, shoot_date) ORDER BY number), '[]') FROM e) AS episodes,
+  (SELECT coalesce(json_agg(json_build_array(upgrade_id, worked_on, hours)), '[]') FROM l) AS labour,
+  (SELECT coalesce(json_agg(json_build_array(upgrade_id, spent_on, cents)), '[]') FROM p) AS parts,
+  (SELECT coalesce(json_agg(json_build_array(upgrade_id, spent_on, cents)), '[]') FROM x) AS expenses,
+  (SELECT coalesce(json_agg(json_build_array(upgrade_id, disposition, sold_on, expected, actual)), '[]') FROM r) AS removed
+`;
+
+type Row = Record<keyof OverviewData, unknown[][]>;
+
+export async function loadOverviewData(buildId: number): Promise<OverviewData> {
+  const [row] = await sequelize.query<Row>(SQL, { bind: [buildId], type: QueryTypes.SELECT });
+  return {
+    upgrades: row.upgrades.map(([id, title, area, episodeId, estimatedHours, valueAddedCents, installState, installSegment, demoSegment, installedOn]) => ({
+      id: id as number,
+      title: title as string,
+      area: area as Area,
+      episodeId: episodeId as number | null,
+      estimatedHours: estimatedHours as number,
+      valueAddedCents: valueAddedCents as number,
+      installState: installState as InstallState,
+      installSegment: installSegment as SegmentState,
+      demoSegment: demoSegment as SegmentState,
+      installedOn: installedOn as string | null,
+    })),
+    episodes: row.episodes.map(([id, number, title, state, shootDate]) => ({
+      id: id as number,
+      number: number as number,
+      title: title as string,
+      state: state as EpisodeState,
+      shootDate: shootDate as string | null,
+    })),
+    labour: row.labour.map(([upgradeId, workedOn, hours]) => ({ upgradeId: upgradeId as number, workedOn: workedOn as string, hours: hours as number })),
+    parts: row.parts.map(([upgradeId, spentOn, cents]) => ({ upgradeId: upgradeId as number, spentOn: spentOn as string | null, cents: Number(cents) })),
+    expenses: row.expenses.map(([upgradeId, spentOn, cents]) => ({ upgradeId: upgradeId as number | null, spentOn: spentOn as string, cents: Number(cents) })),
+    removed: row.removed.map(([upgradeId, disposition, soldOn, expected, actual]) => ({
+      upgradeId: upgradeId as number | null,
+      disposition: disposition as Disposition,
+      soldOn: soldOn as string | null,
+      expectedCents: Number(expected),
+      actualCents: Number(actual),
+    })),
+  };
+}

@@ -1,0 +1,16 @@
+// Types for s3rver (the package ships none): only what the local fake uses.
+declare module 's3rver' {
+  interface S3rverOptions {
+    port?: number;
+    address?: string;
+    directory: string;
+    silent?: boolean;
+    resetOnClose?: boolean;
+    configureBuckets?: { name: string; configs?: (string | Buffer)[] }[];
+  }
+  export default class S3rver {
+    constructor(options: S3rverOptions);
+    run(): Promise<{ address: string; port: number }>;
+    close(): Promise<void>;
+  }
+}
