@@ -8,6 +8,8 @@ import { config } from './config';
 import { installAuth, sameOriginOnly } from './middleware/auth';
 import { errorHandler, notFoundHandler } from './middleware/errors';
 import { mountRoutes } from './routes';
+import { devMailRouter } from './routes/devMail';
+import { installMail } from './mail';
 
 let sessionPool: pg.Pool | null = null;
 
@@ -52,6 +54,9 @@ export function createApp(): Express {
   app.use('/api', sameOriginOnly);
   mountRoutes(app);
   app.use('/api', notFoundHandler);
+  installMail();
+  // The development inbox (demo mode only), outside /api and before the client's catch-all route.
+  app.use('/dev/mail', devMailRouter());
 
   const dist = path.resolve(c.CLIENT_DIST);
   if (c.SERVE_CLIENT && fs.existsSync(path.join(dist, 'index.html'))) {

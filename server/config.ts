@@ -46,6 +46,15 @@ const schema = z.object({
   LOCAL_MAIL_DIR: z.string().default('.data/mail'),
   MAIL_WORKER: bool(true),
   MAIL_POLL_MS: z.coerce.number().int().min(10).default(2000),
+  // The build overview keeps each build's computed figures until the database reports a change.
+  OVERVIEW_CACHE: bool(true),
+  MAIL_RETRY_BASE_MS: z.coerce.number().int().min(1).default(30_000),
+  MAIL_MAX_ATTEMPTS: z.coerce.number().int().min(1).default(8),
+  // Viewer requests: how long a confirmation link works, and the public write limits.
+  CONFIRM_LINK_HOURS: z.coerce.number().positive().default(48),
+  PUBLIC_RATE_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
+  PUBLIC_WRITE_RATE_LIMIT: z.coerce.number().int().min(1).default(30),
+  PUBLIC_EMAIL_RATE_LIMIT: z.coerce.number().int().min(1).default(5),
 });
 
 export type Config = ReturnType<typeof loadConfig>;

@@ -1,16 +1,21 @@
-// Starts the Bayslate server: migrates, seeds the demo (once), starts local fakes, listens.
+// Starts the Bayslate server: starts local fakes, migrates, seeds the demo (once), listens.
 import { config } from './config';
 import { createApp } from './app';
 import { migrate, seedDemo } from './db/migrate';
 import { sequelize } from './models';
 import { startLocalServices, stopLocalServices } from './localServices';
+import { installMail, startMailWorker, stopMailWorker } from './mail';
 
 async function main() {
   const c = config();
+  // Local fakes first: the demo seeders store media in the (fake) object storage.
+  installMail();
+  await startLocalServices();
   await migrate();
   if (c.BAYSLATE_DEMO) await seedDemo();
-  await startLocalServices();
   const app = createApp();
+  // Mail goes out from the queue, outside any request (a mail outage never fails a request).
+  if (c.MAIL_WORKER) startMailWorker();
   const server = app.listen(c.PORT, c.HOST, () => {
     const addr = server.address();
     const port = typeof addr === 'object' && addr ? addr.port : c.PORT;
@@ -18,6 +23,7 @@ async function main() {
   });
   const stop = async () => {
     server.close();
+    await stopMailWorker();
     await stopLocalServices();
     await sequelize.close();
     process.exit(0);

@@ -11,6 +11,10 @@ import { Expense } from './expense';
 import { Episode } from './episode';
 import { EpisodeChapter } from './episodeChapter';
 import { Activity } from './activity';
+import { ViewerRequest } from './viewerRequest';
+import { ViewerVote } from './viewerVote';
+import { MailOutbox } from './mailOutbox';
+import { Unsubscribe } from './unsubscribe';
 import { Media } from './media';
 
 Build.hasMany(Upgrade, { foreignKey: 'buildId', as: 'upgrades' });
@@ -41,5 +45,9 @@ export {
   Episode,
   EpisodeChapter,
   Activity,
+  ViewerRequest,
+  ViewerVote,
+  MailOutbox,
+  Unsubscribe,
   Media,
 };

@@ -4,6 +4,22 @@ import { Router, type Express } from 'express';
 import { authRouter } from './auth';
 import { usersRouter } from './users';
 import { healthRouter } from './health';
+import { mediaRouter } from './media';
+import { overviewRouter } from './overview';
+import { buildsRouter } from './builds';
+import { upgradesRouter, backlogCsvRouter } from './upgrades';
+import { partsRouter } from './parts';
+import { removedPartsRouter } from './removedParts';
+import { labourRouter } from './labour';
+import { expensesRouter } from './expenses';
+import { episodesRouter } from './episodes';
+import { planRouter } from './plan';
+import { shopFloorRouter } from './shopFloor';
+import { buildCalendarRouter, calendarFeedRouter } from './calendar';
+import { publishingRouter } from './publishing';
+import { linkHealthRouter, campaignRouter } from './linkHealth';
+import { viewerRequestsRouter } from './viewerRequests';
+import { publicRouter } from './public';
 
 interface Mount {
   prefix: string;
@@ -15,6 +31,26 @@ function mounts(): Mount[] {
     { prefix: '/api/health', router: healthRouter() },
     { prefix: '/api/auth', router: authRouter() },
     { prefix: '/api/users', router: usersRouter() },
+    { prefix: '/api/builds/:buildId/media', router: mediaRouter() },
+    { prefix: '/api/builds/:buildId/overview', router: overviewRouter() },
+    { prefix: '/api/builds', router: buildsRouter() },
+    { prefix: '/api/builds/:buildId/upgrades', router: upgradesRouter() },
+    { prefix: '/api/builds/:buildId', router: backlogCsvRouter() },
+    { prefix: '/api/builds/:buildId/parts', router: partsRouter() },
+    { prefix: '/api/builds/:buildId/removed-parts', router: removedPartsRouter() },
+    { prefix: '/api/builds/:buildId/labour', router: labourRouter() },
+    { prefix: '/api/builds/:buildId/expenses', router: expensesRouter() },
+    // Before the episodes router, so its own middleware never stands in front of these paths.
+    { prefix: '/api/builds/:buildId/episodes/:episodeId', router: publishingRouter() },
+    { prefix: '/api/builds/:buildId/episodes', router: episodesRouter() },
+    { prefix: '/api/builds/:buildId/plan', router: planRouter() },
+    { prefix: '/api/builds/:buildId/shop-floor', router: shopFloorRouter() },
+    { prefix: '/api/builds/:buildId/calendar', router: buildCalendarRouter() },
+    { prefix: '/api/calendar', router: calendarFeedRouter() },
+    { prefix: '/api/builds/:buildId/link-health', router: linkHealthRouter() },
+    { prefix: '/api/builds/:buildId/campaign', router: campaignRouter() },
+    { prefix: '/api/builds/:buildId/viewer-requests', router: viewerRequestsRouter() },
+    { prefix: '/api/public', router: publicRouter() },
   ];
 }
 

@@ -6,6 +6,8 @@ import { Op } from 'sequelize';
 import { sequelize, User } from '../models';
 import { AppError, badRequest, notFound } from '../errors';
 import { record, type Actor } from './activity';
+import { enqueueMail } from '../mail/outbox';
+import { invitationMail } from '../mail/templates';
 import type { CreateUserInput, UpdateUserInput } from '../../shared/schemas/auth';
 import type { Role } from '../../shared/domain';
 
@@ -26,6 +28,9 @@ export async function createUser(actor: Actor | null, input: CreateUserInput) {
       { transaction: t },
     );
     await record(t, { actor, buildId: null, entity: 'user', entityId: user.id, action: 'create', summary: `Added ${user.name} (${user.roles.join(', ')})`, after: user.toPublic() });
+    // The invitation names the sign-in page only; the first password never travels by mail.
+    const mail = invitationMail({ name: user.name, roles: user.roles, invitedBy: actor?.name ?? null });
+    await enqueueMail(t, { kind: 'invitation', to: user.email, subject: mail.subject, text: mail.text, dedupeKey: `invite:${user.id}` });
     return { user: user.toPublic(), temporaryPassword };
   });
 }

@@ -8,7 +8,7 @@ const base = (buildId: number) => `/api/builds/${buildId}/labour`;
 
 export const labourApi = {
   list: (buildId: number, q: { upgradeId?: number } = {}) => api.get<{ labour: LabourEntryRecord[] }>(base(buildId) + qs({ ...q })),
-  create: (buildId: number, body: LabourInput) => api.post<{ entry: LabourEntryRecord }>(base(buildId), body),
-  update: (buildId: number, id: number, body: LabourInput) => api.patch<{ entry: LabourEntryRecord }>(`${base(buildId)}/${id}`, body),
+  create: (buildId: number, body: LabourInput) => api.post<{ labourEntry: LabourEntryRecord }>(base(buildId), body),
+  update: (buildId: number, id: number, body: LabourInput) => api.patch<{ labourEntry: LabourEntryRecord }>(`${base(buildId)}/${id}`, body),
   remove: (buildId: number, id: number) => api.del<void>(`${base(buildId)}/${id}`),
 };

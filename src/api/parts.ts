@@ -30,3 +30,13 @@ export async function allParts(buildId: number): Promise<PartRow[]> {
   }
   return out;
 }
+
+/** Today as YYYY-MM-DD in the person's own time zone (the day the part came in at this shop). */
+export function today(): string {
+  const d = new Date();
+  return `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, '0')}-${String(d.getDate()).padStart(2, '0')}`;
+}
+
+/** Marks a part received today: the one part change an installer makes from the bay. */
+export const receivePart = (buildId: number, part: PartRow) =>
+  partsApi.update(buildId, part.id, { state: 'received', receivedOn: today(), ...(part.version !== undefined ? { version: part.version } : {}) });

@@ -30,7 +30,8 @@ export interface UpgradeDetail {
   parts: PartRecord[];
   removedParts: RemovedPartRecord[];
   labour: LabourEntryRecord[];
-  expenses: ExpenseRecord[];
+  /** Absent for roles that may not see money. */
+  expenses?: ExpenseRecord[];
 }
 
 export interface ActivityRow {

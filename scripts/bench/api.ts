@@ -1,0 +1,193 @@
+// API benchmark (DESIGN §8): GET /api/builds/:id/overview on a build of 300 upgrades, 3,000 parts and
+// 10,000 labour entries, against a bare route running `SELECT 1` on the same pool, in one run.
+// Run: npm run bench:api. It makes a fresh database, serves the app from a child process on a free
+// loopback port, loads it with autocannon (50 connections, BENCH_SECONDS each), and drops the database.
+import { fork, type ChildProcess } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
+import { fileURLToPath } from 'node:url';
+import type { AddressInfo } from 'node:net';
+import pg from 'pg';
+
+const SECONDS = Number(process.env.BENCH_SECONDS ?? 10);
+const CONNECTIONS = 50;
+const TARGET_P95_MS = 50;
+const TARGET_RATIO = 0.4;
+
+// ---------- the server side (child process) ----------
+async function serve() {
+  const express = (await import('express')).default;
+  const { createApp } = await import('../../server/app');
+  const { sequelize } = await import('../../server/models');
+  const outer = express();
+  // The bare route: no session, no helmet, one trivial query on the pool the overview uses.
+  outer.get('/bench/bare', async (_req, res) => {
+    await sequelize.query('SELECT 1');
+    res.json({ ok: true });
+  });
+  outer.use(createApp());
+  const server = outer.listen(0, '127.0.0.1', () => process.send!({ port: (server.address() as AddressInfo).port }));
+  process.on('disconnect', () => process.exit(0));
+}
+
+// ---------- the generated build ----------
+export async function generate(buildId: number, q: (sql: string) => Promise<unknown>) {
+  const b = String(buildId);
+  // Deterministic: every value is a function of the row number, so each run measures the same build.
+  await q(`INSERT INTO episodes (build_id, number, title, state, shoot_date, release_date)
+    SELECT ${b}, n, 'Episode ' || n,
+           CASE WHEN n <= 12 THEN 'live' WHEN n <= 14 THEN 'in_edit' WHEN n <= 20 THEN 'scheduled' ELSE 'draft' END,
+           DATE '2025-01-10' + (n - 1) * 7, DATE '2025-01-17' + (n - 1) * 7
+      FROM generate_series(1, 40) n`);
+  await q(`INSERT INTO upgrades (build_id, title, area, estimated_hours, value_added_cents, priority, episode_id,
+             episode_position, install_state, install_segment, demo_segment, installed_on)
+    SELECT ${b}, 'Generated upgrade ' || i,
+           (ARRAY['front','sides','rear','cabin','electrical','wheels_chassis'])[1 + i % 6],
+           (i % 9) * 0.75, 5000 + (i * 7919) % 250000, 1 + i % 5, e.id, i / 40,
+           CASE WHEN e.number <= 14 THEN 'installed' WHEN e.number <= 16 THEN 'in_bay' ELSE 'queued' END,
+           CASE WHEN e.number <= 14 THEN 'shot' ELSE 'not_shot' END,
+           CASE WHEN e.number <= 13 THEN 'shot' ELSE 'not_shot' END,
+           CASE WHEN e.number <= 14 THEN e.shoot_date END
+      FROM generate_series(0, 299) i
+      JOIN episodes e ON e.build_id = ${b} AND e.number = 1 + i % 40`);
+  const ups = `(SELECT u.id, e.shoot_date, row_number() OVER (ORDER BY u.id) - 1 AS k
+                  FROM upgrades u JOIN episodes e ON e.id = u.episode_id WHERE u.build_id = ${b})`;
+  await q(`INSERT INTO parts (build_id, upgrade_id, part_number, description, quantity, unit_cost_cents, retail_price_cents,
+             supplier, condition, expected_arrival, ordered_on, received_on, state)
+    SELECT ${b}, u.id, 'GX-' || g, 'Generated part ' || g, 1 + g % 3, 500 + (g * 7919) % 60000, 900 + (g * 7919) % 90000,
+           'Supplier ' || (g % 7), CASE WHEN g % 5 = 0 THEN 'take_off' ELSE 'new' END, u.shoot_date - 5,
+           CASE WHEN g % 6 <> 0 THEN u.shoot_date - 20 END, CASE WHEN g % 3 = 0 THEN u.shoot_date - 6 END,
+           (ARRAY['to_order','ordered','backordered','received','fitted','returned'])[1 + g % 6]
+      FROM generate_series(0, 2999) g JOIN ${ups} u ON u.k = g % 300`);
+  await q(`INSERT INTO labour_entries (build_id, upgrade_id, person_name, worked_on, hours, kind)
+    SELECT ${b}, u.id, 'Bay tech ' || (g % 3), u.shoot_date - (g % 12), 0.25 + (g % 16) * 0.25,
+           (ARRAY['install','filming','prep'])[1 + g % 3]
+      FROM generate_series(0, 9999) g JOIN ${ups} u ON u.k = g % 300`);
+  await q(`INSERT INTO expenses (build_id, upgrade_id, description, amount_cents, spent_on, category)
+    SELECT ${b}, CASE WHEN g % 4 = 0 THEN NULL ELSE u.id END, 'Generated expense ' || g, 300 + (g * 131) % 20000, u.shoot_date - 3, 'consumables'
+      FROM generate_series(0, 599) g JOIN ${ups} u ON u.k = g % 300`);
+  await q(`INSERT INTO removed_parts (build_id, upgrade_id, description, disposition, expected_sale_cents, actual_sale_cents, sold_on)
+    SELECT ${b}, u.id, 'Stock part ' || g, (ARRAY['keep','for_sale','sold','scrapped'])[1 + g % 4],
+           2000 + (g * 97) % 30000, CASE WHEN g % 4 = 2 THEN 1500 + (g * 97) % 28000 END, CASE WHEN g % 4 = 2 THEN u.shoot_date + 30 END
+      FROM generate_series(0, 299) g JOIN ${ups} u ON u.k = g`);
+}
+
+// ---------- the load ----------
+interface Figures {
+  p50: number;
+  p95: number;
+  p99: number;
+  rps: number;
+  requests: number;
+  non2xx: number;
+  errors: number;
+}
+
+async function load(url: string, headers: Record<string, string>): Promise<Figures> {
+  const autocannon = (await import('autocannon')).default;
+  const latencies: number[] = [];
+  const inst = autocannon({ url, connections: CONNECTIONS, duration: SECONDS, headers, timeout: 10 });
+  inst.on('response', (_c: unknown, _status: number, _bytes: number, ms: number) => latencies.push(ms));
+  const r = await inst;
+  latencies.sort((a, b) => a - b);
+  const pct = (p: number) => (latencies.length ? latencies[Math.min(latencies.length - 1, Math.ceil((p / 100) * latencies.length) - 1)] : NaN);
+  return { p50: pct(50), p95: pct(95), p99: pct(99), rps: r.requests.total / SECONDS, requests: r.requests.total, non2xx: r.non2xx, errors: r.errors + r.timeouts };
+}
+
+async function warm(url: string, headers: Record<string, string>) {
+  const autocannon = (await import('autocannon')).default;
+  await autocannon({ url, connections: 10, duration: 2, headers });
+}
+
+async function main() {
+  const baseUrl = process.env.DATABASE_URL;
+  if (!baseUrl) throw new Error('DATABASE_URL is not set: run through `npm run bench:api`');
+  const dbName = `bench_${randomBytes(4).toString('hex')}`;
+  const admin = new URL(baseUrl);
+  admin.pathname = '/postgres';
+  const adminClient = new pg.Client({ connectionString: admin.toString() });
+  await adminClient.connect();
+  await adminClient.query(`CREATE DATABASE ${dbName}`);
+  const benchUrl = new URL(baseUrl);
+  benchUrl.pathname = `/${dbName}`;
+  let child: ChildProcess | null = null;
+  try {
+    // Everything below reads its settings from this environment (server/config.ts).
+    Object.assign(process.env, { DATABASE_URL: benchUrl.toString(), NODE_ENV: 'production', BAYSLATE_DEMO: '0', SERVE_CLIENT: '0', MAIL_WORKER: '0', LOG_REQUESTS: '0', DATABASE_POOL_MAX: process.env.DATABASE_POOL_MAX ?? '10' });
+    const { migrate } = await import('../../server/db/migrate');
+    const { sequelize, Build } = await import('../../server/models');
+    await migrate();
+    // Only the demo people (to sign in with); the benchmark's build is generated below.
+    const { up: seedUsers } = await import('../../server/db/seeders/0001-demo-users');
+    await seedUsers({ context: { sequelize, queryInterface: sequelize.getQueryInterface() } });
+    const build = await Build.create({ slug: 'bench-build', name: 'Benchmark build', year: 2019, make: 'Halvorsen', model: 'Tern', vin: null, mileage: null, budgetCents: 250_000_00, labourRateCents: 9_500, campaign: null, summary: null, startDate: '2025-01-02' });
+    const t0 = performance.now();
+    await generate(build.id, (sql) => sequelize.query(sql));
+    await sequelize.query('ANALYZE');
+    const [[n]] = (await sequelize.query(
+      `SELECT (SELECT count(*) FROM upgrades WHERE build_id = ${build.id})::int AS upgrades, (SELECT count(*) FROM parts WHERE build_id = ${build.id})::int AS parts,
+              (SELECT count(*) FROM labour_entries WHERE build_id = ${build.id})::int AS labour`,
+    )) as [Array<{ upgrades: number; parts: number; labour: number }>, unknown];
+    console.log(`generated ${n.upgrades} upgrades, ${n.parts} parts, ${n.labour} labour entries in ${Math.round(performance.now() - t0)} ms (database ${dbName})`);
+    await sequelize.close();
+
+    child = fork(fileURLToPath(import.meta.url), ['--serve'], { env: process.env, execArgv: ['--import', 'tsx'], stdio: ['ignore', 'inherit', 'inherit', 'ipc'] });
+    const port = await new Promise<number>((resolve, reject) => {
+      child!.once('message', (m: { port: number }) => resolve(m.port));
+      child!.once('exit', (code) => reject(new Error(`the server exited with ${code}`)));
+    });
+    const base = `http://127.0.0.1:${port}`;
+    const login = await fetch(`${base}/api/auth/login`, {
+      method: 'POST',
+      headers: { 'Content-Type': 'application/json', 'X-Requested-With': 'Bayslate' },
+      body: JSON.stringify({ email: 'owner@cedar-ridge.test', password: 'bayslate-demo' }),
+    });
+    if (!login.ok) throw new Error(`sign-in answered ${login.status}`);
+    const cookie = login.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+    const headers = { cookie, 'x-requested-with': 'Bayslate' };
+    const overviewUrl = `${base}/api/builds/${build.id}/overview`;
+    const check = await fetch(overviewUrl, { headers });
+    if (!check.ok) throw new Error(`overview answered ${check.status}`);
+    const body = await check.text();
+    console.log(`overview response: ${(body.length / 1024).toFixed(1)} KiB`);
+
+    await warm(overviewUrl, headers);
+    await warm(`${base}/bench/bare`, {});
+    const overview = await load(overviewUrl, headers);
+    const bare = await load(`${base}/bench/bare`, {});
+    // For reading the figures: what a signed-in request costs before any feature runs.
+    const me = process.env.BENCH_ME === '0' ? null : await load(`${base}/api/auth/me`, headers);
+    const ratio = overview.rps / bare.rps;
+    const row = (name: string, f: Figures) =>
+      `${name.padEnd(22)} ${f.p50.toFixed(1).padStart(7)} ${f.p95.toFixed(1).padStart(7)} ${f.p99.toFixed(1).padStart(7)} ${f.rps.toFixed(0).padStart(8)} ${String(f.non2xx + f.errors).padStart(7)}`;
+    console.log(`\n${CONNECTIONS} connections, ${SECONDS} s each, loopback`);
+    console.log(`${'route'.padEnd(22)} ${'p50 ms'.padStart(7)} ${'p95 ms'.padStart(7)} ${'p99 ms'.padStart(7)} ${'req/s'.padStart(8)} ${'failed'.padStart(7)}`);
+    console.log(row('GET overview', overview));
+    console.log(row('bare SELECT 1', bare));
+    if (me) console.log(row('signed-in /api/auth/me', me));
+    console.log(`throughput ratio: ${(ratio * 100).toFixed(1)} % (target ≥ ${TARGET_RATIO * 100} %)`);
+    console.log(`overview p95: ${overview.p95.toFixed(1)} ms (target < ${TARGET_P95_MS} ms)`);
+    const met = overview.p95 < TARGET_P95_MS && ratio >= TARGET_RATIO && overview.non2xx + overview.errors === 0;
+    console.log(met ? 'targets met' : 'targets NOT met');
+    process.exitCode = met ? 0 : 1;
+  } finally {
+    if (child && child.exitCode === null) {
+      const exited = new Promise((r) => child!.once('exit', r));
+      child.kill('SIGTERM');
+      await exited;
+    }
+    await adminClient.query(`DROP DATABASE IF EXISTS ${dbName} WITH (FORCE)`);
+    await adminClient.end();
+  }
+}
+
+if (process.argv.includes('--serve')) {
+  serve().catch((err) => {
+    console.error(err);
+    process.exit(1);
+  });
+} else if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {
+  main().catch((err) => {
+    console.error('[bench:api]', err?.message ?? err);
+    process.exitCode = 1;
+  });
+}

@@ -1,0 +1,46 @@
+// The words of Bayslate's mails, as plain text (no HTML: nothing a viewer typed can become markup).
+import { config } from '../config';
+
+const sign = '\n\n— Bayslate, for the build crew';
+
+export function confirmVoteMail(p: { buildName: string; requestTitle: string; link: string; hours: number; isNewRequest: boolean }) {
+  return {
+    subject: `Confirm your vote: ${p.requestTitle}`.slice(0, 300),
+    text:
+      `Someone (hopefully you) ${p.isNewRequest ? 'asked for' : 'voted for'} this upgrade on the ${p.buildName} build page:\n\n` +
+      `  ${p.requestTitle}\n\n` +
+      `To count your vote, open this link within ${p.hours} hours:\n\n${p.link}\n\n` +
+      `If it was not you, ignore this mail: nothing is counted and your address is not kept.` +
+      sign,
+  };
+}
+
+export function upgradeLiveMail(p: { buildName: string; episodeTitle: string; episodeNumber: number; upgradeTitles: string[]; videoUrl: string | null; pageUrl: string; unsubscribeLink: string }) {
+  const watch = p.videoUrl ? `Watch it here:\n${p.videoUrl}\n\n` : '';
+  return {
+    subject: `It is live: ${p.upgradeTitles.join(', ')}`.slice(0, 300),
+    text:
+      `You voted for an upgrade on the ${p.buildName} build, and the episode that shows it is now live.\n\n` +
+      `Episode ${p.episodeNumber}: ${p.episodeTitle}\n` +
+      p.upgradeTitles.map((t) => `  - ${t}\n`).join('') +
+      `\n${watch}` +
+      `See what else is planned, and vote for what comes next:\n${p.pageUrl}\n\n` +
+      `No more of these mails: ${p.unsubscribeLink}` +
+      sign,
+    headers: { 'List-Unsubscribe': `<${p.unsubscribeLink}>` },
+  };
+}
+
+export function invitationMail(p: { name: string; roles: string[]; invitedBy: string | null }) {
+  const url = `${config().publicUrl}/sign-in`;
+  return {
+    subject: 'You have a Bayslate account',
+    text:
+      `Hello ${p.name},\n\n` +
+      `${p.invitedBy ?? 'The shop owner'} added you to Bayslate as ${p.roles.join(', ')}.\n\n` +
+      `Sign in here with this e-mail address:\n${url}\n\n` +
+      `Your first password is given to you in person by ${p.invitedBy ?? 'the owner'}, never by mail. ` +
+      `Change it under "My account" after you sign in.` +
+      sign,
+  };
+}

@@ -1,0 +1,111 @@
+// Sends queued mail outside any request. Each mail is taken with FOR UPDATE SKIP LOCKED and stays
+// locked while it is handed to SMTP, so two workers never send the same mail; it is marked sent in
+// the same transaction. A failure schedules a retry with exponential backoff; after
+// MAIL_MAX_ATTEMPTS the mail is marked failed. Each mail carries a stable Message-ID built from
+// its queue id, so a crash between SMTP accepting it and the commit is recognisable downstream.
+import type { Transporter } from 'nodemailer';
+import { QueryTypes } from 'sequelize';
+import { sequelize } from '../models';
+import { config } from '../config';
+import { mailDomain, mailTransport } from './transport';
+
+interface Row {
+  id: string;
+  to_address: string;
+  subject: string;
+  text_body: string;
+  headers: Record<string, string>;
+  attempts: number;
+  scrub_after_send: boolean;
+}
+
+const MAX_BACKOFF_MS = 6 * 3_600_000;
+
+/** Delay before the next attempt after `attempts` failures: base × 2^(attempts−1), capped at 6 h. */
+export function backoffMs(attempts: number, base = config().MAIL_RETRY_BASE_MS) {
+  return Math.min(base * 2 ** Math.max(0, attempts - 1), MAX_BACKOFF_MS);
+}
+
+type Outcome = 'none' | 'sent' | 'retry' | 'failed';
+
+async function sendOne(transport: Transporter): Promise<Outcome> {
+  return sequelize.transaction(async (t) => {
+    const rows = await sequelize.query<Row>(
+      `SELECT id, to_address, subject, text_body, headers, attempts, scrub_after_send FROM mail_outbox
+       WHERE state = 'queued' AND next_attempt_at <= now()
+       ORDER BY next_attempt_at, id LIMIT 1 FOR UPDATE SKIP LOCKED`,
+      { type: QueryTypes.SELECT, transaction: t },
+    );
+    const row = rows[0];
+    if (!row) return 'none';
+    try {
+      await transport.sendMail({
+        from: config().MAIL_FROM,
+        to: row.to_address,
+        subject: row.subject,
+        text: row.text_body,
+        headers: row.headers,
+        messageId: `<outbox-${row.id}@${mailDomain()}>`,
+      });
+    } catch (err) {
+      const attempts = row.attempts + 1;
+      const failed = attempts >= config().MAIL_MAX_ATTEMPTS;
+      await sequelize.query(
+        `UPDATE mail_outbox SET attempts = :attempts, last_error = :error,
+           state = CASE WHEN :failed THEN 'failed' ELSE 'queued' END,
+           next_attempt_at = now() + (:delay || ' milliseconds')::interval
+         WHERE id = :id`,
+        { replacements: { id: row.id, attempts, error: String((err as Error)?.message ?? err).slice(0, 500), failed, delay: String(backoffMs(attempts)) }, transaction: t },
+      );
+      return failed ? 'failed' : 'retry';
+    }
+    await sequelize.query(
+      `UPDATE mail_outbox SET state = 'sent', sent_at = now(), attempts = attempts + 1, last_error = NULL,
+         to_address = CASE WHEN scrub_after_send THEN NULL ELSE to_address END,
+         text_body = CASE WHEN scrub_after_send THEN '(removed after sending)' ELSE text_body END
+       WHERE id = :id`,
+      { replacements: { id: row.id }, transaction: t },
+    );
+    return 'sent';
+  });
+}
+
+/** Sends every mail that is due (up to `limit`); returns how many were sent and how many failed. */
+export async function processDueMail(opts: { transport?: Transporter | null; limit?: number } = {}) {
+  const transport = opts.transport ?? mailTransport();
+  const result = { sent: 0, retry: 0, failed: 0 };
+  if (!transport) return result;
+  for (let i = 0; i < (opts.limit ?? 50); i++) {
+    const outcome = await sendOne(transport);
+    if (outcome === 'none') break;
+    result[outcome] += 1;
+  }
+  return result;
+}
+
+let timer: NodeJS.Timeout | null = null;
+let running: Promise<unknown> | null = null;
+let stopped = true;
+
+/** Polls the queue every MAIL_POLL_MS until stopMailWorker(). */
+export function startMailWorker() {
+  if (!stopped) return;
+  stopped = false;
+  const tick = () => {
+    if (stopped) return;
+    running = processDueMail()
+      .catch((err) => console.error('[mail] worker pass failed:', err?.message ?? err))
+      .finally(() => {
+        running = null;
+        if (!stopped) timer = setTimeout(tick, config().MAIL_POLL_MS);
+      });
+  };
+  tick();
+}
+
+export async function stopMailWorker() {
+  stopped = true;
+  if (timer) clearTimeout(timer);
+  timer = null;
+  await running;
+}

@@ -1,0 +1,53 @@
+// Media of one build: upload (multipart, streamed to disk then to object storage), list with
+// presigned URLs, edit caption/stage, delete, and download under the original name.
+import { Router } from 'express';
+import { z } from 'zod';
+import { loadBuild, buildOf } from '../middleware/build';
+import { requireRole, ANY_ROLE } from '../middleware/roles';
+import { validate, validQuery } from '../middleware/validate';
+import { id } from '../../shared/schemas/common';
+import { mediaListQuery, mediaPatch, type MediaListQuery } from '../../shared/schemas/media';
+import { receiveOneFile, type ReceivedFile } from '../services/mediaFiles';
+import * as media from '../services/media';
+import { registerStorage } from '../storage';
+import { badRequest } from '../errors';
+
+const params = z.object({ buildId: id, mediaId: id });
+
+// At import, before the server starts its local services: the fake S3 (if needed) and the health check.
+registerStorage();
+
+export function mediaRouter() {
+  const router = Router({ mergeParams: true });
+  router.use(loadBuild);
+
+  router.get('/', requireRole(...ANY_ROLE), validate(mediaListQuery, 'query'), async (req, res) => {
+    res.json(await media.listMedia(buildOf(req), req.user!, validQuery<MediaListQuery>(req)));
+  });
+
+  router.post(
+    '/',
+    requireRole('producer', 'installer'),
+    (req, _res, next) => (req.is('multipart/form-data') ? next() : next(badRequest('Send the file as multipart/form-data in the field "file".', [{ path: 'file', message: 'is required' }]))),
+    receiveOneFile(),
+    async (req, res) => {
+      const record = await media.storeUpload(buildOf(req), req.user!, req.file as ReceivedFile | undefined, req.body);
+      res.status(201).json({ media: record });
+    },
+  );
+
+  router.patch('/:mediaId', requireRole('producer', 'installer'), validate(params, 'params'), validate(mediaPatch), async (req, res) => {
+    res.json({ media: await media.updateMedia(buildOf(req), req.user!, Number(req.params.mediaId), req.body) });
+  });
+
+  router.delete('/:mediaId', requireRole('producer', 'installer'), validate(params, 'params'), async (req, res) => {
+    await media.deleteMedia(buildOf(req), req.user!, Number(req.params.mediaId));
+    res.status(204).end();
+  });
+
+  router.get('/:mediaId/download', requireRole(...ANY_ROLE), validate(params, 'params'), async (req, res) => {
+    res.set('Cache-Control', 'no-store');
+    res.redirect(302, await media.downloadUrl(buildOf(req), req.user!, Number(req.params.mediaId)));
+  });
+  return router;
+}

@@ -1,0 +1,32 @@
+// The build overview for the owner and the producer: every figure and series the screen draws, in one call.
+import { Router, type Request, type Response } from 'express';
+import { requireRole } from '../middleware/roles';
+import { buildOf, loadBuild } from '../middleware/build';
+import { cachedOverviewBody, freshOverviewBody, overviewStamp } from '../services/overview';
+
+function send(req: Request, res: Response, entry: { body: Buffer; etag: string }) {
+  res.set('ETag', entry.etag);
+  res.set('Cache-Control', 'private, no-cache');
+  if (req.fresh) return res.status(304).end();
+  res.type('application/json').send(entry.body);
+}
+
+export function overviewRouter() {
+  const router = Router({ mergeParams: true });
+  router.get(
+    '/',
+    requireRole('producer'),
+    // A cached overview exists only for a build that exists: deleting the build drops it.
+    (req, res, next) => {
+      const hit = cachedOverviewBody(Number(req.params.buildId));
+      if (hit) return send(req, res, hit);
+      res.locals.overviewStamp = overviewStamp(Number(req.params.buildId));
+      next();
+    },
+    loadBuild,
+    async (req, res) => {
+      send(req, res, await freshOverviewBody(buildOf(req), res.locals.overviewStamp as string));
+    },
+  );
+  return router;
+}

@@ -1,0 +1,31 @@
+// Chapters, show notes and publishing of one episode (mounted under /api/builds/:buildId/episodes/:episodeId).
+import { Router } from 'express';
+import { z } from 'zod';
+import { loadBuild, buildOf } from '../middleware/build';
+import { requireRole } from '../middleware/roles';
+import { validate } from '../middleware/validate';
+import { id } from '../../shared/schemas/common';
+import { publishSchema, putChaptersSchema } from '../../shared/schemas/publishing';
+import * as publishing from '../services/publishing';
+
+const params = z.object({ buildId: id, episodeId: id });
+const PUBLISHERS = ['marketing', 'producer'] as const;
+
+export function publishingRouter() {
+  const router = Router({ mergeParams: true });
+  const episodeId = (req: { params: unknown }) => Number((req.params as Record<string, string>).episodeId);
+
+  router.get('/chapters', requireRole(...PUBLISHERS), validate(params, 'params'), loadBuild, async (req, res) => {
+    res.json(await publishing.getChapters(buildOf(req).id, episodeId(req)));
+  });
+  router.put('/chapters', requireRole(...PUBLISHERS), validate(params, 'params'), loadBuild, validate(putChaptersSchema), async (req, res) => {
+    res.json(await publishing.putChapters(req.user!, buildOf(req).id, episodeId(req), req.body));
+  });
+  router.get('/show-notes', requireRole(...PUBLISHERS), validate(params, 'params'), loadBuild, async (req, res) => {
+    res.json(await publishing.showNotes(buildOf(req), episodeId(req)));
+  });
+  router.post('/publish', requireRole(...PUBLISHERS), validate(params, 'params'), loadBuild, validate(publishSchema), async (req, res) => {
+    res.json({ episode: await publishing.publish(req.user!, buildOf(req).id, episodeId(req), req.body) });
+  });
+  return router;
+}

@@ -1,0 +1,92 @@
+// The per-build shoot and release calendar (RFC 5545) at a secret URL, and rotating that secret.
+import { timingSafeEqual } from 'node:crypto';
+import ical, { ICalCalendarMethod } from 'ical-generator';
+import { sequelize, Build, Episode } from '../models';
+import { newCalendarToken } from '../models/build';
+import { config } from '../config';
+import { notFound } from '../errors';
+import { record, type Actor } from './activity';
+import { EPISODE_STATE_LABELS, type EpisodeState } from '../../shared/domain';
+
+const TOKEN_SHAPE = /^[0-9a-f]{32,128}$/;
+
+export const calendarUrl = (token: string) => `${config().publicUrl}/api/calendar/${token}.ics`;
+
+/**
+ * Finds the build whose token matches, comparing every candidate in constant time so the answer's
+ * timing says nothing about how much of a guess was right. Builds are few (one per demo vehicle).
+ */
+export async function buildForToken(token: string): Promise<Build> {
+  if (!TOKEN_SHAPE.test(token)) throw notFound('Calendar');
+  const given = Buffer.from(token);
+  const builds = await Build.findAll({ attributes: ['id', 'calendarToken'] });
+  let match: number | null = null;
+  for (const b of builds) {
+    const mine = Buffer.from(b.calendarToken);
+    if (mine.length === given.length && timingSafeEqual(mine, given)) match = b.id;
+  }
+  if (match === null) throw notFound('Calendar');
+  return (await Build.findByPk(match))!;
+}
+
+/** Day after an ISO date: the exclusive end of an all-day event. */
+function nextDay(iso: string) {
+  const d = new Date(`${iso}T00:00:00Z`);
+  d.setUTCDate(d.getUTCDate() + 1);
+  return d;
+}
+
+export async function calendarFeed(token: string): Promise<string> {
+  const build = await buildForToken(token);
+  const episodes = await Episode.findAll({ where: { buildId: build.id }, order: [['number', 'ASC']] });
+  const cal = ical({
+    name: `${build.name}: shoots and releases`,
+    prodId: { company: 'Bayslate', product: 'shoot-calendar', language: 'EN' },
+    method: ICalCalendarMethod.PUBLISH,
+    ttl: 60 * 60,
+  });
+  for (const ep of episodes) {
+    // UIDs name the episode and the kind of day, never the date, so a moved shoot updates the
+    // event a calendar app already has instead of adding a second one.
+    const common = { stamp: ep.updatedAt, lastModified: ep.updatedAt, sequence: ep.version, allDay: true };
+    const state = EPISODE_STATE_LABELS[ep.state as EpisodeState];
+    if (ep.shootDate) {
+      cal.createEvent({
+        ...common,
+        id: `episode-${ep.id}-shoot@bayslate`,
+        start: new Date(`${ep.shootDate}T00:00:00Z`),
+        end: nextDay(ep.shootDate),
+        summary: `Shoot: episode ${ep.number}, ${ep.title}`,
+        description: `${build.name} · episode ${ep.number} (${state}) is filmed in the bay.`,
+      });
+    }
+    if (ep.releaseDate) {
+      cal.createEvent({
+        ...common,
+        id: `episode-${ep.id}-release@bayslate`,
+        start: new Date(`${ep.releaseDate}T00:00:00Z`),
+        end: nextDay(ep.releaseDate),
+        summary: `Release: episode ${ep.number}, ${ep.title}`,
+        description: `${build.name} · episode ${ep.number} (${state}) goes out.`,
+        url: ep.videoUrl ?? undefined,
+      });
+    }
+  }
+  return cal.toString();
+}
+
+export async function calendarInfo(build: Build) {
+  return { url: calendarUrl(build.calendarToken) };
+}
+
+/** A new secret: the old URL stops working at once. */
+export async function rotateCalendar(actor: Actor, build: Build) {
+  return sequelize.transaction(async (t) => {
+    const token = newCalendarToken();
+    // A plain UPDATE: the token is not a field of the build form, so its version stays put.
+    await sequelize.query('UPDATE builds SET calendar_token = :token WHERE id = :id', { replacements: { token, id: build.id }, transaction: t });
+    // The secret itself never goes into the activity record.
+    await record(t, { actor, buildId: build.id, entity: 'build', entityId: build.id, action: 'calendar_rotate', summary: 'Replaced the calendar feed address; the old one no longer works', changes: {} });
+    return { url: calendarUrl(token) };
+  });
+}

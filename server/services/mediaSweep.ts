@@ -1,0 +1,43 @@
+// Leftover objects: keys in the bucket that no media row names (an upload whose row was never
+// written, a deleted build's files, a removal that failed while the store was down).
+import { Op } from 'sequelize';
+import { Media } from '../models';
+import { listKeys, removeObjects } from '../storage';
+
+export interface SweepResult {
+  scanned: number;
+  orphans: { key: string; size: number }[];
+  removed: number;
+}
+
+/**
+ * Lists (and with `remove`, deletes) objects under builds/ that no row references. Objects newer
+ * than `graceMs` are left alone: an upload in progress has its object before its row.
+ */
+export async function sweepOrphans(opts: { remove?: boolean; graceMs?: number } = {}): Promise<SweepResult> {
+  const grace = opts.graceMs ?? 3600_000;
+  const cutoff = Date.now() - grace;
+  const orphans: { key: string; size: number }[] = [];
+  let scanned = 0;
+  let batch: { key: string; size: number }[] = [];
+  const check = async () => {
+    if (!batch.length) return;
+    const keys = batch.map((b) => b.key);
+    const rows = await Media.findAll({
+      attributes: ['objectKey', 'thumbKey'],
+      where: { [Op.or]: [{ objectKey: { [Op.in]: keys } }, { thumbKey: { [Op.in]: keys } }] },
+    });
+    const known = new Set(rows.flatMap((r) => [r.objectKey, r.thumbKey]));
+    orphans.push(...batch.filter((b) => !known.has(b.key)));
+    batch = [];
+  };
+  for await (const o of listKeys('builds/')) {
+    scanned += 1;
+    if (o.lastModified && o.lastModified.getTime() > cutoff) continue;
+    batch.push({ key: o.key, size: o.size });
+    if (batch.length >= 500) await check();
+  }
+  await check();
+  if (opts.remove) await removeObjects(orphans.map((o) => o.key));
+  return { scanned, orphans, removed: opts.remove ? orphans.length : 0 };
+}

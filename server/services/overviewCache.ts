@@ -1,0 +1,104 @@
+// Keeps each build's computed overview (as the JSON bytes sent) until PostgreSQL reports that the
+// build changed: triggers send NOTIFY build_changed '<id>' on commit (migration 0007). The cache
+// only serves while the listening connection is up; when it drops, everything is forgotten and
+// requests compute afresh until it is back.
+import pg from 'pg';
+import { createHash } from 'node:crypto';
+import { config } from '../config';
+
+interface Entry {
+  day: string;
+  body: Buffer;
+  etag: string;
+}
+
+const entries = new Map<number, Entry>();
+/** Bumped by every notice for a build, so a figure computed before a change is never stored after it. */
+const generations = new Map<number, number>();
+let allGeneration = 0;
+let client: pg.Client | null = null;
+let listening = false;
+let connecting: Promise<void> | null = null;
+let retryTimer: NodeJS.Timeout | null = null;
+
+function forgetAll() {
+  entries.clear();
+  allGeneration += 1;
+}
+
+function onNotice(msg: pg.Notification) {
+  if (msg.channel !== 'build_changed') return;
+  if (msg.payload === '*' || !msg.payload) return forgetAll();
+  const id = Number(msg.payload);
+  entries.delete(id);
+  generations.set(id, (generations.get(id) ?? 0) + 1);
+}
+
+function connect(): Promise<void> {
+  if (!config().OVERVIEW_CACHE || listening || connecting) return connecting ?? Promise.resolve();
+  const c = new pg.Client({ connectionString: config().DATABASE_URL });
+  const lost = () => {
+    if (client !== c) return;
+    listening = false;
+    client = null;
+    forgetAll();
+    c.end().catch(() => undefined);
+    retryTimer ??= setTimeout(() => {
+      retryTimer = null;
+      void connect();
+    }, 2000);
+    retryTimer.unref();
+  };
+  c.on('notification', onNotice);
+  c.on('error', lost);
+  c.on('end', lost);
+  client = c;
+  connecting = c
+    .connect()
+    .then(() => c.query('LISTEN build_changed'))
+    .then(() => {
+      // The listening connection must not keep a finished process (a test run, a script) alive.
+      (c as unknown as { connection?: { stream?: { unref?: () => void } } }).connection?.stream?.unref?.();
+      forgetAll();
+      listening = true;
+    })
+    .catch(lost)
+    .finally(() => {
+      connecting = null;
+    });
+  return connecting;
+}
+
+/** A stamp to take before reading the database; `store` refuses figures that a change has overtaken. */
+export function stamp(buildId: number): string {
+  void connect();
+  return `${listening ? 1 : 0}:${allGeneration}:${generations.get(buildId) ?? 0}`;
+}
+
+export function cached(buildId: number, day: string): Entry | null {
+  if (!listening) {
+    void connect();
+    return null;
+  }
+  const e = entries.get(buildId);
+  return e && e.day === day ? e : null;
+}
+
+/** Serialises the figures once; keeps them when no change notice came in since `before`. */
+export function store(buildId: number, day: string, before: string, value: unknown): Entry {
+  const body = Buffer.from(JSON.stringify(value));
+  const entry = { day, body, etag: `W/"${createHash('sha1').update(body).digest('base64url')}"` };
+  if (listening && before.startsWith('1:') && before === stamp(buildId)) entries.set(buildId, entry);
+  return entry;
+}
+
+/** Closes the listening connection (tests, shutdown). */
+export async function stopOverviewCache() {
+  const c = client;
+  client = null;
+  listening = false;
+  forgetAll();
+  if (retryTimer) clearTimeout(retryTimer);
+  retryTimer = null;
+  if (c) await c.end().catch(() => undefined);
+}

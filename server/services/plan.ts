@@ -1,0 +1,282 @@
+// The episode plan of a build: check it, propose one with the pure planner, and apply a
+// hand-made order or an accepted proposal in one transaction.
+import { QueryTypes } from 'sequelize';
+import { sequelize, Episode, type Build } from '../models';
+import { AppError, badRequest, type FieldError } from '../errors';
+import { record, type Actor } from './activity';
+import { LOCKED_STATES, listEpisodes, renumber } from './episodes';
+import { capacityOf, currentPlan, loadPlanData, plannerInput, today, type Capacity, type PlanData } from './planData';
+import { minimumShopDays, proposePlan, validatePlan, type PlannerInput, type PlanViolation } from '../../shared/planner/index';
+import { findCycle } from '../../shared/planner/criticalPath';
+import { AREA_LABELS, type EpisodeRecord } from '../../shared/domain';
+import type { PlanInputBody } from '../../shared/schemas/episode';
+
+/** Five shop days a week (common practice), so a shop day is a fifth of the weekly hours. */
+export const SHOP_DAYS_PER_WEEK = 5;
+
+function addDays(iso: string, days: number) {
+  const d = new Date(`${iso}T00:00:00Z`);
+  d.setUTCDate(d.getUTCDate() + days);
+  return d.toISOString().slice(0, 10);
+}
+
+function cycleTitles(data: PlanData, ids: number[]) {
+  const title = new Map(data.upgrades.map((u) => [u.id, u.title]));
+  return ids.map((id) => title.get(id) ?? `#${id}`);
+}
+
+/** A prerequisite cycle makes every plan impossible: 422 naming the upgrades in cycle order. */
+function refuseCycle(data: PlanData) {
+  const edges: [number, number][] = [];
+  for (const u of data.upgrades) for (const p of u.prerequisiteIds) edges.push([p, u.id]);
+  const cycle = findCycle(data.upgrades.map((u) => u.id), edges);
+  if (!cycle) return;
+  const titles = cycleTitles(data, cycle);
+  throw new AppError(422, 'cycle', `Prerequisites form a cycle: ${[...titles, titles[0]].join(' → ')}. Remove one of these prerequisites first.`, undefined, { cycle: titles, cycleIds: cycle });
+}
+
+/** Shortest possible remaining work (critical path over hours left) and the earliest finish it allows. */
+export function criticalSummary(data: PlanData, input: PlannerInput) {
+  const hoursPerDay = input.shopHoursPerWeek / SHOP_DAYS_PER_WEEK;
+  const r = minimumShopDays(data.upgrades, hoursPerDay);
+  if (!r.ok) return null;
+  const title = new Map(data.upgrades.map((u) => [u.id, u.title]));
+  const weeks = r.days / SHOP_DAYS_PER_WEEK;
+  return {
+    hours: r.hours,
+    days: r.days,
+    hoursPerDay,
+    critical: r.critical.filter((id) => (data.upgrades.find((u) => u.id === id)?.installState ?? 'installed') !== 'installed').map((id) => ({ id, title: title.get(id) ?? `#${id}` })),
+    earliestFinish: r.days === 0 ? today() : addDays(today(), Math.ceil(weeks * 7)),
+  };
+}
+
+/** What the planner screen needs: the episodes, the planner input for checking drafts, violations. */
+export async function planOverview(build: Build) {
+  const data = await loadPlanData(build);
+  const input = plannerInput(data, capacityOf(build), false);
+  const violations = validatePlan(input, currentPlan(data));
+  return {
+    episodes: data.episodes,
+    upgrades: data.upgrades,
+    input,
+    violations,
+    criticalPath: criticalSummary(data, input),
+    capacityHours: Math.min(build.shootHoursPerEpisode, (build.shopHoursPerWeek * build.releaseCadenceDays) / 7),
+  };
+}
+
+export async function checkPlan(build: Build): Promise<PlanViolation[]> {
+  const data = await loadPlanData(build);
+  return validatePlan(plannerInput(data, capacityOf(build), false), currentPlan(data));
+}
+
+interface ProposedEpisode {
+  id: number | null;
+  number: number;
+  title: string;
+  state: EpisodeRecord['state'] | null;
+  shootDate: string | null;
+  releaseDate: string | null;
+  area: string | null;
+  hours: number;
+  upgradeIds: number[];
+  locked: boolean;
+  oversize: boolean;
+}
+
+export interface PlanDifference {
+  upgradeId: number;
+  title: string;
+  kind: 'moved' | 'reordered' | 'added' | 'removed';
+  from: { episodeId: number | null; number: number; position: number } | null;
+  to: { episodeId: number | null; number: number; position: number } | null;
+}
+
+export async function propose(build: Build, over: Partial<Capacity>) {
+  const data = await loadPlanData(build);
+  refuseCycle(data);
+  const cap = capacityOf(build, over);
+  const input = plannerInput(data, cap, true);
+  const plan = proposePlan(input);
+  if (!plan.ok) {
+    const titles = cycleTitles(data, plan.cycle);
+    throw new AppError(422, 'cycle', `Prerequisites form a cycle: ${[...titles, titles[0]].join(' → ')}.`, undefined, { cycle: titles, cycleIds: plan.cycle });
+  }
+  // Locked episodes keep their ids by number; the rest of the existing episodes are reused in
+  // series order for the new ones, so their titles and records carry over.
+  const byNumber = new Map(data.episodes.map((e) => [e.number, e]));
+  const lockedNumbers = new Set(plan.episodes.filter((e) => e.locked).map((e) => e.number));
+  const reusable = data.episodes.filter((e) => !lockedNumbers.has(e.number) && !LOCKED_STATES.includes(e.state));
+  const titleOf = new Map(data.upgrades.map((u) => [u.id, u.title]));
+  const episodes: ProposedEpisode[] = plan.episodes.map((e) => {
+    const existing = e.locked ? byNumber.get(e.number) : reusable.shift();
+    const first = titleOf.get(e.upgradeIds[0]) ?? 'New episode';
+    return {
+      id: existing?.id ?? null,
+      number: e.number,
+      title: existing?.title ?? (e.area ? `${AREA_LABELS[e.area]}: ${first}` : first),
+      state: existing?.state ?? null,
+      shootDate: e.shootDate,
+      releaseDate: e.releaseDate,
+      area: e.area,
+      hours: e.hours,
+      upgradeIds: e.upgradeIds,
+      locked: e.locked,
+      oversize: e.oversize,
+    };
+  });
+  let next = Math.max(0, ...episodes.map((e) => e.number)) + 1;
+  // Existing episodes the proposal does not need stay in the series, emptied, at the end.
+  for (const e of reusable) {
+    episodes.push({ id: e.id, number: next++, title: e.title, state: e.state, shootDate: e.shootDate, releaseDate: e.releaseDate, area: null, hours: 0, upgradeIds: [], locked: false, oversize: false });
+  }
+  const violations = validatePlan(plannerInput(data, cap, false), { episodes: episodes.map((e) => ({ number: e.number, shootDate: e.shootDate, upgradeIds: e.upgradeIds })) });
+  return {
+    proposal: {
+      episodes,
+      forecastFinish: plan.forecastFinish,
+      buildDoneDate: plan.buildDoneDate,
+      capacityHours: plan.capacityHours,
+      unplaced: plan.unplaced.map((id) => ({ id, title: titleOf.get(id) ?? `#${id}` })),
+      violations,
+    },
+    current: { episodes: data.episodes, violations: validatePlan(plannerInput(data, cap, false), currentPlan(data)) },
+    differences: differences(data, episodes),
+  };
+}
+
+function differences(data: PlanData, proposed: ProposedEpisode[]): PlanDifference[] {
+  type Where = { episodeId: number | null; key: string; number: number; position: number };
+  const was = new Map<number, Where>();
+  for (const e of data.episodes) e.upgradeIds.forEach((id, position) => was.set(id, { episodeId: e.id, key: `id${e.id}`, number: e.number, position }));
+  const will = new Map<number, Where>();
+  for (const e of proposed) e.upgradeIds.forEach((id, position) => will.set(id, { episodeId: e.id, key: e.id ? `id${e.id}` : `new${e.number}`, number: e.number, position }));
+  const out: PlanDifference[] = [];
+  for (const u of data.upgrades) {
+    const a = was.get(u.id);
+    const b = will.get(u.id);
+    const strip = (w?: Where) => (w ? { episodeId: w.episodeId, number: w.number, position: w.position } : null);
+    let kind: PlanDifference['kind'] | null = null;
+    if (!a && b) kind = 'added';
+    else if (a && !b) kind = 'removed';
+    else if (a && b && a.key !== b.key) kind = 'moved';
+    else if (a && b && a.position !== b.position) kind = 'reordered';
+    if (kind) out.push({ upgradeId: u.id, title: u.title, kind, from: strip(a), to: strip(b) });
+  }
+  return out;
+}
+
+/**
+ * Applies a whole plan: the listed episodes in order become numbers 1..k (episodes not listed follow
+ * in their present order, emptied unless filmed), each with exactly the listed upgrades in order.
+ * Everything is checked before anything is written; violations of the planner's rules are allowed
+ * (a producer may decide to) and returned.
+ */
+export async function applyPlan(actor: Actor, build: Build, body: PlanInputBody) {
+  return sequelize.transaction(async (t) => {
+    await sequelize.query('SELECT id FROM builds WHERE id = :id FOR UPDATE', { replacements: { id: build.id }, transaction: t });
+    const data = await loadPlanData(build, t);
+    const epById = new Map(data.episodes.map((e) => [e.id, e]));
+    const upById = new Map(data.upgrades.map((u) => [u.id, u]));
+    const fields: FieldError[] = [];
+    const seenEp = new Set<number>();
+    const seenUp = new Map<number, string>();
+    body.episodes.forEach((e, i) => {
+      if (e.id !== undefined) {
+        if (!epById.has(e.id)) fields.push({ path: `episodes.${i}.id`, message: 'is not an episode of this build' });
+        else if (seenEp.has(e.id)) fields.push({ path: `episodes.${i}.id`, message: 'is listed twice' });
+        seenEp.add(e.id);
+      }
+      if (e.id === undefined && !e.title) fields.push({ path: `episodes.${i}.title`, message: 'is required for a new episode' });
+      const existing = e.id !== undefined ? epById.get(e.id) : undefined;
+      const shoot = e.shootDate !== undefined ? e.shootDate : existing?.shootDate ?? null;
+      const release = e.releaseDate !== undefined ? e.releaseDate : existing?.releaseDate ?? null;
+      if (shoot && release && release < shoot) fields.push({ path: `episodes.${i}.releaseDate`, message: 'must be on or after the shoot date' });
+      e.upgradeIds.forEach((uid, j) => {
+        const path = `episodes.${i}.upgradeIds.${j}`;
+        if (!upById.has(uid)) fields.push({ path, message: 'is not an upgrade of this build' });
+        else if (seenUp.has(uid)) fields.push({ path, message: `is already in ${seenUp.get(uid)}` });
+        else seenUp.set(uid, `episodes.${i}`);
+      });
+    });
+    if (fields.length) throw badRequest(`Check these fields: ${fields.map((f) => f.path).join(', ')}.`, fields);
+
+    // A filmed episode keeps exactly what was filmed.
+    const listed = new Map(body.episodes.filter((e) => e.id !== undefined).map((e) => [e.id!, e.upgradeIds]));
+    for (const ep of data.episodes) {
+      if (!LOCKED_STATES.includes(ep.state)) continue;
+      const after = listed.get(ep.id) ?? ep.upgradeIds.filter((id) => !seenUp.has(id));
+      if (JSON.stringify(after) !== JSON.stringify(ep.upgradeIds)) {
+        throw new AppError(409, 'episode_locked', `Episode ${ep.number} (${ep.title}) has been filmed; its upgrades cannot change.`, undefined, { episodeId: ep.id });
+      }
+    }
+    refuseCycle(data);
+
+    // Write: new episodes, numbers, dates, then upgrade assignments.
+    const order: number[] = [];
+    const assignment = new Map<number, { episodeId: number; position: number }>();
+    let tempNumber = data.episodes.length;
+    for (const e of body.episodes) {
+      let epId = e.id;
+      if (epId === undefined) {
+        const created = await Episode.create(
+          { buildId: build.id, number: ++tempNumber, title: e.title!, summary: null, shootDate: e.shootDate ?? null, releaseDate: e.releaseDate ?? null, videoUrl: null, runtimeSeconds: null, publishedAt: null },
+          { transaction: t },
+        );
+        epId = created.id;
+        await record(t, { actor, buildId: build.id, entity: 'episode', entityId: epId, action: 'create', summary: `Added episode "${created.title}" with the plan`, after: { title: created.title, shootDate: created.shootDate, releaseDate: created.releaseDate } });
+      } else if (e.shootDate !== undefined || e.releaseDate !== undefined || e.title !== undefined) {
+        const ep = await Episode.findOne({ where: { id: epId, buildId: build.id }, transaction: t });
+        const before = { title: ep!.title, shootDate: ep!.shootDate, releaseDate: ep!.releaseDate };
+        if (e.title !== undefined) ep!.title = e.title;
+        if (e.shootDate !== undefined) ep!.shootDate = e.shootDate;
+        if (e.releaseDate !== undefined) ep!.releaseDate = e.releaseDate;
+        if (ep!.changed()) {
+          await ep!.save({ transaction: t });
+          await record(t, { actor, buildId: build.id, entity: 'episode', entityId: epId, action: 'update', summary: `Changed episode "${ep!.title}" with the plan`, before, after: { title: ep!.title, shootDate: ep!.shootDate, releaseDate: ep!.releaseDate } });
+        }
+      }
+      order.push(epId);
+      e.upgradeIds.forEach((uid, position) => assignment.set(uid, { episodeId: epId!, position }));
+    }
+    for (const ep of data.episodes) {
+      if (order.includes(ep.id)) continue;
+      order.push(ep.id);
+      if (LOCKED_STATES.includes(ep.state)) ep.upgradeIds.forEach((uid, position) => assignment.set(uid, { episodeId: ep.id, position }));
+    }
+    await renumber(build.id, order, t);
+
+    const changes: Record<string, [unknown, unknown]> = {};
+    const moved = data.upgrades.filter((u) => {
+      const a = assignment.get(u.id);
+      return (a?.episodeId ?? null) !== u.episodeId || (a?.position ?? null) !== u.episodePosition;
+    });
+    if (moved.length) {
+      const values = moved.map((_, i) => `(:u${i}::int, :e${i}::int, :p${i}::int)`).join(', ');
+      const replacements: Record<string, number | null> = { buildId: build.id };
+      moved.forEach((u, i) => {
+        const a = assignment.get(u.id);
+        replacements[`u${i}`] = u.id;
+        replacements[`e${i}`] = a?.episodeId ?? null;
+        replacements[`p${i}`] = a?.position ?? null;
+        changes[u.title] = [u.episodeId ? epById.get(u.episodeId)?.number ?? null : null, a ? order.indexOf(a.episodeId) + 1 : null];
+      });
+      // Bumping the version makes an upgrade form opened before the plan changed answer 409.
+      await sequelize.query(
+        `UPDATE upgrades u SET episode_id = v.e, episode_position = v.p, version = u.version + 1, updated_at = now()
+           FROM (VALUES ${values}) AS v(id, e, p) WHERE u.id = v.id AND u.build_id = :buildId`,
+        { replacements, transaction: t, type: QueryTypes.UPDATE },
+      );
+    }
+    const movedCount = Object.values(changes).filter(([a, b]) => a !== b).length;
+    await record(t, {
+      actor, buildId: build.id, entity: 'plan', entityId: build.id, action: 'apply',
+      summary: `Applied a plan of ${order.length} episodes (${movedCount} upgrades changed episode)`,
+      changes,
+    });
+    const after = await loadPlanData(build, t);
+    return { episodes: await listEpisodes(build.id, t), violations: validatePlan(plannerInput(after, capacityOf(build), false), currentPlan(after)) };
+  });
+}
+

@@ -1,0 +1,92 @@
+// The public build page's data: only what a viewer may see. No money, no people, no internal
+// notes: every field is picked here by name, never copied from a record.
+import { QueryTypes } from 'sequelize';
+import { sequelize, Build, Upgrade, Episode } from '../models';
+import { notFound } from '../errors';
+import { cautionsFor } from '../../shared/safety';
+import { AREAS, AREA_LABELS, isUpgradeDone, type Area } from '../../shared/domain';
+
+export type PublicStatus = 'planned' | 'in_progress' | 'done';
+
+/** A build by slug, only when it is marked public; otherwise the same 404 as an unknown slug. */
+export async function publicBuildBySlug(slug: string) {
+  const build = await Build.findOne({ where: { slug, isPublic: true } });
+  if (!build) throw notFound('Build');
+  return build;
+}
+
+function statusOf(u: Upgrade): PublicStatus {
+  if (isUpgradeDone(u)) return 'done';
+  return u.installState === 'queued' ? 'planned' : 'in_progress';
+}
+
+export async function publicBuildView(slug: string) {
+  const build = await publicBuildBySlug(slug);
+  const [upgrades, episodes, requests] = await Promise.all([
+    Upgrade.findAll({ where: { buildId: build.id }, order: [['episodePosition', 'ASC'], ['title', 'ASC']] }),
+    Episode.findAll({ where: { buildId: build.id, state: 'live' }, order: [['number', 'ASC']] }),
+    sequelize.query<{ id: number; title: string; details: string | null; state: string; upgrade_id: number | null; votes: number }>(
+      `SELECT r.id, r.title, r.details, r.state, r.upgrade_id,
+              count(v.id) FILTER (WHERE v.confirmed_at IS NOT NULL)::int AS votes
+       FROM viewer_requests r LEFT JOIN viewer_votes v ON v.request_id = r.id
+       WHERE r.build_id = :buildId AND r.state IN ('new','accepted') AND r.confirmed_at IS NOT NULL
+       GROUP BY r.id ORDER BY votes DESC, r.created_at ASC LIMIT 200`,
+      { replacements: { buildId: build.id }, type: QueryTypes.SELECT },
+    ),
+  ]);
+  const liveIds = new Map(episodes.map((e) => [e.id, e.number]));
+  const titleOf = new Map(upgrades.map((u) => [u.id, u.title]));
+
+  const areas = AREAS.map((area: Area) => ({
+    area,
+    label: AREA_LABELS[area],
+    upgrades: upgrades
+      .filter((u) => u.area === area)
+      .map((u) => ({
+        id: u.id,
+        title: u.title,
+        becomes: u.becomes,
+        status: statusOf(u),
+        safetyFlags: [...u.safetyFlags],
+        liveEpisodeNumber: u.episodeId && liveIds.has(u.episodeId) ? liveIds.get(u.episodeId)! : null,
+      })),
+  })).filter((a) => a.upgrades.length > 0);
+
+  const counts = { planned: 0, in_progress: 0, done: 0 } as Record<PublicStatus, number>;
+  for (const u of upgrades) counts[statusOf(u)] += 1;
+
+  const cautions = cautionsFor(upgrades.flatMap((u) => u.safetyFlags)).map((c) => ({
+    flag: c.flag,
+    label: c.label,
+    caution: c.caution,
+    upgrades: upgrades.filter((u) => u.safetyFlags.includes(c.flag)).map((u) => u.title),
+  }));
+
+  return {
+    build: {
+      slug: build.slug,
+      title: build.name,
+      vehicle: { year: build.year, make: build.make, model: build.model, trim: build.trim },
+      summary: build.summary,
+    },
+    counts: { planned: counts.planned, inProgress: counts.in_progress, done: counts.done },
+    areas,
+    episodes: episodes.map((e) => ({
+      number: e.number,
+      title: e.title,
+      summary: e.summary,
+      videoUrl: e.videoUrl,
+      publishedOn: e.publishedAt ? new Date(e.publishedAt).toISOString().slice(0, 10) : null,
+      upgrades: upgrades.filter((u) => u.episodeId === e.id).map((u) => u.title),
+    })),
+    cautions,
+    requests: requests.map((r) => ({
+      id: r.id,
+      title: r.title,
+      details: r.details,
+      state: r.state as 'new' | 'accepted',
+      votes: r.votes,
+      upgrade: r.upgrade_id ? titleOf.get(r.upgrade_id) ?? null : null,
+    })),
+  };
+}

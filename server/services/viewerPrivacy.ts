@@ -1,0 +1,50 @@
+// Keeping viewers' e-mail addresses out of the database until they confirm: a keyed hash to
+// count one vote per person, the address sealed with a key only the confirmation link carries,
+// single-use tokens stored as hashes, and self-verifying unsubscribe tokens.
+import { createCipheriv, createDecipheriv, createHash, createHmac, randomBytes, timingSafeEqual } from 'node:crypto';
+import { config } from '../config';
+
+const key = (purpose: string) => createHash('sha256').update(`bayslate:${purpose}:${config().SESSION_SECRET}`).digest();
+
+export const normaliseEmail = (email: string) => email.trim().toLowerCase();
+
+/** Keyed hash of an address (64 hex): equal for equal addresses, useless without the server key. */
+export const emailHash = (email: string) => createHmac('sha256', key('email')).update(normaliseEmail(email)).digest('hex');
+
+/** A fresh single-use token (URL-safe, 256 bits) and the hash we store instead of it. */
+export function newToken() {
+  const token = randomBytes(32).toString('base64url');
+  return { token, hash: tokenHash(token) };
+}
+export const tokenHash = (token: string) => createHash('sha256').update(token).digest('hex');
+
+// AES-256-GCM with a key derived from the token: the address can only be read back with the link.
+export function sealEmail(email: string, token: string): string {
+  const iv = randomBytes(12);
+  const cipher = createCipheriv('aes-256-gcm', createHash('sha256').update(`seal:${token}`).digest(), iv);
+  const data = Buffer.concat([cipher.update(normaliseEmail(email), 'utf8'), cipher.final()]);
+  return [iv, cipher.getAuthTag(), data].map((b) => b.toString('base64url')).join('.');
+}
+export function unsealEmail(sealed: string, token: string): string | null {
+  try {
+    const [iv, tag, data] = sealed.split('.').map((p) => Buffer.from(p, 'base64url'));
+    const decipher = createDecipheriv('aes-256-gcm', createHash('sha256').update(`seal:${token}`).digest(), iv!);
+    decipher.setAuthTag(tag!);
+    return Buffer.concat([decipher.update(data!), decipher.final()]).toString('utf8');
+  } catch {
+    return null;
+  }
+}
+
+const unsubSig = (hash: string) => createHmac('sha256', key('unsubscribe')).update(hash).digest('hex').slice(0, 32);
+
+/** The token of an unsubscribe link: the address hash and a signature over it. */
+export const unsubscribeToken = (hash: string) => `${hash}.${unsubSig(hash)}`;
+
+/** The address hash an unsubscribe token names, or null when it is not one of ours. */
+export function readUnsubscribeToken(token: string): string | null {
+  const m = /^([0-9a-f]{64})\.([0-9a-f]{32})$/.exec(token);
+  if (!m) return null;
+  const ok = timingSafeEqual(Buffer.from(unsubSig(m[1]!)), Buffer.from(m[2]!));
+  return ok ? m[1]! : null;
+}

@@ -1,0 +1,28 @@
+// Chapters, publishing and campaign payloads for an episode's show notes.
+import { z } from 'zod';
+import { httpUrl, id } from './common';
+
+// Two days is far past any episode; it only keeps numbers sane before validateChapters speaks.
+const seconds = z.number().int('must be whole seconds').min(0, 'cannot be negative').max(172_800, 'is too long');
+const runtime = z.number().int('must be whole seconds').positive('must be more than 0').max(172_800, 'is too long');
+
+export const chapterSchema = z.strictObject({
+  startSeconds: seconds,
+  title: z.string().max(200, 'must be at most 200 characters'),
+  upgradeId: id.nullish().transform((v) => v ?? null),
+});
+export const putChaptersSchema = z.strictObject({
+  chapters: z.array(chapterSchema).max(100, 'at most 100 chapters'),
+  runtimeSeconds: runtime.nullish(),
+});
+export const publishSchema = z.strictObject({ videoUrl: httpUrl, runtimeSeconds: runtime.optional() });
+export const campaignSchema = z.strictObject({
+  campaign: z
+    .string()
+    .trim()
+    .regex(/^[a-z0-9_-]{1,60}$/, 'use 1–60 lower-case letters, digits, - or _')
+    .nullable(),
+});
+
+export type PutChaptersInput = z.infer<typeof putChaptersSchema>;
+export type PublishInput = z.infer<typeof publishSchema>;

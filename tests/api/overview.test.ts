@@ -1,0 +1,319 @@
+// GET /api/builds/:buildId/overview: figures to the cent against hand-worked sums and the raw rows,
+// who may read it, builds with missing inputs, and a query count that does not grow with the build.
+import { describe, it, expect, beforeAll } from 'vitest';
+import { QueryTypes } from 'sequelize';
+import { anonymous, signInAs } from '../helpers/api';
+import { Build, Upgrade, Episode, sequelize } from '../../server/models';
+import { queryCounter } from '../../server/db/sequelize';
+import { buildOverview } from '../../server/services/overview';
+import { earnedValue, roundHalfUpCents } from '../../shared/index';
+import type { BuildOverview, OverviewCostRow } from '../../shared/overview';
+
+let seq = 0;
+async function makeBuild(fields: Partial<{ budgetCents: number | null; labourRateCents: number | null }> = {}) {
+  seq += 1;
+  return Build.create({
+    slug: `overview-${seq}`,
+    name: `Overview check ${seq}`,
+    year: 2019,
+    make: 'Halvorsen',
+    model: 'Tern',
+    vin: null,
+    mileage: null,
+    budgetCents: 'budgetCents' in fields ? fields.budgetCents! : 1_000_000,
+    labourRateCents: 'labourRateCents' in fields ? fields.labourRateCents! : 8_550,
+    campaign: null,
+    summary: null,
+    startDate: '2025-01-06',
+  });
+}
+
+async function upgrade(buildId: number, f: Partial<Upgrade> & { title: string }) {
+  return Upgrade.create({ buildId, area: 'front', replaces: null, becomes: null, episodeId: null, episodePosition: null, notes: null, tireFrom: null, tireTo: null, installedOn: null, ...f } as never);
+}
+async function part(buildId: number, upgradeId: number, quantity: number, unitCostCents: number, state = 'ordered', orderedOn: string | null = '2025-02-01') {
+  await sequelize.query(
+    `INSERT INTO parts (build_id, upgrade_id, part_number, description, quantity, unit_cost_cents, state, ordered_on) VALUES ($1,$2,'HT-1','Kit',$3,$4,$5,$6)`,
+    { bind: [buildId, upgradeId, quantity, unitCostCents, state, orderedOn] },
+  );
+}
+async function labour(buildId: number, upgradeId: number, workedOn: string, hours: number) {
+  await sequelize.query(`INSERT INTO labour_entries (build_id, upgrade_id, person_name, worked_on, hours) VALUES ($1,$2,'Bay tech',$3,$4)`, { bind: [buildId, upgradeId, workedOn, hours] });
+}
+async function expense(buildId: number, upgradeId: number | null, amountCents: number, spentOn = '2025-02-10') {
+  await sequelize.query(`INSERT INTO expenses (build_id, upgrade_id, description, amount_cents, spent_on) VALUES ($1,$2,'Shop supplies',$3,$4)`, { bind: [buildId, upgradeId, amountCents, spentOn] });
+}
+async function removed(buildId: number, upgradeId: number | null, disposition: string, expected: number | null, actual: number | null, soldOn: string | null = null) {
+  await sequelize.query(
+    `INSERT INTO removed_parts (build_id, upgrade_id, description, disposition, expected_sale_cents, actual_sale_cents, sold_on) VALUES ($1,$2,'Stock part',$3,$4,$5,$6)`,
+    { bind: [buildId, upgradeId, disposition, expected, actual, soldOn] },
+  );
+}
+
+/** Every number anywhere in the value is finite (JSON would hide NaN and Infinity as null). */
+function nonFinite(v: unknown, path = '$'): string[] {
+  if (typeof v === 'number') return Number.isFinite(v) ? [] : [path];
+  if (Array.isArray(v)) return v.flatMap((x, i) => nonFinite(x, `${path}[${i}]`));
+  if (v && typeof v === 'object') return Object.entries(v).flatMap(([k, x]) => nonFinite(x, `${path}.${k}`));
+  return [];
+}
+
+const MONEY: (keyof OverviewCostRow)[] = ['partsCents', 'labourCents', 'expensesCents', 'recoveredCents', 'expectedRecoveryCents', 'netCents', 'valueAddedCents'];
+function sumRows(rows: OverviewCostRow[], key: keyof OverviewCostRow) {
+  return rows.reduce((s, r) => s + ((r[key] as number | null) ?? 0), 0);
+}
+
+/** The overview's totals equal its detail rows, and its upgrade rows equal the raw rows of the database. */
+async function expectAgreesWithDatabase(o: BuildOverview, buildId: number) {
+  for (const k of MONEY) {
+    expect(o.totals[k], `totals.${k} = upgrades + unassigned`).toBe(sumRows(o.upgrades, k) + ((o.unassigned[k] as number | null) ?? 0));
+    expect(sumRows(o.areas, k) + ((o.unassigned[k] as number | null) ?? 0), `areas.${k}`).toBe(o.totals[k] ?? 0);
+    expect(sumRows(o.episodes, k) + ((o.unassigned[k] as number | null) ?? 0), `episodes.${k}`).toBe(o.totals[k] ?? 0);
+  }
+  const q = <T>(sql: string) => sequelize.query<T>(sql, { bind: [buildId], type: QueryTypes.SELECT });
+  const parts = await q<{ upgrade_id: number; cents: number }>(`SELECT upgrade_id, sum(quantity * unit_cost_cents)::int AS cents FROM parts WHERE build_id = $1 AND state <> 'returned' GROUP BY upgrade_id`);
+  const hours = await q<{ upgrade_id: number; hours: number }>(`SELECT upgrade_id, sum(hours)::float8 AS hours FROM labour_entries WHERE build_id = $1 GROUP BY upgrade_id`);
+  const spent = await q<{ upgrade_id: number; cents: number }>(`SELECT upgrade_id, sum(amount_cents)::int AS cents FROM expenses WHERE build_id = $1 AND upgrade_id IS NOT NULL GROUP BY upgrade_id`);
+  const sold = await q<{ upgrade_id: number; cents: number }>(`SELECT upgrade_id, sum(actual_sale_cents)::int AS cents FROM removed_parts WHERE build_id = $1 AND disposition = 'sold' AND upgrade_id IS NOT NULL GROUP BY upgrade_id`);
+  const [{ n }] = await q<{ n: number }>(`SELECT count(*)::int AS n FROM upgrades WHERE build_id = $1`);
+  expect(o.upgrades).toHaveLength(n);
+  const rate = o.build.labourRateCents ?? 0;
+  const of = (rows: { upgrade_id: number; cents?: number; hours?: number }[], id: number, k: 'cents' | 'hours') => rows.find((r) => r.upgrade_id === id)?.[k] ?? 0;
+  for (const u of o.upgrades) {
+    expect(u.partsCents, `parts of ${u.title}`).toBe(of(parts, u.upgradeId, 'cents'));
+    expect(u.actualHours).toBeCloseTo(of(hours, u.upgradeId, 'hours'), 6);
+    if (o.labourCosted) expect(u.labourCents, `labour of ${u.title}`).toBe(roundHalfUpCents(of(hours, u.upgradeId, 'hours') * rate));
+    expect(u.expensesCents).toBe(of(spent, u.upgradeId, 'cents'));
+    expect(u.recoveredCents).toBe(of(sold, u.upgradeId, 'cents'));
+    expect(u.netCents).toBe(u.partsCents + (u.labourCents ?? 0) + u.expensesCents - u.recoveredCents);
+  }
+}
+
+let owner: Awaited<ReturnType<typeof signInAs>>;
+let handMade: Build;
+let ids: { u1: number; u2: number; u3: number; e1: number; e2: number };
+
+beforeAll(async () => {
+  owner = await signInAs('owner');
+  // A build worked by hand: rate $85.50/h, budget $10,000.
+  handMade = await makeBuild();
+  const b = handMade.id;
+  const e1 = await Episode.create({ buildId: b, number: 1, title: 'Front end', state: 'live', shootDate: '2025-03-01' } as never);
+  const e2 = await Episode.create({ buildId: b, number: 2, title: 'Cabin comfort', state: 'scheduled', shootDate: '2025-04-01' } as never);
+  const u1 = await upgrade(b, { title: 'Projector LED headlamps', area: 'front', estimatedHours: 4, valueAddedCents: 120_000, episodeId: e1.id, installState: 'installed', installSegment: 'shot', demoSegment: 'shot', installedOn: '2025-02-27' });
+  const u2 = await upgrade(b, { title: 'Heated seats', area: 'cabin', estimatedHours: 0, valueAddedCents: 45_000, episodeId: e2.id });
+  const u3 = await upgrade(b, { title: 'Roof rails', area: 'rear', estimatedHours: 2 });
+  await part(b, u1.id, 2, 15_000); // 300.00
+  await part(b, u1.id, 1, 9_999, 'returned'); // returned: costs nothing
+  await part(b, u2.id, 1, 50_000, 'to_order', null);
+  await labour(b, u1.id, '2025-02-20', 1.5);
+  await labour(b, u1.id, '2025-02-21', 2.25); // 3.75 h × 85.50 = 320.625 → 320.63
+  await labour(b, u2.id, '2025-03-10', 0.47); // 0.47 h × 85.50 = 40.185 → 40.19 (half-up, see costs.ts)
+  await expense(b, u1.id, 4_500);
+  await expense(b, null, 1_250);
+  await removed(b, u1.id, 'sold', 9_000, 7_000, '2025-03-05');
+  await removed(b, u1.id, 'for_sale', 2_000, null);
+  await removed(b, u1.id, 'keep', 5_000, null);
+  ids = { u1: u1.id, u2: u2.id, u3: u3.id, e1: e1.id, e2: e2.id };
+});
+
+describe('GET /api/builds/:buildId/overview', () => {
+  it('gives the owner every figure of a hand-worked build, to the cent', async () => {
+    const res = await owner.get(`/api/builds/${handMade.id}/overview`);
+    expect(res.status).toBe(200);
+    const o = res.body as BuildOverview;
+    const u1 = o.upgrades.find((u) => u.upgradeId === ids.u1)!;
+    expect(u1).toMatchObject({ partsCents: 30_000, labourCents: 32_063, expensesCents: 4_500, recoveredCents: 7_000, expectedRecoveryCents: 2_000, netCents: 59_563, estimatedHours: 4, actualHours: 3.75, done: true });
+    expect(u1.valuePerDollar).toBeCloseTo(120_000 / 59_563, 12);
+    expect(u1.hoursRatio).toBeCloseTo(3.75 / 4, 12);
+    const u2 = o.upgrades.find((u) => u.upgradeId === ids.u2)!;
+    expect(u2).toMatchObject({ partsCents: 50_000, labourCents: 4_019, netCents: 54_019, hoursRatio: null, done: false });
+    const u3 = o.upgrades.find((u) => u.upgradeId === ids.u3)!;
+    expect(u3).toMatchObject({ netCents: 0, valuePerDollar: null, hoursRatio: 0 });
+    expect(o.unassigned).toMatchObject({ expensesCents: 1_250, netCents: 1_250 });
+    expect(o.totals).toMatchObject({ partsCents: 80_000, labourCents: 36_082, expensesCents: 5_750, recoveredCents: 7_000, netCents: 114_832 });
+    expect(o.headline).toMatchObject({
+      budgetCents: 1_000_000,
+      spentCents: 121_832,
+      recoveredCents: 7_000,
+      expectedRecoveryCents: 2_000,
+      netCents: 114_832,
+      remainingCents: 885_168,
+      upgradesDone: 1,
+      upgradesTotal: 3,
+      episodesLive: 1,
+      episodesTotal: 2,
+      valueAddedCents: 165_000,
+    });
+    expect(o.headline.spentShare).toBeCloseTo(0.114832, 12);
+    // Earned value, 0/100: PV = U1 (4 h × 85.50 + 300) + U2 (500) by their shoot dates; U3 has none.
+    // EV = U1's budget (done); AC = the net cost so far.
+    expect(o.earnedValue).toMatchObject({ rule: '0/100', bac: 1_000_000, pv: 114_200, ev: 64_200, ac: 114_832, unscheduledPlannedCents: 17_100 });
+    const f = earnedValue({ bac: 1_000_000, pv: 114_200, ev: 64_200, ac: 114_832 });
+    for (const k of ['cv', 'sv', 'cpi', 'spi', 'eac', 'etc', 'vac', 'tcpi'] as const) expect(o.earnedValue[k]).toBeCloseTo(f[k]!, 9);
+    expect(o.headline.forecastCents).toBe(Math.round(f.eac!));
+    expect(o.earnedValue.ruleDescription).toMatch(/done/);
+    // Areas in the vehicle's order; episodes by number, then the upgrades in no episode.
+    expect(o.areas.map((a) => [a.area, a.upgrades])).toEqual([['front', 1], ['rear', 1], ['cabin', 1]]);
+    expect(o.episodes.map((e) => [e.number, e.upgrades, e.netCents])).toEqual([[1, 1, 59_563], [2, 1, 54_019], [null, 1, 0]]);
+    // The burndown starts from the whole budget and ends where the budget stands now.
+    expect(o.burndown[0]).toMatchObject({ date: '2025-01-06', planned: 1_000_000, actual: 1_000_000 });
+    const lastActual = o.burndown.filter((p) => p.actual !== null).at(-1)!;
+    expect(lastActual.actual).toBe(885_168);
+    await expectAgreesWithDatabase(o, handMade.id);
+  });
+
+  it('lets the producer read it and refuses installer and marketing (403) and anonymous callers (401)', async () => {
+    expect((await (await signInAs('producer')).get(`/api/builds/${handMade.id}/overview`)).status).toBe(200);
+    for (const role of ['installer', 'marketing'] as const) {
+      const res = await (await signInAs(role)).get(`/api/builds/${handMade.id}/overview`);
+      expect(res.status).toBe(403);
+      expect(res.body.error.code).toBe('forbidden');
+      expect(JSON.stringify(res.body)).not.toMatch(/Cents/);
+    }
+    expect((await anonymous().get(`/api/builds/${handMade.id}/overview`)).status).toBe(401);
+  });
+
+  it('answers 404 for a build that does not exist', async () => {
+    expect((await owner.get('/api/builds/999999/overview')).status).toBe(404);
+    expect((await owner.get('/api/builds/abc/overview')).status).toBe(404);
+  });
+
+  it('agrees with the demo build’s rows in the database', async () => {
+    const tern = await Build.findOne({ where: { slug: 'project-tern' } });
+    expect(tern, 'the demo build is seeded').not.toBeNull();
+    const res = await owner.get(`/api/builds/${tern!.id}/overview`);
+    expect(res.status).toBe(200);
+    const o = res.body as BuildOverview;
+    expect(o.upgrades.length).toBeGreaterThan(0);
+    expect(nonFinite(await buildOverview(tern!))).toEqual([]);
+    await expectAgreesWithDatabase(o, tern!.id);
+  });
+});
+
+describe('builds with missing inputs show nulls, never NaN or Infinity', () => {
+  it('a build with no upgrades at all', async () => {
+    const b = await makeBuild();
+    const o = await buildOverview(b);
+    expect(nonFinite(o)).toEqual([]);
+    expect(o.upgrades).toEqual([]);
+    expect(o.headline).toMatchObject({ netCents: 0, spentCents: 0, remainingCents: 1_000_000, valuePerDollar: null, upgradesTotal: 0, episodesTotal: 0 });
+    expect(o.earnedValue).toMatchObject({ pv: 0, ev: 0, ac: 0, cpi: null, spi: null, eac: null, etc: null, vac: null });
+    expect(o.headline.forecastCents).toBeNull();
+    expect((await owner.get(`/api/builds/${b.id}/overview`)).status).toBe(200);
+  });
+
+  it('a build with no budget', async () => {
+    const b = await makeBuild({ budgetCents: null });
+    const u = await upgrade(b.id, { title: 'Wireless charging pad', area: 'cabin', estimatedHours: 1 });
+    await part(b.id, u.id, 1, 12_000);
+    await labour(b.id, u.id, '2025-02-02', 1);
+    const o = await buildOverview(b);
+    expect(nonFinite(o)).toEqual([]);
+    expect(o.headline).toMatchObject({ budgetCents: null, remainingCents: null, spentShare: null, forecastCents: null, forecastVarianceCents: null, netCents: 20_550 });
+    expect(o.earnedValue).toMatchObject({ bac: null, eac: null, vac: null, tcpi: null, forecastFinish: null });
+    expect(o.burndown).toEqual([]);
+  });
+
+  it('a build with no labour rate', async () => {
+    const b = await makeBuild({ labourRateCents: null });
+    const u = await upgrade(b.id, { title: 'Rain-sensing wipers', area: 'front', estimatedHours: 2 });
+    await labour(b.id, u.id, '2025-02-02', 3);
+    await part(b.id, u.id, 1, 8_000);
+    const o = await buildOverview(b);
+    expect(nonFinite(o)).toEqual([]);
+    expect(o.labourCosted).toBe(false);
+    expect(o.upgrades[0]).toMatchObject({ labourCents: null, actualHours: 3, partsCents: 8_000, netCents: 8_000 });
+    expect(o.totals.labourCents).toBeNull();
+    expect(o.headline.actualHours).toBe(3);
+  });
+
+  it('a build whose upgrades are all estimated at zero hours', async () => {
+    const b = await makeBuild({ budgetCents: 0 });
+    await upgrade(b.id, { title: 'Auto-dimming mirror', area: 'cabin', estimatedHours: 0 });
+    await upgrade(b.id, { title: 'Ambient lighting', area: 'electrical', estimatedHours: 0 });
+    const o = await buildOverview(b);
+    expect(nonFinite(o)).toEqual([]);
+    expect(o.upgrades.every((u) => u.hoursRatio === null && u.valuePerDollar === null)).toBe(true);
+    expect(o.totals.hoursRatio).toBeNull();
+    expect(o.headline).toMatchObject({ estimatedHours: 0, actualHours: 0, spentShare: null });
+  });
+});
+
+describe('one round trip, whatever the size of the build', () => {
+  it('runs the same number of queries for 1 and for 40 upgrades', async () => {
+    const small = await makeBuild();
+    const su = await upgrade(small.id, { title: 'Hitch', area: 'rear', estimatedHours: 2 });
+    await part(small.id, su.id, 1, 100);
+    await labour(small.id, su.id, '2025-02-03', 1);
+    const big = await makeBuild();
+    for (let i = 0; i < 40; i++) {
+      const u = await upgrade(big.id, { title: `Upgrade ${i}`, area: i % 2 ? 'rear' : 'cabin', estimatedHours: 1 + (i % 3) });
+      await part(big.id, u.id, 1 + (i % 2), 1_000 + i);
+      await labour(big.id, u.id, `2025-02-${String(1 + (i % 28)).padStart(2, '0')}`, 0.5);
+      await removed(big.id, u.id, 'sold', 100, 90, '2025-03-01');
+    }
+    const countFor = async (b: Build) => {
+      const before = queryCounter.count;
+      const res = await owner.get(`/api/builds/${b.id}/overview`);
+      expect(res.status).toBe(200);
+      return queryCounter.count - before;
+    };
+    const warmUp = await makeBuild();
+    await countFor(warmUp); // the first request also opens the cache's listening connection
+    const a = await countFor(small);
+    const c = await countFor(big);
+    expect(c).toBe(a);
+    expect(a).toBeLessThanOrEqual(3); // the signed-in person, the build, the overview's one query
+    const before = queryCounter.count;
+    await buildOverview(big);
+    expect(queryCounter.count - before).toBe(1);
+  });
+});
+
+describe('the cached overview', () => {
+  const waitFor = async (check: () => Promise<boolean>) => {
+    for (let i = 0; i < 50; i++) {
+      if (await check()) return true;
+      await new Promise((r) => setTimeout(r, 50));
+    }
+    return false;
+  };
+
+  it('answers a repeat request without computing again, and follows every change of the build', async () => {
+    const b = await makeBuild();
+    const u = await upgrade(b.id, { title: 'Running boards', area: 'sides', estimatedHours: 3 });
+    await part(b.id, u.id, 1, 10_000);
+    const url = `/api/builds/${b.id}/overview`;
+    const first = await owner.get(url);
+    expect(first.body.totals.partsCents).toBe(10_000);
+    // Once the cache holds it, a repeat costs at most the session's person lookup.
+    expect(
+      await waitFor(async () => {
+        const before = queryCounter.count;
+        const again = await owner.get(url);
+        return again.status === 200 && queryCounter.count - before <= 1 && again.body.totals.partsCents === 10_000;
+      }),
+    ).toBe(true);
+    // A write anywhere in the build shows at once (the commit's notice drops the cached copy).
+    await part(b.id, u.id, 2, 2_500);
+    expect(await waitFor(async () => (await owner.get(url)).body.totals.partsCents === 15_000)).toBe(true);
+    await labour(b.id, u.id, '2025-02-02', 2);
+    expect(await waitFor(async () => (await owner.get(url)).body.totals.labourCents === 17_100)).toBe(true);
+    await b.update({ budgetCents: 500_000 });
+    expect(await waitFor(async () => (await owner.get(url)).body.headline.budgetCents === 500_000)).toBe(true);
+    await sequelize.query(`DELETE FROM parts WHERE build_id = $1`, { bind: [b.id] });
+    expect(await waitFor(async () => (await owner.get(url)).body.totals.partsCents === 0)).toBe(true);
+    // A deleted build is gone from the cache too.
+    await sequelize.query(`DELETE FROM builds WHERE id = $1`, { bind: [b.id] });
+    expect(await waitFor(async () => (await owner.get(url)).status === 404)).toBe(true);
+  });
+
+  it('answers 304 to a client that already holds the same figures', async () => {
+    const url = `/api/builds/${handMade.id}/overview`;
+    const first = await owner.get(url);
+    expect(first.headers.etag).toBeTruthy();
+    const again = await owner.get(url).set('If-None-Match', first.headers.etag);
+    expect(again.status).toBe(304);
+  });
+});

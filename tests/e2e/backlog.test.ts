@@ -1,0 +1,242 @@
+// The backlog in the browser, one journey per role: the producer plans (create, edit, link a
+// prerequisite, see a loop refused, import parts from CSV), the installer works from a phone
+// (log hours, receive a part), the owner sees spend, marketing sees retail but never cost.
+import { describe, it, expect, beforeAll, afterAll } from 'vitest';
+import type { Page } from 'playwright-core';
+import { openBrowser, signIn, audit, visit, startAppServer, type AppServer, type BrowserSession } from '../helpers/browser';
+
+let server: AppServer;
+beforeAll(async () => {
+  server = await startAppServer();
+});
+afterAll(async () => {
+  await server?.stop();
+});
+
+/** Reads the API with the page's own session, as the client does. */
+async function apiGet<T>(s: BrowserSession, path: string): Promise<T> {
+  const res = await s.page.request.get(server.url + path, { headers: { 'X-Requested-With': 'Bayslate', Accept: 'application/json' } });
+  expect(res.status(), `${path} answered ${res.status()}`).toBe(200);
+  return (await res.json()) as T;
+}
+async function ternId(s: BrowserSession): Promise<number> {
+  const { builds } = await apiGet<{ builds: { id: number; slug: string }[] }>(s, '/api/builds');
+  const b = builds.find((x) => x.slug === 'project-tern');
+  expect(b, 'the demo build exists').toBeTruthy();
+  return b!.id;
+}
+async function upgradeByTitle(s: BrowserSession, buildId: number, title: string) {
+  const { upgrades } = await apiGet<{ upgrades: { id: number; title: string; prerequisiteIds: number[] }[] }>(s, `/api/builds/${buildId}/upgrades?pageSize=500`);
+  const u = upgrades.find((x) => x.title === title);
+  expect(u, `upgrade "${title}" exists`).toBeTruthy();
+  return u!;
+}
+/** Picks an option of a naive-ui select inside the given form item. */
+async function choose(page: Page, scope: ReturnType<Page['locator']>, option: string) {
+  await scope.locator('.n-base-selection').first().click();
+  await page.locator('.n-base-select-option', { hasText: option }).first().click();
+}
+const drawer = (page: Page) => page.locator('.n-drawer');
+const message = (page: Page, text: string) => page.locator('.n-message', { hasText: text }).first().waitFor();
+
+describe('backlog in the browser', () => {
+  it('producer creates an upgrade, edits it, links a prerequisite, sees a loop refused and imports parts', async () => {
+    const s = await openBrowser({ server });
+    const { page } = s;
+    try {
+      await signIn(s, 'producer');
+      const buildId = await ternId(s);
+      await page.getByRole('link', { name: 'Open the backlog of Project Tern' }).click();
+      await page.waitForURL(/\/backlog/);
+      await page.getByRole('button', { name: 'Projector LED headlamps' }).waitFor();
+      await audit(s, 'backlog (producer)');
+
+      // Filter by area: only rear upgrades remain.
+      await choose(page, page.locator('[data-test="filter-area"]'), 'Rear');
+      await page.getByRole('button', { name: 'Power liftgate' }).waitFor();
+      await page.getByRole('button', { name: 'Projector LED headlamps' }).waitFor({ state: 'detached' });
+      await page.getByRole('button', { name: 'Clear filters' }).first().click();
+      await page.getByRole('button', { name: 'Projector LED headlamps' }).waitFor();
+
+      // Create.
+      await page.locator('[data-test="new-upgrade"]').click();
+      const modal = page.locator('.n-modal');
+      await modal.getByLabel('Title').fill('Puddle lamps in the mirrors');
+      await choose(page, modal.locator('.n-form-item', { hasText: 'Area' }), 'Sides');
+      await modal.getByLabel('Estimated hours').fill('1.5');
+      await audit(s, 'new upgrade form');
+      await modal.getByRole('button', { name: 'Add to the backlog' }).click();
+      await message(page, 'added to the backlog');
+      await drawer(page).getByText('Puddle lamps in the mirrors').first().waitFor();
+      await page.waitForURL(/upgrade=\d+/);
+      const created = await upgradeByTitle(s, buildId, 'Puddle lamps in the mirrors');
+      await audit(s, 'upgrade drawer (producer)');
+
+      // Edit.
+      await drawer(page).getByRole('button', { name: 'Edit details' }).click();
+      await drawer(page).getByLabel('Estimated hours').fill('2.5');
+      await drawer(page).getByLabel('Replaces (stock part)').fill('Plain mirror caps');
+      await drawer(page).getByRole('button', { name: 'Save changes' }).click();
+      await message(page, 'Upgrade saved.');
+      await drawer(page).getByText('2.5 h estimated').waitFor();
+      await drawer(page).getByText('Plain mirror caps').first().waitFor();
+
+      // Link a prerequisite: the mirrors go in first.
+      const mirrors = await upgradeByTitle(s, buildId, 'Power-folding mirrors with turn signals');
+      await drawer(page).locator('[data-test="prereq-select"]').click();
+      await page.keyboard.type('Power-folding');
+      await page.locator('.n-base-select-option', { hasText: 'Power-folding mirrors with turn signals' }).first().click();
+      await page.keyboard.press('Escape').catch(() => undefined);
+      await drawer(page).getByRole('button', { name: 'Save prerequisites' }).click();
+      await message(page, 'Prerequisites saved.');
+      expect((await upgradeByTitle(s, buildId, 'Puddle lamps in the mirrors')).prerequisiteIds).toEqual([mirrors.id]);
+      // The history records the change.
+      await drawer(page).locator('#ud-activity').waitFor();
+      await audit(s, 'drawer after edits');
+
+      // A loop is refused and its members named: the mirrors may not wait for the puddle lamps.
+      await visit(s, `/builds/${buildId}/backlog?upgrade=${mirrors.id}`);
+      await drawer(page).getByText('Power-folding mirrors with turn signals').first().waitFor();
+      await drawer(page).locator('[data-test="prereq-select"]').click();
+      await page.keyboard.type('Puddle');
+      await page.locator('.n-base-select-option', { hasText: 'Puddle lamps in the mirrors' }).first().click();
+      await page.keyboard.press('Escape').catch(() => undefined);
+      await drawer(page).getByRole('button', { name: 'Save prerequisites' }).click();
+      const cycle = drawer(page).locator('[data-test="cycle"]');
+      await cycle.waitFor();
+      const cycleText = await cycle.innerText();
+      expect(cycleText).toContain('Puddle lamps in the mirrors');
+      expect(cycleText).toContain('Power-folding mirrors with turn signals');
+      expect((await upgradeByTitle(s, buildId, 'Power-folding mirrors with turn signals')).prerequisiteIds).not.toContain(created.id);
+      await audit(s, 'cycle refused');
+
+      // Import parts from CSV: a file with a bad row is previewed with its line and reason and
+      // writes nothing; the corrected file imports.
+      await page.keyboard.press('Escape');
+      await page.getByRole('navigation', { name: 'Main navigation' }).getByRole('link', { name: 'Parts' }).click();
+      await page.waitForURL(/\/parts/);
+      await page.locator('[data-test="group-to-order"]').waitFor();
+      await audit(s, 'parts (producer)');
+      const header = 'upgrade,partNumber,description,quantity,unitCost,retailPrice,supplier,condition,state';
+      const bad = [header, 'Puddle lamps in the mirrors,HT-PDL-6320,Puddle lamp pair,2,34.50,59.00,Larkfield Electrical,new,to_order', 'Puddle lamps in the mirrors,HT-PDL-6321,Puddle lamp harness,-1,12.00,,Larkfield Electrical,new,to_order'].join('\n');
+      await page.getByRole('button', { name: 'Import parts CSV' }).click();
+      await page.locator('[data-test="csv-file"]').setInputFiles({ name: 'puddle-parts.csv', mimeType: 'text/csv', buffer: Buffer.from(bad) });
+      const problems = page.locator('[data-test="csv-errors"]');
+      await problems.waitFor();
+      expect(await problems.innerText()).toMatch(/Line 3/);
+      expect(await page.locator('[data-test="csv-import"]').isDisabled()).toBe(true);
+      await audit(s, 'csv preview with errors');
+      const good = bad.replace(',-1,', ',1,');
+      await page.locator('[data-test="csv-file"]').setInputFiles({ name: 'puddle-parts.csv', mimeType: 'text/csv', buffer: Buffer.from(good) });
+      await page.locator('[data-test="csv-ok"]').waitFor();
+      await page.locator('[data-test="csv-import"]').click();
+      await message(page, '2 parts imported.');
+      await page.locator('[data-test="group-to-order"] [data-test="part-HT-PDL-6320"]').waitFor();
+      await page.locator('[data-test="group-to-order"] [data-test="part-HT-PDL-6321"]').waitFor();
+      const { parts } = await apiGet<{ parts: { partNumber: string; upgradeId: number }[] }>(s, `/api/builds/${buildId}/parts?upgradeId=${created.id}`);
+      expect(parts.map((p) => p.partNumber).sort()).toEqual(['HT-PDL-6320', 'HT-PDL-6321']);
+      await audit(s, 'parts after import');
+    } finally {
+      await s.close();
+    }
+  });
+
+  it('installer at phone width logs hours and marks a part received', async () => {
+    const s = await openBrowser({ server, phone: true });
+    const { page } = s;
+    try {
+      await signIn(s, 'installer');
+      const buildId = await ternId(s);
+      await visit(s, `/builds/${buildId}/backlog`);
+      const wiring = await upgradeByTitle(s, buildId, 'Trailer wiring, 7-pin');
+      await page.locator(`[data-test="open-${wiring.id}"]`).click();
+      await drawer(page).getByRole('button', { name: 'Log hours' }).waitFor();
+      // No money for installers, and no editing of the upgrade itself.
+      expect(await drawer(page).getByRole('button', { name: 'Edit details' }).count()).toBe(0);
+      expect(await drawer(page).getByText(/Cost \$/).count()).toBe(0);
+      await audit(s, 'drawer (installer, phone)');
+      const before = (await apiGet<{ labour: { hours: number }[] }>(s, `/api/builds/${buildId}/labour?upgradeId=${wiring.id}`)).labour.length;
+      await drawer(page).getByRole('button', { name: 'Log hours' }).click();
+      await drawer(page).getByLabel('Hours').fill('1.5');
+      await drawer(page).getByLabel('Note').fill('Routed the harness along the frame rail');
+      await audit(s, 'log hours form (phone)');
+      await drawer(page).getByRole('button', { name: 'Save hours' }).click();
+      await message(page, '1.5 h logged.');
+      await drawer(page).getByText('Routed the harness along the frame rail').waitFor();
+      const after = (await apiGet<{ labour: { hours: number; note: string | null }[] }>(s, `/api/builds/${buildId}/labour?upgradeId=${wiring.id}`)).labour;
+      expect(after.length).toBe(before + 1);
+      expect(after.some((l) => l.hours === 1.5 && l.note === 'Routed the harness along the frame rail')).toBe(true);
+
+      // Receive a part from the parts screen.
+      await visit(s, `/builds/${buildId}/parts`);
+      const line = page.locator('[data-test="group-on-order"] [data-test="part-HT-LFT-8400"]');
+      await line.waitFor();
+      const button = line.getByRole('button', { name: /Mark received/ });
+      const box = await button.boundingBox();
+      expect(box!.height).toBeGreaterThanOrEqual(48);
+      await button.click();
+      await message(page, 'HT-LFT-8400 received.');
+      await page.locator('[data-test="group-received"] [data-test="part-HT-LFT-8400"]').waitFor();
+      const { parts } = await apiGet<{ parts: { partNumber: string; state: string; unitCostCents?: number }[] }>(s, `/api/builds/${buildId}/parts?pageSize=500`);
+      expect(parts.find((p) => p.partNumber === 'HT-LFT-8400')!.state).toBe('received');
+      expect(parts.every((p) => !('unitCostCents' in p))).toBe(true);
+      await audit(s, 'parts after receiving (phone)');
+    } finally {
+      await s.close();
+    }
+  });
+
+  it('owner sees spend against budget on the builds list', async () => {
+    const s = await openBrowser({ server });
+    const { page } = s;
+    try {
+      await signIn(s, 'owner');
+      const card = page.locator('[data-test="build-project-tern"]');
+      await card.waitFor();
+      const spend = card.locator('[data-test="spend"]');
+      await spend.waitFor();
+      const text = await spend.innerText();
+      expect(text).toMatch(/\$[\d,]+\.\d\d spent of \$[\d,]+\.\d\d budget/);
+      expect(await card.locator('[data-test="progress"]').innerText()).toMatch(/\d+ of \d+ upgrades done/);
+      // The figure matches what the API computes.
+      const { builds } = await apiGet<{ builds: { slug: string; spentCents: number }[] }>(s, '/api/builds');
+      const cents = builds.find((b) => b.slug === 'project-tern')!.spentCents;
+      expect(text).toContain(new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' }).format(cents / 100));
+      await audit(s, 'builds list (owner)');
+      await card.getByRole('link', { name: /Settings/ }).click();
+      await page.getByLabel('VIN').waitFor();
+      await page.getByLabel('Budget (dollars)').waitFor();
+      await audit(s, 'build settings (owner)');
+    } finally {
+      await s.close();
+    }
+  });
+
+  it('marketing sees retail prices but no shop cost', async () => {
+    const s = await openBrowser({ server });
+    const { page } = s;
+    try {
+      await signIn(s, 'marketing');
+      const card = page.locator('[data-test="build-project-tern"]');
+      await card.waitFor();
+      expect(await card.locator('[data-test="spend"]').count()).toBe(0);
+      expect(await card.innerText()).not.toMatch(/spent|budget/i);
+      const buildId = await ternId(s);
+      const lamps = await upgradeByTitle(s, buildId, 'Projector LED headlamps');
+      await visit(s, `/builds/${buildId}/backlog?upgrade=${lamps.id}`);
+      const line = drawer(page).locator('[data-test="part-HT-LMP-4410-L"]');
+      await line.waitFor();
+      expect(await line.innerText()).toContain('Retail $689.00');
+      expect(await drawer(page).innerText()).not.toMatch(/Cost \$|Parts cost|Value added|adds \$/);
+      expect(await drawer(page).getByRole('button', { name: 'Log hours' }).count()).toBe(0);
+      expect(await drawer(page).getByRole('button', { name: 'Edit details' }).count()).toBe(0);
+      await audit(s, 'drawer (marketing)');
+      await visit(s, `/builds/${buildId}/parts`);
+      await page.locator('[data-test="part-HT-LMP-4410-L"] [data-test="retail"]').waitFor();
+      expect(await page.locator('main').innerText()).not.toMatch(/Cost \$/);
+      expect(await page.getByRole('button', { name: /Mark received/ }).count()).toBe(0);
+    } finally {
+      await s.close();
+    }
+  });
+});
