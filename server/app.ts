@@ -15,7 +15,7 @@ let sessionPool: pg.Pool | null = null;
 
 /** The pool the session store uses (also used by the bench's bare route). */
 export function getSessionPool() {
-  sessionPool ??= new pg.Pool({ connectionString: config().DATABASE_URL, max: 5 });
+  sessionPool ??= new pg.Pool({ connectionString: config().DATABASE_URL, max: config().DATABASE_POOL_MAX });
   return sessionPool;
 }
 
@@ -62,7 +62,8 @@ export function createApp(): Express {
   if (c.SERVE_CLIENT && fs.existsSync(path.join(dist, 'index.html'))) {
     app.use(express.static(dist, { index: false, maxAge: '1h' }));
     // Client-side routes: every other GET answers the app shell.
-    app.get(/^\/(?!api\/).*/, (_req, res) => res.sendFile(path.join(dist, 'index.html')));
+    // `root` keeps a client folder under a dot-folder (.data/dist-…) servable: send refuses dot segments only below it.
+    app.get(/^\/(?!api\/).*/, (_req, res) => res.sendFile('index.html', { root: dist }));
   }
   app.use(errorHandler);
   return app;

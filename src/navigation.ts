@@ -17,8 +17,10 @@ export const mainNav: NavItem[] = [
 
 /** Places inside one build (route names take the :buildId param). */
 export const buildNav: NavItem[] = [
+  { label: 'Overview', name: 'overview', roles: ['producer'], icon: 'chart' },
   { label: 'Backlog', name: 'backlog', roles: 'any', icon: 'list' },
   { label: 'Parts', name: 'parts', roles: 'any', icon: 'box' },
+  { label: 'Media', name: 'media', roles: 'any', icon: 'image' },
   { label: 'Settings', name: 'build-settings', roles: ['producer'], icon: 'settings' },
 ];
 

@@ -42,11 +42,13 @@ export async function verifyPassword(email: string, password: string) {
 export function installAuth(app: Express, pool: pg.Pool) {
   const c = config();
   const PgStore = connectPgSimple(session);
+  const store = new PgStore({ pool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: c.isTest ? false : 600 });
+  throttleTouches(store);
   app.use(
     session({
       name: SESSION_COOKIE,
       secret: c.SESSION_SECRET,
-      store: new PgStore({ pool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: c.isTest ? false : 600 }),
+      store,
       resave: false,
       saveUninitialized: false,
       rolling: true,
@@ -70,15 +72,48 @@ export function installAuth(app: Express, pool: pg.Pool) {
   );
   passport.serializeUser((user, done) => done(null, user.id));
   passport.deserializeUser((id: number, done) => {
+    const hit = recentUsers.get(id);
+    if (hit && Date.now() - hit.at < USER_CACHE_MS) return done(null, hit.user);
     User.findByPk(id).then(
       // A deactivated person is signed out at once: no user, and the session is dropped below.
-      (user) => done(null, user && user.active ? (user.toPublic() as Express.User) : false),
+      (user) => {
+        const u = user && user.active ? (user.toPublic() as Express.User) : false;
+        if (u) recentUsers.set(id, { user: u, at: Date.now() });
+        else recentUsers.delete(id);
+        done(null, u);
+      },
       (err) => done(err),
     );
   });
   app.use(passport.initialize());
   app.use(passport.session());
   app.use(enforceSessionLimits);
+}
+
+// Under load every request would look its person up again. A looked-up person is reused for at most
+// USER_CACHE_MS, and any change to a user row in this process forgets it at once, so a deactivation
+// or a change of roles takes effect on the next request here (other processes: within that time).
+const USER_CACHE_MS = 2000;
+const recentUsers = new Map<number, { user: Express.User; at: number }>();
+User.addHook('afterSave', (u: User) => void recentUsers.delete(u.id));
+User.addHook('afterDestroy', (u: User) => void recentUsers.delete(u.id));
+User.addHook('afterBulkUpdate', () => recentUsers.clear());
+User.addHook('afterBulkDestroy', () => recentUsers.clear());
+
+// rolling: true re-writes the session's expiry on every request. Doing it at most once a minute per
+// session (the idle window is hours) saves a write per request; the same idea as connect-mongo's touchAfter.
+const TOUCH_EVERY_MS = 60_000;
+function throttleTouches(store: session.Store) {
+  const touch = store.touch?.bind(store);
+  if (!touch) return;
+  const last = new Map<string, number>();
+  store.touch = (sid, sess, cb) => {
+    const now = Date.now();
+    if (now - (last.get(sid) ?? 0) < TOUCH_EVERY_MS) return cb?.();
+    if (last.size > 10_000) last.clear();
+    last.set(sid, now);
+    touch(sid, sess, cb);
+  };
 }
 
 /** Ends sessions past the absolute limit, or whose person was deactivated. */

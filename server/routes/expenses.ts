@@ -4,13 +4,14 @@ import { z } from 'zod';
 import { requireRole } from '../middleware/roles';
 import { validate, validQuery } from '../middleware/validate';
 import { buildOf, loadBuild } from '../middleware/build';
-import { id } from '../../shared/schemas/common';
+import { inBuild } from './upgrades';
+import { Expense } from '../models';
 import { upgradeFilterQuery } from '../../shared/schemas/removedPart';
 import { createExpenseSchema, updateExpenseSchema } from '../../shared/schemas/expense';
 import { forViewer } from '../services/visibility';
 import * as service from '../services/expenses';
 
-const params = z.object({ expenseId: id }).passthrough();
+const recordInBuild = inBuild(Expense, 'expenseId', 'Expense');
 const recordId = (req: Request) => Number(req.params.expenseId);
 
 export function expensesRouter() {
@@ -24,10 +25,10 @@ export function expensesRouter() {
   router.post('/', requireRole('producer'), validate(createExpenseSchema), async (req, res) => {
     res.status(201).json({ expense: forViewer(await service.createExpense(req.user!, buildOf(req), req.body), req.user) });
   });
-  router.patch('/:expenseId', requireRole('producer'), validate(params, 'params'), validate(updateExpenseSchema), async (req, res) => {
+  router.patch('/:expenseId', requireRole('producer'), recordInBuild, validate(updateExpenseSchema), async (req, res) => {
     res.json({ expense: forViewer(await service.updateExpense(req.user!, buildOf(req), recordId(req), req.body), req.user) });
   });
-  router.delete('/:expenseId', requireRole('producer'), validate(params, 'params'), async (req, res) => {
+  router.delete('/:expenseId', requireRole('producer'), recordInBuild, async (req, res) => {
     await service.deleteExpense(req.user!, buildOf(req), recordId(req));
     res.status(204).end();
   });

@@ -4,13 +4,14 @@ import { z } from 'zod';
 import { ANY_ROLE, requireRole } from '../middleware/roles';
 import { validate, validQuery } from '../middleware/validate';
 import { buildOf, loadBuild } from '../middleware/build';
-import { id } from '../../shared/schemas/common';
+import { inBuild } from './upgrades';
+import { LabourEntry } from '../models';
 import { upgradeFilterQuery } from '../../shared/schemas/removedPart';
 import { createLabourSchema, updateLabourSchema } from '../../shared/schemas/labour';
 import { forViewer } from '../services/visibility';
 import * as service from '../services/labour';
 
-const params = z.object({ labourId: id }).passthrough();
+const recordInBuild = inBuild(LabourEntry, 'labourId', 'Labour entry');
 const recordId = (req: Request) => Number(req.params.labourId);
 
 export function labourRouter() {
@@ -24,10 +25,10 @@ export function labourRouter() {
   router.post('/', requireRole('producer', 'installer'), validate(createLabourSchema), async (req, res) => {
     res.status(201).json({ labourEntry: forViewer(await service.createLabour(req.user!, buildOf(req), req.body), req.user) });
   });
-  router.patch('/:labourId', requireRole('producer', 'installer'), validate(params, 'params'), validate(updateLabourSchema), async (req, res) => {
+  router.patch('/:labourId', requireRole('producer', 'installer'), recordInBuild, validate(updateLabourSchema), async (req, res) => {
     res.json({ labourEntry: forViewer(await service.updateLabour(req.user!, buildOf(req), recordId(req), req.body), req.user) });
   });
-  router.delete('/:labourId', requireRole('producer', 'installer'), validate(params, 'params'), async (req, res) => {
+  router.delete('/:labourId', requireRole('producer', 'installer'), recordInBuild, async (req, res) => {
     await service.deleteLabour(req.user!, buildOf(req), recordId(req));
     res.status(204).end();
   });

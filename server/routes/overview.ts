@@ -3,12 +3,19 @@ import { Router, type Request, type Response } from 'express';
 import { requireRole } from '../middleware/roles';
 import { buildOf, loadBuild } from '../middleware/build';
 import { cachedOverviewBody, freshOverviewBody, overviewStamp } from '../services/overview';
+import type { Entry } from '../services/overviewCache';
 
-function send(req: Request, res: Response, entry: { body: Buffer; etag: string }) {
+function send(req: Request, res: Response, entry: Entry) {
   res.set('ETag', entry.etag);
   res.set('Cache-Control', 'private, no-cache');
+  res.set('Vary', 'Accept-Encoding');
   if (req.fresh) return res.status(304).end();
-  res.type('application/json').send(entry.body);
+  res.type('application/json');
+  if (entry.gzipped && req.acceptsEncodings('gzip', 'identity') === 'gzip') {
+    res.set('Content-Encoding', 'gzip');
+    return res.send(entry.gzipped);
+  }
+  res.send(entry.body);
 }
 
 export function overviewRouter() {

@@ -4,14 +4,15 @@ import { z } from 'zod';
 import { ANY_ROLE, requireRole } from '../middleware/roles';
 import { validate, validQuery } from '../middleware/validate';
 import { buildOf, loadBuild } from '../middleware/build';
-import { id } from '../../shared/schemas/common';
+import { inBuild } from './upgrades';
+import { Part } from '../models';
 import { createPartSchema, partListQuery, updatePartSchema } from '../../shared/schemas/part';
 import { forViewer } from '../services/visibility';
 import * as parts from '../services/parts';
 import { importPartsCsv } from '../services/csv/parts';
 import { csvBody, sendImportResult } from '../services/csv/http';
 
-const params = z.object({ partId: id }).passthrough();
+const partInBuild = inBuild(Part, 'partId', 'Part');
 const importQuery = z.object({ dryRun: z.enum(['0', '1', 'true', 'false']).optional() });
 const partId = (req: Request) => Number(req.params.partId);
 
@@ -29,10 +30,10 @@ export function partsRouter() {
     const dryRun = ['1', 'true'].includes(validQuery<{ dryRun?: string }>(req).dryRun ?? '');
     sendImportResult(res, await importPartsCsv(req.user!, buildOf(req), csvBody(req), dryRun));
   });
-  router.patch('/:partId', requireRole('producer', 'marketing', 'installer'), validate(params, 'params'), validate(updatePartSchema), async (req, res) => {
+  router.patch('/:partId', requireRole('producer', 'marketing', 'installer'), partInBuild, validate(updatePartSchema), async (req, res) => {
     res.json({ part: forViewer(await parts.updatePart(req.user!, buildOf(req), partId(req), req.body), req.user) });
   });
-  router.delete('/:partId', requireRole('producer'), validate(params, 'params'), async (req, res) => {
+  router.delete('/:partId', requireRole('producer'), partInBuild, async (req, res) => {
     await parts.deletePart(req.user!, buildOf(req), partId(req));
     res.status(204).end();
   });

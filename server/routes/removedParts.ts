@@ -4,13 +4,14 @@ import { z } from 'zod';
 import { ANY_ROLE, requireRole } from '../middleware/roles';
 import { validate, validQuery } from '../middleware/validate';
 import { buildOf, loadBuild } from '../middleware/build';
-import { id } from '../../shared/schemas/common';
+import { inBuild } from './upgrades';
+import { RemovedPart } from '../models';
 import { upgradeFilterQuery } from '../../shared/schemas/removedPart';
 import { createRemovedPartSchema, updateRemovedPartSchema } from '../../shared/schemas/removedPart';
 import { forViewer } from '../services/visibility';
 import * as service from '../services/removedParts';
 
-const params = z.object({ removedPartId: id }).passthrough();
+const recordInBuild = inBuild(RemovedPart, 'removedPartId', 'Removed part');
 const recordId = (req: Request) => Number(req.params.removedPartId);
 
 export function removedPartsRouter() {
@@ -24,10 +25,10 @@ export function removedPartsRouter() {
   router.post('/', requireRole('producer'), validate(createRemovedPartSchema), async (req, res) => {
     res.status(201).json({ removedPart: forViewer(await service.createRemovedPart(req.user!, buildOf(req), req.body), req.user) });
   });
-  router.patch('/:removedPartId', requireRole('producer'), validate(params, 'params'), validate(updateRemovedPartSchema), async (req, res) => {
+  router.patch('/:removedPartId', requireRole('producer'), recordInBuild, validate(updateRemovedPartSchema), async (req, res) => {
     res.json({ removedPart: forViewer(await service.updateRemovedPart(req.user!, buildOf(req), recordId(req), req.body), req.user) });
   });
-  router.delete('/:removedPartId', requireRole('producer'), validate(params, 'params'), async (req, res) => {
+  router.delete('/:removedPartId', requireRole('producer'), recordInBuild, async (req, res) => {
     await service.deleteRemovedPart(req.user!, buildOf(req), recordId(req));
     res.status(204).end();
   });

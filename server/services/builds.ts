@@ -95,6 +95,7 @@ export async function createBuild(actor: Person, input: CreateBuildInput) {
       { ...rest, vin: rest.vin ?? null, mileage: rest.mileage ?? null, budgetCents: rest.budgetCents ?? null, labourRateCents: rest.labourRateCents ?? null, campaign: rest.campaign ?? null, summary: rest.summary ?? null, vinCheckOverridden: !!(rest.vin && vinCheckOverridden) },
       { transaction: t },
     );
+    await build.reload({ transaction: t }); // version and database defaults
     await record(t, { actor, buildId: build.id, entity: 'build', entityId: build.id, action: 'create', summary: `Created build ${build.name}`, after: toBuildRecord(build) });
     return toBuildRecord(build);
   });

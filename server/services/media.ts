@@ -193,7 +193,7 @@ export async function listMedia(build: Build, person: Person, q: MediaListQuery)
 }
 
 /** One media row of this build that this person may see (invoices: money roles only), else 404. */
-async function findVisible(build: Build, person: Person, mediaId: number) {
+export async function findVisible(build: Build, person: Person, mediaId: number) {
   const m = await Media.findOne({ where: { id: mediaId, buildId: build.id }, include: [withUploader] });
   if (!m || (isInvoice(m) && !seesMoney(person))) throw notFound('Media');
   return m;
@@ -212,8 +212,7 @@ function mayChange(person: Person, m: Media, action: 'edit' | 'delete') {
   throw forbidden(action === 'edit' ? 'Only the producer, the owner or the person who uploaded it can change this.' : 'Only the producer or the owner can delete this.');
 }
 
-export async function updateMedia(build: Build, person: Person, mediaId: number, patch: MediaPatch) {
-  const m = await findVisible(build, person, mediaId);
+export async function updateMedia(build: Build, person: Person, m: Media, patch: MediaPatch) {
   mayChange(person, m, 'edit');
   const before = { caption: m.caption, stage: m.stage };
   await sequelize.transaction(async (t) => {
@@ -225,8 +224,7 @@ export async function updateMedia(build: Build, person: Person, mediaId: number,
   return toRecord(m, uploaderName(m));
 }
 
-export async function deleteMedia(build: Build, person: Person, mediaId: number) {
-  const m = await findVisible(build, person, mediaId);
+export async function deleteMedia(build: Build, person: Person, m: Media) {
   mayChange(person, m, 'delete');
   const keys = [m.objectKey, ...(m.thumbKey ? [m.thumbKey] : [])];
   // Row first: if removing the objects then fails, they are leftovers the sweep removes —
@@ -239,7 +237,6 @@ export async function deleteMedia(build: Build, person: Person, mediaId: number)
 }
 
 /** A short-lived URL that downloads the object under its original name. */
-export async function downloadUrl(build: Build, person: Person, mediaId: number) {
-  const m = await findVisible(build, person, mediaId);
+export async function downloadUrl(m: Media) {
   return presignGet(m.objectKey, { expiresIn: Math.min(300, config().MEDIA_URL_TTL_SECONDS), disposition: contentDisposition(m.originalName), contentType: m.contentType });
 }

@@ -17,11 +17,15 @@ export const OVERVIEW_CREDIT_RULE: EvCreditRule = '0/100';
 const today = () => new Date().toISOString().slice(0, 10);
 const latest = (dates: (string | null | undefined)[]) => dates.reduce<string>((a, d) => (d && d > a ? d : a), '');
 
+/** Ratios are sent to six significant digits: more is noise on a screen and only adds bytes. */
+const ratio = (x: number | null) => (x === null ? null : Number(x.toPrecision(6)));
+
 function costRow(r: CostRow, labourCosted: boolean): OverviewCostRow {
   return {
     ...r,
     labourCents: labourCosted ? r.labourCents : null,
-    hoursRatio: r.estimatedHours > 0 ? r.actualHours / r.estimatedHours : null,
+    valuePerDollar: ratio(r.valuePerDollar),
+    hoursRatio: r.estimatedHours > 0 ? ratio(r.actualHours / r.estimatedHours) : null,
   };
 }
 

@@ -4,11 +4,14 @@
 // requests compute afresh until it is back.
 import pg from 'pg';
 import { createHash } from 'node:crypto';
+import { gzipSync } from 'node:zlib';
 import { config } from '../config';
 
-interface Entry {
+export interface Entry {
   day: string;
   body: Buffer;
+  /** The same bytes gzipped once, for clients that accept it (a browser always does). */
+  gzipped: Buffer | null;
   etag: string;
 }
 
@@ -87,8 +90,10 @@ export function cached(buildId: number, day: string): Entry | null {
 /** Serialises the figures once; keeps them when no change notice came in since `before`. */
 export function store(buildId: number, day: string, before: string, value: unknown): Entry {
   const body = Buffer.from(JSON.stringify(value));
-  const entry = { day, body, etag: `W/"${createHash('sha1').update(body).digest('base64url')}"` };
-  if (listening && before.startsWith('1:') && before === stamp(buildId)) entries.set(buildId, entry);
+  const keep = listening && before.startsWith('1:') && before === stamp(buildId);
+  // Compressing pays off only for a copy that will be sent many times.
+  const entry = { day, body, gzipped: keep && body.length > 1024 ? gzipSync(body, { level: 6 }) : null, etag: `W/"${createHash('sha1').update(body).digest('base64url')}"` };
+  if (keep) entries.set(buildId, entry);
   return entry;
 }
 

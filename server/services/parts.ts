@@ -32,6 +32,7 @@ export async function createPart(actor: Person, build: Build, input: CreatePartI
   return sequelize.transaction(async (t) => {
     const u = await requireUpgradeInBuild(build.id, input.upgradeId, 'upgradeId', t);
     const p = await Part.create({ ...(input as Required<CreatePartInput>), buildId: build.id }, { transaction: t });
+    await p.reload({ transaction: t }); // version and database defaults
     const rec = toPartRecord(p);
     await record(t, { actor, buildId: build.id, entity: 'part', entityId: p.id, action: 'create', summary: `Added part ${p.partNumber} to ${u!.title}`, after: rec });
     return rec;

@@ -105,6 +105,7 @@ export async function createUpgrade(actor: Person, build: Build, input: CreateUp
     const prereqs = await requirePrerequisitesInBuild(build.id, prerequisiteIds, t);
     if (fields.installState === 'installed' && !fields.installedOn) fields.installedOn = today();
     const u = await Upgrade.create({ ...(fields as Required<typeof fields>), buildId: build.id }, { transaction: t });
+    await u.reload({ transaction: t }); // version and database defaults
     // A new upgrade has no dependants yet, so its prerequisites cannot close a cycle.
     if (prereqs.length) await UpgradePrerequisite.bulkCreate(prereqs.map((p) => ({ buildId: build.id, upgradeId: u.id, prerequisiteId: p })), { transaction: t });
     const rec = toUpgradeRecord(u, prereqs);

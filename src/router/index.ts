@@ -14,9 +14,13 @@ declare module 'vue-router' {
 
 /** Screens inside one build; later features add theirs here. */
 export const buildRoutes: RouteRecordRaw[] = [
-  { path: '', redirect: { name: 'backlog' } },
+  // Owner and producer land on the build's numbers; everyone else on the backlog.
+  { path: '', redirect: (to) => ({ name: useSessionStore().can('producer') ? 'overview' : 'backlog', params: to.params }) },
+  { path: 'overview', name: 'overview', component: () => import('@/views/OverviewView.vue'), meta: { roles: ['producer'], title: 'Overview' } },
+  { path: 'report', name: 'build-report', component: () => import('@/views/BuildReportView.vue'), meta: { roles: ['producer'], title: 'Build report' } },
   { path: 'backlog', name: 'backlog', component: () => import('@/views/BacklogView.vue'), meta: { title: 'Backlog' } },
   { path: 'parts', name: 'parts', component: () => import('@/views/PartsView.vue'), meta: { title: 'Parts' } },
+  { path: 'media', name: 'media', component: () => import('@/views/MediaLibraryView.vue'), meta: { title: 'Media' } },
   { path: 'settings', name: 'build-settings', component: () => import('@/views/BuildSettingsView.vue'), meta: { roles: ['producer'], title: 'Build settings' } },
 ];
 

@@ -1,16 +1,18 @@
 // Builds API (routes/builds.ts) and the Project Tern demo data (seeders/0002-project-tern.ts).
 import { describe, it, expect, beforeAll } from 'vitest';
-import { anonymous, signInAs } from '../helpers/api';
+import { anonymous, agentsByRole, type DemoRole } from '../helpers/api';
 import { counts } from '../helpers/db';
 import { Build, Upgrade, UpgradePrerequisite, Part, RemovedPart, LabourEntry, Expense } from '../../server/models';
 import { checkVin } from '../../shared/vin';
 import { AREAS, isUpgradeDone } from '../../shared/domain';
 
 let ternId: number;
+let as: Record<DemoRole, Awaited<ReturnType<typeof agentsByRole>>[DemoRole]>;
 const newBuild = (over: Record<string, unknown> = {}) => ({ slug: 'skua-build', name: 'Skua build', year: 2021, make: 'Halvorsen', model: 'Skua', ...over });
 
 beforeAll(async () => {
   ternId = (await Build.findOne({ where: { slug: 'project-tern' } }))!.id;
+  as = await agentsByRole();
 });
 
 describe('Project Tern demo data', () => {
@@ -54,7 +56,7 @@ describe('GET /api/builds', () => {
     expect((await anonymous().get('/api/builds')).status).toBe(401);
   });
   it('owner sees progress, budget and spend', async () => {
-    const res = await (await signInAs('owner')).get('/api/builds');
+    const res = await as.owner.get('/api/builds');
     expect(res.status).toBe(200);
     const tern = res.body.builds.find((b: { slug: string }) => b.slug === 'project-tern');
     expect(tern.upgradesTotal).toBeGreaterThanOrEqual(24);
@@ -64,7 +66,7 @@ describe('GET /api/builds', () => {
   });
   it('installer and marketing receive no budget, labour rate or spend (absent, not null)', async () => {
     for (const role of ['installer', 'marketing'] as const) {
-      const res = await (await signInAs(role)).get('/api/builds');
+      const res = await as[role].get('/api/builds');
       const tern = res.body.builds.find((b: { slug: string }) => b.slug === 'project-tern');
       expect(tern).not.toHaveProperty('budgetCents');
       expect(tern).not.toHaveProperty('labourRateCents');
@@ -77,7 +79,7 @@ describe('GET /api/builds', () => {
 describe('POST /api/builds', () => {
   it('producer creates a build (201) and an activity row is written', async () => {
     const before = await counts('builds', 'activities');
-    const res = await (await signInAs('producer')).post('/api/builds').send(newBuild());
+    const res = await as.producer.post('/api/builds').send(newBuild());
     expect(res.status).toBe(201);
     expect(res.body.build).toMatchObject({ slug: 'skua-build', version: 0, isPublic: false });
     expect(res.body.build).not.toHaveProperty('calendarToken');
@@ -86,21 +88,21 @@ describe('POST /api/builds', () => {
     expect(after.activities).toBe(before.activities + 1);
   });
   it('producer may not set the budget or labour rate (403), the owner may', async () => {
-    const producer = await signInAs('producer');
+    const producer = as.producer;
     const res = await producer.post('/api/builds').send(newBuild({ slug: 'p-budget', budgetCents: 100 }));
     expect(res.status).toBe(403);
-    const owner = await signInAs('owner');
+    const owner = as.owner;
     const ok = await owner.post('/api/builds').send(newBuild({ slug: 'o-budget', budgetCents: 100, labourRateCents: 8000 }));
     expect(ok.status).toBe(201);
     expect(ok.body.build.budgetCents).toBe(100);
   });
   it('installer and marketing get 403', async () => {
     for (const role of ['installer', 'marketing'] as const) {
-      expect((await (await signInAs(role)).post('/api/builds').send(newBuild({ slug: `x-${role}` }))).status).toBe(403);
+      expect((await as[role].post('/api/builds').send(newBuild({ slug: `x-${role}` }))).status).toBe(403);
     }
   });
   it('a wrong VIN check digit answers 400 naming vin, unless vinCheckOverridden is sent', async () => {
-    const producer = await signInAs('producer');
+    const producer = as.producer;
     const before = await counts('builds', 'activities');
     // 7HVTN2E55KC418206 passes; changing position 9 to 6 breaks the check digit (49 CFR 565 method).
     const bad = await producer.post('/api/builds').send(newBuild({ slug: 'vin-bad', vin: '7HVTN2E56KC418206' }));
@@ -128,7 +130,7 @@ describe('POST /api/builds', () => {
     ['isPublic', { isPublic: 'yes' }],
     ['calendarToken', { calendarToken: 'x' }],
   ])('bad %s answers 400 naming it and writes nothing', async (field, over) => {
-    const owner = await signInAs('owner');
+    const owner = as.owner;
     const before = await counts('builds', 'activities');
     const res = await owner.post('/api/builds').send(newBuild({ slug: 'bad-input', ...over }));
     expect(res.status).toBe(400);
@@ -136,26 +138,26 @@ describe('POST /api/builds', () => {
     expect(await counts('builds', 'activities')).toEqual(before);
   });
   it('a slug already in use answers 409', async () => {
-    const res = await (await signInAs('owner')).post('/api/builds').send(newBuild({ slug: 'project-tern' }));
+    const res = await as.owner.post('/api/builds').send(newBuild({ slug: 'project-tern' }));
     expect(res.status).toBe(409);
   });
 });
 
 describe('GET/PATCH/DELETE /api/builds/:buildId', () => {
   it('any role reads a build; money removed for installer and marketing', async () => {
-    const m = await (await signInAs('marketing')).get(`/api/builds/${ternId}`);
+    const m = await as.marketing.get(`/api/builds/${ternId}`);
     expect(m.status).toBe(200);
     expect(m.body.build.slug).toBe('project-tern');
     expect(m.body.build).not.toHaveProperty('budgetCents');
-    const o = await (await signInAs('owner')).get(`/api/builds/${ternId}`);
+    const o = await as.owner.get(`/api/builds/${ternId}`);
     expect(o.body.build.budgetCents).toBe(3_800_000);
   });
   it('unknown build answers 404', async () => {
-    expect((await (await signInAs('owner')).get('/api/builds/999999')).status).toBe(404);
-    expect((await (await signInAs('owner')).patch('/api/builds/999999').send({ version: 0, name: 'x' })).status).toBe(404);
+    expect((await as.owner.get('/api/builds/999999')).status).toBe(404);
+    expect((await as.owner.patch('/api/builds/999999').send({ version: 0, name: 'x' })).status).toBe(404);
   });
   it('producer renames a build; a stale version answers 409 with the current record', async () => {
-    const producer = await signInAs('producer');
+    const producer = as.producer;
     const created = (await producer.post('/api/builds').send(newBuild({ slug: 'patch-me' }))).body.build;
     const ok = await producer.patch(`/api/builds/${created.id}`).send({ version: created.version, name: 'Renamed' });
     expect(ok.status).toBe(200);
@@ -167,14 +169,14 @@ describe('GET/PATCH/DELETE /api/builds/:buildId', () => {
   });
   it('producer may not change the budget; the owner may', async () => {
     const b = (await Build.findByPk(ternId))!;
-    const p = await (await signInAs('producer')).patch(`/api/builds/${ternId}`).send({ version: b.version, budgetCents: 1 });
+    const p = await as.producer.patch(`/api/builds/${ternId}`).send({ version: b.version, budgetCents: 1 });
     expect(p.status).toBe(403);
-    const o = await (await signInAs('owner')).patch(`/api/builds/${ternId}`).send({ version: b.version, budgetCents: 3_900_000 });
+    const o = await as.owner.patch(`/api/builds/${ternId}`).send({ version: b.version, budgetCents: 3_900_000 });
     expect(o.status).toBe(200);
     expect(o.body.build.budgetCents).toBe(3_900_000);
   });
   it('a changed VIN must pass its check digit again', async () => {
-    const owner = await signInAs('owner');
+    const owner = as.owner;
     const created = (await owner.post('/api/builds').send(newBuild({ slug: 'vin-change', vin: '7HVTN2E55KC418206' }))).body.build;
     const bad = await owner.patch(`/api/builds/${created.id}`).send({ version: created.version, vin: '7HVTN2E57KC418206' });
     expect(bad.status).toBe(400);
@@ -183,11 +185,11 @@ describe('GET/PATCH/DELETE /api/builds/:buildId', () => {
     expect(over.status).toBe(200);
   });
   it('only the owner deletes a build, with its upgrades and prerequisites', async () => {
-    const owner = await signInAs('owner');
+    const owner = as.owner;
     const created = (await owner.post('/api/builds').send(newBuild({ slug: 'delete-me' }))).body.build;
     const a = (await owner.post(`/api/builds/${created.id}/upgrades`).send({ title: 'A', area: 'front' })).body.upgrade;
     await owner.post(`/api/builds/${created.id}/upgrades`).send({ title: 'B', area: 'front', prerequisiteIds: [a.id] });
-    expect((await (await signInAs('producer')).delete(`/api/builds/${created.id}`)).status).toBe(403);
+    expect((await as.producer.delete(`/api/builds/${created.id}`)).status).toBe(403);
     const res = await owner.delete(`/api/builds/${created.id}`);
     expect(res.status).toBe(204);
     expect(await Build.findByPk(created.id)).toBeNull();

@@ -14,6 +14,13 @@ import { configureStorage, storageSettings, putBuffer, listKeys } from '../../se
 import { startFakeS3, type FakeS3 } from '../../server/storage/localS3';
 import { sweepOrphans } from '../../server/services/mediaSweep';
 
+// One sign-in per role for the whole file (sign-in is rate-limited).
+const agents = new Map<string, Promise<Agent>>();
+const as = (role: 'owner' | 'producer' | 'installer' | 'marketing') => {
+  if (!agents.has(role)) agents.set(role, signInAs(role));
+  return agents.get(role)!;
+};
+
 const sha = (b: Buffer) => createHash('sha256').update(b).digest('hex');
 type Agent = Awaited<ReturnType<typeof signInAs>>;
 
@@ -71,7 +78,7 @@ async function download(agent: Agent, id: number, buildId = build.id) {
 
 describe('media: uploads round-trip byte-exact', () => {
   it('a photo: stored, thumbnail made once, sha256 of the download equals the upload', async () => {
-    const installer = await signInAs('installer');
+    const installer = await as('installer');
     const file = await jpeg();
     const res = await upload(installer, file, 'wiring-under-frame.jpg', { upgradeId: upgrade.id, stage: 'during', caption: 'Loom along the rail' });
     expect(res.status, JSON.stringify(res.body)).toBe(201);
@@ -94,7 +101,7 @@ describe('media: uploads round-trip byte-exact', () => {
   });
 
   it('a video (MP4 by content) round-trips; no thumbnail is claimed', async () => {
-    const producer = await signInAs('producer');
+    const producer = await as('producer');
     const file = mp4(3 * 1024 * 1024 + 17);
     const res = await upload(producer, file, 'install-take-2.mp4', { upgradeId: upgrade.id, stage: 'during' });
     expect(res.status, JSON.stringify(res.body)).toBe(201);
@@ -107,7 +114,7 @@ describe('media: uploads round-trip byte-exact', () => {
   });
 
   it('a PDF invoice on a part round-trips for the owner and keeps a UTF-8 name', async () => {
-    const owner = await signInAs('owner');
+    const owner = await as('owner');
     const file = pdf();
     const res = await upload(owner, file, 'Rechnung Nr. 7 – Kabelbaum.pdf', { partId: part.id });
     expect(res.status, JSON.stringify(res.body)).toBe(201);
@@ -120,7 +127,7 @@ describe('media: uploads round-trip byte-exact', () => {
   });
 
   it('a PNG may be filed as a document (a photographed paper invoice)', async () => {
-    const producer = await signInAs('producer');
+    const producer = await as('producer');
     const res = await upload(producer, await png(), 'receipt.png', { kind: 'document', partId: part.id });
     expect(res.status).toBe(201);
     expect(res.body.media.kind).toBe('document');
@@ -137,18 +144,18 @@ describe('media: refused uploads store nothing', () => {
 
   it('a renamed executable posing as a photo', async () => {
     const before = await counts(...TABLES);
-    const res = await upload(await signInAs('installer'), elf(), 'IMG_2041.jpg', { upgradeId: upgrade.id });
+    const res = await upload(await as('installer'), elf(), 'IMG_2041.jpg', { upgradeId: upgrade.id });
     await refused(res, 415, /ELF.*Bayslate accepts/, before);
   });
 
   it('a shell script named .jpg', async () => {
     const before = await counts(...TABLES);
-    const res = await upload(await signInAs('installer'), Buffer.from('#!/bin/sh\nrm -rf /\n'), 'photo.jpg');
+    const res = await upload(await as('installer'), Buffer.from('#!/bin/sh\nrm -rf /\n'), 'photo.jpg');
     await refused(res, 415, /not a type we can recognise/, before);
   });
 
   it('an SVG, with a script inside or not', async () => {
-    const installer = await signInAs('installer');
+    const installer = await as('installer');
     const before = await counts(...TABLES);
     const svg = '<svg xmlns="http://www.w3.org/2000/svg" width="10" height="10"><script>alert(1)</script><rect width="10" height="10"/></svg>';
     await refused(await upload(installer, Buffer.from(svg), 'badge.svg'), 415, /Bayslate accepts/, before);
@@ -157,7 +164,7 @@ describe('media: refused uploads store nothing', () => {
 
   it('a zero-byte file', async () => {
     const before = await counts(...TABLES);
-    await refused(await upload(await signInAs('installer'), Buffer.alloc(0), 'empty.jpg'), 400, /empty/, before);
+    await refused(await upload(await as('installer'), Buffer.alloc(0), 'empty.jpg'), 400, /empty/, before);
   });
 
   it('a photo over the photo limit answers 413 naming the limit', async () => {
@@ -167,14 +174,14 @@ describe('media: refused uploads store nothing', () => {
     try {
       const big = Buffer.concat([await jpeg(), Buffer.alloc(1024 * 1024 + 10, 0)]);
       const before = await counts(...TABLES);
-      await refused(await upload(await signInAs('installer'), big, 'huge.jpg'), 413, /larger than 1 MB, the limit for photos/, before);
+      await refused(await upload(await as('installer'), big, 'huge.jpg'), 413, /larger than 1 MB, the limit for photos/, before);
     } finally {
       c.UPLOAD_MAX_PHOTO_MB = saved;
     }
   });
 
   it('a "../" name is kept only as a clean name; the key is ours', async () => {
-    const res = await upload(await signInAs('installer'), await png(), '../../etc/passwd.png');
+    const res = await upload(await as('installer'), await png(), '../../etc/passwd.png');
     expect(res.status).toBe(201);
     expect(res.body.media.originalName).toBe('passwd.png');
     const row = (await Media.findByPk(res.body.media.id))!;
@@ -183,7 +190,7 @@ describe('media: refused uploads store nothing', () => {
   });
 
   it("a file for another build's upgrade, episode or part", async () => {
-    const installer = await signInAs('installer');
+    const installer = await as('installer');
     const before = await counts(...TABLES);
     const res = await upload(installer, await png(), 'a.png', { upgradeId: otherUpgrade.id });
     await refused(res, 400, /no such upgrade in this build/, before);
@@ -193,7 +200,7 @@ describe('media: refused uploads store nothing', () => {
   });
 
   it('unknown fields, a bad stage, a kind that does not match the content, no file, JSON instead of a form', async () => {
-    const installer = await signInAs('installer');
+    const installer = await as('installer');
     const before = await counts(...TABLES);
     await refused(await upload(installer, await png(), 'a.png', { colour: 'red' }), 400, /colour/, before);
     await refused(await upload(installer, await png(), 'a.png', { stage: 'later' }), 400, /stage/, before);
@@ -203,7 +210,7 @@ describe('media: refused uploads store nothing', () => {
   });
 
   it('an unknown build answers 404', async () => {
-    const res = await upload(await signInAs('installer'), await png(), 'a.png', {}, 999999);
+    const res = await upload(await as('installer'), await png(), 'a.png', {}, 999999);
     expect(res.status).toBe(404);
   });
 });
@@ -212,38 +219,38 @@ describe('media: roles', () => {
   it('anonymous gets 401 and marketing may not upload', async () => {
     expect((await anonymous().get(`/api/builds/${build.id}/media`)).status).toBe(401);
     const before = await counts(...TABLES);
-    const res = await upload(await signInAs('marketing'), await png(), 'a.png');
+    const res = await upload(await as('marketing'), await png(), 'a.png');
     expect(res.status).toBe(403);
     expect(await counts(...TABLES)).toEqual(before);
   });
 
   it('an installer may not add an invoice', async () => {
     const before = await counts(...TABLES);
-    const res = await upload(await signInAs('installer'), pdf(), 'invoice.pdf', { partId: part.id });
+    const res = await upload(await as('installer'), pdf(), 'invoice.pdf', { partId: part.id });
     expect(res.status).toBe(403);
     expect(res.body.error.message).toMatch(/Invoices/);
     expect(await counts(...TABLES)).toEqual(before);
   });
 
   it('invoices are hidden from installer and marketing in lists, downloads and edits', async () => {
-    const owner = await signInAs('owner');
+    const owner = await as('owner');
     const inv = (await upload(owner, pdf(), 'supplier-invoice.pdf', { partId: part.id })).body.media;
     const ownerList = (await owner.get(`/api/builds/${build.id}/media?partId=${part.id}`)).body.media.map((m: { id: number }) => m.id);
     expect(ownerList).toContain(inv.id);
     for (const role of ['installer', 'marketing'] as const) {
-      const a = await signInAs(role);
+      const a = await as(role);
       const list = await a.get(`/api/builds/${build.id}/media?pageSize=200`);
       expect(list.status).toBe(200);
       expect(list.body.media.map((m: { id: number }) => m.id)).not.toContain(inv.id);
       expect(list.body.media.every((m: { kind: string; partId: number | null }) => !(m.kind === 'document' && m.partId !== null))).toBe(true);
       expect((await a.get(`/api/builds/${build.id}/media/${inv.id}/download`).redirects(0)).status).toBe(404);
     }
-    expect((await (await signInAs('installer')).patch(`/api/builds/${build.id}/media/${inv.id}`).send({ caption: 'x' })).status).toBe(404);
-    expect((await (await signInAs('producer')).get(`/api/builds/${build.id}/media/${inv.id}/download`).redirects(0)).status).toBe(302);
+    expect((await (await as('installer')).patch(`/api/builds/${build.id}/media/${inv.id}`).send({ caption: 'x' })).status).toBe(404);
+    expect((await (await as('producer')).get(`/api/builds/${build.id}/media/${inv.id}/download`).redirects(0)).status).toBe(302);
   });
 
   it('marketing reads the list with presigned thumbnail and full URLs', async () => {
-    const res = await (await signInAs('marketing')).get(`/api/builds/${build.id}/media?kind=photo&stage=after`);
+    const res = await (await as('marketing')).get(`/api/builds/${build.id}/media?kind=photo&stage=after`);
     expect(res.status).toBe(200);
     expect(res.body.media.length).toBeGreaterThan(0);
     for (const m of res.body.media) {
@@ -257,7 +264,7 @@ describe('media: roles', () => {
   });
 
   it('filters by upgrade and paginates', async () => {
-    const a = await signInAs('producer');
+    const a = await as('producer');
     const all = (await a.get(`/api/builds/${build.id}/media?upgradeId=${upgrade.id}`)).body;
     expect(all.total).toBeGreaterThanOrEqual(2);
     expect(all.media.every((m: { upgradeId: number }) => m.upgradeId === upgrade.id)).toBe(true);
@@ -270,8 +277,8 @@ describe('media: roles', () => {
   });
 
   it('PATCH: the uploader (installer) edits their own, not others; producer edits any; activity recorded', async () => {
-    const installer = await signInAs('installer');
-    const producer = await signInAs('producer');
+    const installer = await as('installer');
+    const producer = await as('producer');
     const own = (await upload(installer, await png(), 'mine.png', { stage: 'before' })).body.media;
     const theirs = (await upload(producer, await png(), 'theirs.png')).body.media;
     const res = await installer.patch(`/api/builds/${build.id}/media/${own.id}`).send({ caption: 'Clamp detail', stage: 'after' });
@@ -281,19 +288,19 @@ describe('media: roles', () => {
     expect((await producer.patch(`/api/builds/${build.id}/media/${own.id}`).send({ stage: 'soon' })).status).toBe(400);
     expect((await producer.patch(`/api/builds/${build.id}/media/${own.id}`).send({ sha256: 'x' })).status).toBe(400);
     expect((await producer.patch(`/api/builds/${other.id}/media/${own.id}`).send({ caption: 'idor' })).status).toBe(404);
-    expect((await (await signInAs('marketing')).patch(`/api/builds/${build.id}/media/${own.id}`).send({ caption: 'x' })).status).toBe(403);
+    expect((await (await as('marketing')).patch(`/api/builds/${build.id}/media/${own.id}`).send({ caption: 'x' })).status).toBe(403);
     expect((await Media.findByPk(own.id))!.caption).toBe('Clamp detail');
   });
 
   it('DELETE removes the row and both objects; installers only their own of the day; other build 404', async () => {
-    const installer = await signInAs('installer');
-    const producer = await signInAs('producer');
+    const installer = await as('installer');
+    const producer = await as('producer');
     const own = (await upload(installer, await jpeg(), 'del.jpg')).body.media;
     const theirs = (await upload(producer, await jpeg(), 'keep.jpg')).body.media;
     const row = (await Media.findByPk(own.id))!;
     expect((await installer.delete(`/api/builds/${build.id}/media/${theirs.id}`)).status).toBe(403);
     expect((await producer.delete(`/api/builds/${other.id}/media/${own.id}`)).status).toBe(404);
-    expect((await (await signInAs('marketing')).delete(`/api/builds/${build.id}/media/${own.id}`)).status).toBe(403);
+    expect((await (await as('marketing')).delete(`/api/builds/${build.id}/media/${own.id}`)).status).toBe(403);
     // Yesterday's upload: the installer asks the producer.
     await Media.update({ createdAt: new Date(Date.now() - 2 * 24 * 3600_000) }, { where: { id: theirs.id }, silent: true });
     const res = await installer.delete(`/api/builds/${build.id}/media/${own.id}`);
@@ -326,7 +333,7 @@ describe('media: storage down, and leftovers', () => {
   });
 
   it('the sweep lists and removes objects no row names, and keeps the rest', async () => {
-    const installer = await signInAs('installer');
+    const installer = await as('installer');
     const kept = (await upload(installer, await png(), 'kept.png')).body.media;
     const keptRow = (await Media.findByPk(kept.id))!;
     await putBuffer(`builds/${build.id}/2026-01/orphan.jpg`, await jpeg(), 'image/jpeg');
@@ -342,7 +349,7 @@ describe('media: storage down, and leftovers', () => {
   });
 
   it('storage stopped mid-way: a clear 503, no row, no temp file, the server keeps serving', async () => {
-    const installer = await signInAs('installer');
+    const installer = await as('installer');
     expect((await anonymous().get('/api/health')).body.storage).toBe(true);
     await own.stop();
     const before = await counts(...TABLES);

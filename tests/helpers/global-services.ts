@@ -1,7 +1,7 @@
 // Vitest global setup for API and browser tests: a throwaway PostgreSQL cluster with a
 // migrated, demo-seeded template database that each test file clones, plus the local fake
 // S3 and SMTP servers. Everything is torn down at the end, passing or failing.
-import { spawnSync } from 'node:child_process';
+import { spawn } from 'node:child_process';
 import path from 'node:path';
 import type { TestProject } from 'vitest/node';
 import { startThrowawayCluster } from '../../scripts/lib/pg-cluster.mjs';
@@ -18,6 +18,17 @@ declare module 'vitest' {
 
 const root = path.resolve(import.meta.dirname, '../..');
 
+function runNode(args: string[], env: NodeJS.ProcessEnv): Promise<{ status: number | null; stdout: string; stderr: string }> {
+  return new Promise((resolve) => {
+    const child = spawn(process.execPath, args, { cwd: root, env, stdio: ['ignore', 'pipe', 'pipe'] });
+    let stdout = '';
+    let stderr = '';
+    child.stdout.on('data', (c) => (stdout += c));
+    child.stderr.on('data', (c) => (stderr += c));
+    child.on('close', (status) => resolve({ status, stdout, stderr }));
+  });
+}
+
 export default async function setup(project: TestProject) {
   const cluster = await startThrowawayCluster();
   const fakes = await startTestFakes();
@@ -30,7 +41,8 @@ export default async function setup(project: TestProject) {
     S3_ENDPOINT: fakes.s3Endpoint,
     SMTP_URL: `smtp://127.0.0.1:${fakes.smtpPort}`,
   };
-  const r = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/db-setup.ts'], { cwd: root, env, encoding: 'utf8' });
+  // Not spawnSync: the fake S3 runs in this process and must answer the demo media seeder.
+  const r = await runNode(['--import', 'tsx', 'scripts/db-setup.ts'], env);
   if (r.status !== 0) {
     cluster.stop();
     await fakes.stop();

@@ -1,0 +1,110 @@
+// The owner's numbers in the browser: the overview of the demo build, a chart's table alternative,
+// the click-through to the backlog, the printable report, and a build with nothing to add up yet.
+import { describe, it, expect, beforeAll, afterAll } from 'vitest';
+import { openBrowser, signIn, audit, startAppServer, type AppServer, type BrowserSession } from '../helpers/browser';
+import { Build } from '../../server/models';
+import { buildOverview } from '../../server/services/overview';
+import { formatCents } from '../../src/theme';
+
+let server: AppServer;
+let tern: Build;
+beforeAll(async () => {
+  server = await startAppServer();
+  tern = (await Build.findOne({ where: { slug: 'project-tern' } }))!;
+});
+afterAll(async () => {
+  await server?.stop();
+});
+
+describe('build overview in the browser', () => {
+  it('the owner lands on the overview, reads the figures, opens a chart’s table and clicks through to the backlog', async () => {
+    const s: BrowserSession = await openBrowser({ server });
+    try {
+      await signIn(s, 'owner');
+      await s.page.goto(`${server.url}/builds/${tern.id}`);
+      await s.page.waitForURL(/\/overview$/);
+      await s.page.getByRole('heading', { name: 'Overview', level: 1 }).waitFor();
+      await s.page.getByTestId('figure-net').waitFor();
+      const expected = await buildOverview(tern);
+      expect(await s.page.getByTestId('figure-net').textContent()).toBe(formatCents(expected.headline.netCents));
+      expect(await s.page.getByTestId('figure-remaining').textContent()).toBe(formatCents(expected.headline.remainingCents));
+      expect(await s.page.getByTestId('figure-forecast').textContent()).toBe(formatCents(expected.headline.forecastCents));
+      expect(await s.page.getByTestId('figure-upgrades').textContent()).toBe(`${expected.headline.upgradesDone} / ${expected.headline.upgradesTotal}`);
+      expect(await s.page.getByTestId('figure-episodes').textContent()).toBe(`${expected.headline.episodesLive} / ${expected.headline.episodesTotal}`);
+      expect(await s.page.getByTestId('credit-rule').textContent()).toContain('0/100');
+      const text = (await s.page.locator('main').textContent()) ?? '';
+      expect(text).not.toMatch(/NaN|Infinity|undefined/);
+      expect(await s.page.locator('canvas').count()).toBeGreaterThanOrEqual(4);
+      await audit(s, 'overview');
+
+      const costPanel = s.page.getByRole('region', { name: 'Cost per upgrade' });
+      await costPanel.getByText('Show the numbers as a table').click();
+      const costliest = [...expected.upgrades].sort((a, b) => b.netCents - a.netCents)[0];
+      const row = costPanel.getByRole('row').filter({ hasText: costliest.title });
+      await row.first().waitFor();
+      expect(await row.first().textContent()).toContain(formatCents(costliest.netCents));
+      await audit(s, 'overview, cost table open');
+
+      // The CSV export offers a file with every upgrade's row.
+      const [download] = await Promise.all([s.page.waitForEvent('download'), costPanel.getByRole('button', { name: 'Export Cost per upgrade as CSV' }).click()]);
+      expect(download.suggestedFilename()).toBe('cost-per-upgrade.csv');
+
+      await row.first().getByRole('link', { name: costliest.title }).click();
+      await s.page.waitForURL((u) => u.pathname.endsWith('/backlog') && u.searchParams.get('upgrade') === String(costliest.upgradeId));
+    } finally {
+      await s.close();
+    }
+  });
+
+  it('the owner opens the printable build report and prints it', async () => {
+    const s = await openBrowser({ server });
+    try {
+      await signIn(s, 'owner');
+      await s.page.goto(`${server.url}/builds/${tern.id}/overview`);
+      await s.page.getByRole('link', { name: 'Build report' }).click();
+      await s.page.getByRole('heading', { name: `Build report: ${tern.name}` }).waitFor();
+      await s.page.getByRole('table', { name: 'By upgrade' }).waitFor();
+      await audit(s, 'build report');
+      await s.page.evaluate(() => {
+        (window as unknown as { printed: number }).printed = 0;
+        window.print = () => void ((window as unknown as { printed: number }).printed += 1);
+      });
+      await s.page.getByRole('button', { name: 'Print / save as PDF' }).click();
+      expect(await s.page.evaluate(() => (window as unknown as { printed: number }).printed)).toBe(1);
+    } finally {
+      await s.close();
+    }
+  });
+
+  it('a build with no budget, no labour rate and no upgrades says what to do next and shows dashes', async () => {
+    const empty = await Build.create({ slug: 'overview-empty', name: 'Empty build', year: 2020, make: 'Halvorsen', model: 'Skua', vin: null, mileage: null, budgetCents: null, labourRateCents: null, campaign: null, summary: null });
+    const s = await openBrowser({ server });
+    try {
+      await signIn(s, 'producer');
+      await s.page.goto(`${server.url}/builds/${empty.id}/overview`);
+      await s.page.getByText('No budget set').waitFor();
+      await s.page.getByText('No labour rate').waitFor();
+      await s.page.getByText('No upgrades yet', { exact: true }).waitFor();
+      expect(await s.page.getByTestId('figure-remaining').textContent()).toBe('—');
+      expect(await s.page.getByTestId('figure-forecast').textContent()).toBe('—');
+      await s.page.getByText(/No burndown yet/).waitFor();
+      const text = (await s.page.locator('main').textContent()) ?? '';
+      expect(text).not.toMatch(/NaN|Infinity|undefined/);
+      await audit(s, 'overview of an empty build');
+    } finally {
+      await s.close();
+    }
+  });
+
+  it('an installer is not offered the overview and is sent away from it', async () => {
+    const s = await openBrowser({ server });
+    try {
+      await signIn(s, 'installer');
+      await s.page.goto(`${server.url}/builds/${tern.id}/overview`);
+      await s.page.waitForURL((u) => !u.pathname.endsWith('/overview'));
+      expect(await s.page.getByRole('link', { name: 'Overview' }).count()).toBe(0);
+    } finally {
+      await s.close();
+    }
+  });
+});
