@@ -21,6 +21,10 @@ export const buildNav: NavItem[] = [
   { label: 'Backlog', name: 'backlog', roles: 'any', icon: 'list' },
   { label: 'Parts', name: 'parts', roles: 'any', icon: 'box' },
   { label: 'Media', name: 'media', roles: 'any', icon: 'image' },
+  { label: 'Planner', name: 'planner', roles: ['producer'], icon: 'film' },
+  { label: 'Shop floor', name: 'shop-floor', roles: ['installer', 'producer'], icon: 'wrench' },
+  { label: 'Publish', name: 'publish', roles: ['marketing', 'producer'], icon: 'megaphone' },
+  { label: 'Viewer requests', name: 'viewer-requests', roles: ['marketing', 'producer'], icon: 'inbox' },
   { label: 'Settings', name: 'build-settings', roles: ['producer'], icon: 'settings' },
 ];
 

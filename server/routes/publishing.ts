@@ -7,9 +7,18 @@ import { validate } from '../middleware/validate';
 import { id } from '../../shared/schemas/common';
 import { publishSchema, putChaptersSchema } from '../../shared/schemas/publishing';
 import * as publishing from '../services/publishing';
+import { Episode } from '../models';
+import { notFound } from '../errors';
+import type { RequestHandler } from 'express';
 
 const params = z.object({ buildId: id, episodeId: id });
 const PUBLISHERS = ['marketing', 'producer'] as const;
+
+/** 404 for an episode of another build before the body is looked at. */
+const episodeInBuild: RequestHandler = async (req, _res, next) => {
+  const found = await Episode.count({ where: { id: Number(req.params.episodeId), buildId: buildOf(req).id } });
+  next(found ? undefined : notFound('Episode'));
+};
 
 export function publishingRouter() {
   const router = Router({ mergeParams: true });
@@ -18,13 +27,13 @@ export function publishingRouter() {
   router.get('/chapters', requireRole(...PUBLISHERS), validate(params, 'params'), loadBuild, async (req, res) => {
     res.json(await publishing.getChapters(buildOf(req).id, episodeId(req)));
   });
-  router.put('/chapters', requireRole(...PUBLISHERS), validate(params, 'params'), loadBuild, validate(putChaptersSchema), async (req, res) => {
+  router.put('/chapters', requireRole(...PUBLISHERS), validate(params, 'params'), loadBuild, episodeInBuild, validate(putChaptersSchema), async (req, res) => {
     res.json(await publishing.putChapters(req.user!, buildOf(req).id, episodeId(req), req.body));
   });
   router.get('/show-notes', requireRole(...PUBLISHERS), validate(params, 'params'), loadBuild, async (req, res) => {
     res.json(await publishing.showNotes(buildOf(req), episodeId(req)));
   });
-  router.post('/publish', requireRole(...PUBLISHERS), validate(params, 'params'), loadBuild, validate(publishSchema), async (req, res) => {
+  router.post('/publish', requireRole(...PUBLISHERS), validate(params, 'params'), loadBuild, episodeInBuild, validate(publishSchema), async (req, res) => {
     res.json({ episode: await publishing.publish(req.user!, buildOf(req).id, episodeId(req), req.body) });
   });
   return router;

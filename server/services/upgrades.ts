@@ -20,6 +20,7 @@ import {
   type Person,
 } from './backlogRecords';
 import { findCycle } from '../../shared/planner/criticalPath';
+import { cautionsFor } from '../../shared/safety';
 import { INSTALLER_UPGRADE_FIELDS, type CreateUpgradeInput, type UpdateUpgradeInput, type UpgradeListQuery } from '../../shared/schemas/upgrade';
 
 const isInstallerOnly = (p: Person) => !p.roles.some((r) => r === 'owner' || r === 'producer');
@@ -74,6 +75,8 @@ export async function getUpgradeDetail(build: Build, id: number, viewer: Person)
   ]);
   return {
     upgrade: forViewer(await upgradeRecord(u), viewer),
+    // The safety cautions of its flags, in our own words (shared/safety.ts), for the drawer to show.
+    cautions: cautionsFor(u.safetyFlags),
     parts: parts.map((p) => forViewer(toPartRecord(p), viewer)),
     removedParts: removedParts.map((r) => forViewer(toRemovedPartRecord(r), viewer)),
     labour: labour.map(toLabourRecord),

@@ -14,13 +14,23 @@ declare module 'vue-router' {
 
 /** Screens inside one build; later features add theirs here. */
 export const buildRoutes: RouteRecordRaw[] = [
-  // Owner and producer land on the build's numbers; everyone else on the backlog.
-  { path: '', redirect: (to) => ({ name: useSessionStore().can('producer') ? 'overview' : 'backlog', params: to.params }) },
+  // Owner and producer land on the build's numbers; everyone else on the backlog. A guard, not a
+  // redirect, because only guards run after the session is known (beforeEach below loads it).
+  {
+    path: '',
+    name: 'build-home',
+    component: () => import('@/views/BacklogView.vue'),
+    beforeEnter: (to) => ({ name: useSessionStore().can('producer') ? 'overview' : 'backlog', params: to.params, replace: true }),
+  },
   { path: 'overview', name: 'overview', component: () => import('@/views/OverviewView.vue'), meta: { roles: ['producer'], title: 'Overview' } },
   { path: 'report', name: 'build-report', component: () => import('@/views/BuildReportView.vue'), meta: { roles: ['producer'], title: 'Build report' } },
   { path: 'backlog', name: 'backlog', component: () => import('@/views/BacklogView.vue'), meta: { title: 'Backlog' } },
   { path: 'parts', name: 'parts', component: () => import('@/views/PartsView.vue'), meta: { title: 'Parts' } },
   { path: 'media', name: 'media', component: () => import('@/views/MediaLibraryView.vue'), meta: { title: 'Media' } },
+  { path: 'planner', name: 'planner', component: () => import('@/views/PlannerView.vue'), meta: { roles: ['producer'], title: 'Episode planner' } },
+  { path: 'shop-floor', name: 'shop-floor', component: () => import('@/views/ShopFloorView.vue'), meta: { roles: ['installer', 'producer'], title: 'Shop floor' } },
+  { path: 'publish', name: 'publish', component: () => import('@/views/PublishView.vue'), meta: { roles: ['marketing', 'producer'], title: 'Publish' } },
+  { path: 'viewer-requests', name: 'viewer-requests', component: () => import('@/views/ViewerRequestsView.vue'), meta: { roles: ['marketing', 'producer'], title: 'Viewer requests' } },
   { path: 'settings', name: 'build-settings', component: () => import('@/views/BuildSettingsView.vue'), meta: { roles: ['producer'], title: 'Build settings' } },
 ];
 
@@ -37,6 +47,10 @@ const routes: RouteRecordRaw[] = [
       { path: 'builds/:buildId(\\d+)', children: buildRoutes },
     ],
   },
+  // The public build page and the links in viewers' mails: no sign-in, their own simple layout.
+  { path: '/b/:slug', name: 'public-build', component: () => import('@/views/PublicBuildView.vue'), meta: { public: true, title: 'Build page' } },
+  { path: '/confirm/:token', name: 'confirm-vote', component: () => import('@/views/PublicBuildView.vue'), meta: { public: true, title: 'Confirm your vote' } },
+  { path: '/unsubscribe/:token', name: 'unsubscribe', component: () => import('@/views/PublicBuildView.vue'), meta: { public: true, title: 'Unsubscribe' } },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { public: true, title: 'Not found' } },
 ];
 

@@ -295,6 +295,10 @@ describe('the cached overview', () => {
         return again.status === 200 && queryCounter.count - before <= 1 && again.body.totals.partsCents === 10_000;
       }),
     ).toBe(true);
+    // The cached copy goes out gzipped to a client that accepts it (supertest unpacks it again).
+    const zipped = await owner.get(url).set('Accept-Encoding', 'gzip');
+    expect(zipped.headers['content-encoding']).toBe('gzip');
+    expect(zipped.body.totals.partsCents).toBe(10_000);
     // A write anywhere in the build shows at once (the commit's notice drops the cached copy).
     await part(b.id, u.id, 2, 2_500);
     expect(await waitFor(async () => (await owner.get(url)).body.totals.partsCents === 15_000)).toBe(true);

@@ -34,7 +34,7 @@ async function upgradeByTitle(s: BrowserSession, buildId: number, title: string)
 /** Picks an option of a naive-ui select inside the given form item. */
 async function choose(page: Page, scope: ReturnType<Page['locator']>, option: string) {
   await scope.locator('.n-base-selection').first().click();
-  await page.locator('.n-base-select-option', { hasText: option }).first().click();
+  await page.locator('.n-base-select-option:visible', { hasText: option }).first().click();
 }
 const drawer = (page: Page) => page.locator('.n-drawer');
 const message = (page: Page, text: string) => page.locator('.n-message', { hasText: text }).first().waitFor();
@@ -85,8 +85,8 @@ describe('backlog in the browser', () => {
       const mirrors = await upgradeByTitle(s, buildId, 'Power-folding mirrors with turn signals');
       await drawer(page).locator('[data-test="prereq-select"]').click();
       await page.keyboard.type('Power-folding');
-      await page.locator('.n-base-select-option', { hasText: 'Power-folding mirrors with turn signals' }).first().click();
-      await page.keyboard.press('Escape').catch(() => undefined);
+      await page.locator('.n-base-select-option:visible', { hasText: 'Power-folding mirrors with turn signals' }).first().click();
+      await drawer(page).locator('#ud-prereq').click(); // closes the option list
       await drawer(page).getByRole('button', { name: 'Save prerequisites' }).click();
       await message(page, 'Prerequisites saved.');
       expect((await upgradeByTitle(s, buildId, 'Puddle lamps in the mirrors')).prerequisiteIds).toEqual([mirrors.id]);
@@ -99,8 +99,8 @@ describe('backlog in the browser', () => {
       await drawer(page).getByText('Power-folding mirrors with turn signals').first().waitFor();
       await drawer(page).locator('[data-test="prereq-select"]').click();
       await page.keyboard.type('Puddle');
-      await page.locator('.n-base-select-option', { hasText: 'Puddle lamps in the mirrors' }).first().click();
-      await page.keyboard.press('Escape').catch(() => undefined);
+      await page.locator('.n-base-select-option:visible', { hasText: 'Puddle lamps in the mirrors' }).first().click();
+      await drawer(page).locator('#ud-prereq').click(); // closes the option list
       await drawer(page).getByRole('button', { name: 'Save prerequisites' }).click();
       const cycle = drawer(page).locator('[data-test="cycle"]');
       await cycle.waitFor();

@@ -6,7 +6,9 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import sharp from 'sharp';
-import { openBrowser, signIn, audit, visit, startAppServer, type AppServer, type BrowserSession } from '../helpers/browser';
+import { openBrowser, audit, visit, startAppServer, type AppServer, type BrowserSession } from '../helpers/browser';
+import { DEMO_EMAIL, DEMO_PASSWORD, type DemoRole } from '../helpers/api';
+import { Build } from '../../server/models';
 
 let server: AppServer;
 let dir: string;
@@ -24,9 +26,17 @@ async function apiGet<T>(s: BrowserSession, p: string): Promise<T> {
   expect(res.status(), `${p} answered ${res.status()}`).toBe(200);
   return (await res.json()) as T;
 }
-async function ternId(s: BrowserSession) {
-  const { builds } = await apiGet<{ builds: { id: number; slug: string }[] }>(s, '/api/builds');
-  return builds.find((b) => b.slug === 'project-tern')!.id;
+async function ternId() {
+  return (await Build.findOne({ where: { slug: 'project-tern' } }))!.id;
+}
+/** Signs in through the form from a deep link, as a person following a link would. */
+async function signInTo(s: BrowserSession, role: DemoRole, next: string) {
+  await visit(s, `/sign-in?next=${encodeURIComponent(next)}`);
+  await s.page.getByLabel('E-mail').fill(DEMO_EMAIL[role]);
+  await s.page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
+  await s.page.getByRole('button', { name: 'Sign in' }).click();
+  await s.page.waitForURL((u) => u.pathname === next.split('?')[0]);
+  await audit(s);
 }
 /** A photo of noise (does not compress), so its upload takes long enough to watch. */
 async function noisyJpeg(name: string) {
@@ -48,12 +58,13 @@ describe('media in the browser', () => {
   it('an installer at 390 px uploads photos to an upgrade with progress and sees them', async () => {
     const s = await openBrowser({ server, phone: true });
     try {
-      await signIn(s, 'installer');
-      const buildId = await ternId(s);
+      const buildId = await ternId();
+      await signInTo(s, 'installer', `/builds/${buildId}/media`);
       const { upgrades } = await apiGet<{ upgrades: { id: number; title: string }[] }>(s, `/api/builds/${buildId}/upgrades?pageSize=500`);
       const wiring = upgrades.find((u) => u.title === 'Trailer wiring, 7-pin')!;
       const before = (await apiGet<{ total: number }>(s, `/api/builds/${buildId}/media?upgradeId=${wiring.id}`)).total;
 
+      // From the upgrade's context (the address an upgrade links to).
       await visit(s, `/builds/${buildId}/media?upgradeId=${wiring.id}`);
       await s.page.getByRole('heading', { name: /Add photos or footage to “Trailer wiring, 7-pin”/ }).waitFor();
       const input = s.page.locator('[data-test="media-file-input"]');
@@ -108,10 +119,8 @@ describe('media in the browser', () => {
   it('the producer sees the demo photos, previews one, edits its caption and deletes an upload', async () => {
     const s = await openBrowser({ server });
     try {
-      await signIn(s, 'producer');
-      const buildId = await ternId(s);
-      await s.page.getByRole('navigation', { name: 'Main navigation' }).waitFor();
-      await visit(s, `/builds/${buildId}/media`);
+      const buildId = await ternId();
+      await signInTo(s, 'producer', `/builds/${buildId}/media`);
       expect(await s.page.getByRole('link', { name: 'Media' }).first().isVisible()).toBe(true);
       await s.page.getByText('Stock halogen housings on the bench').waitFor();
       await s.page.getByText('Rails torqued and sealed').waitFor();
@@ -159,9 +168,8 @@ describe('media in the browser', () => {
   it('marketing browses the library but has no upload button', async () => {
     const s = await openBrowser({ server });
     try {
-      await signIn(s, 'marketing');
-      const buildId = await ternId(s);
-      await visit(s, `/builds/${buildId}/media`);
+      const buildId = await ternId();
+      await signInTo(s, 'marketing', `/builds/${buildId}/media`);
       await s.page.getByText('Projectors aimed on the wall chart').waitFor();
       expect(await s.page.locator('[data-test="media-uploader"]').count()).toBe(0);
       await s.page.getByRole('button', { name: 'Open Projectors aimed on the wall chart' }).click();

@@ -1,12 +1,22 @@
 // The owner's numbers in the browser: the overview of the demo build, a chart's table alternative,
 // the click-through to the backlog, the printable report, and a build with nothing to add up yet.
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
-import { openBrowser, signIn, audit, startAppServer, type AppServer, type BrowserSession } from '../helpers/browser';
+import { openBrowser, audit, startAppServer, type AppServer, type BrowserSession } from '../helpers/browser';
 import { Build } from '../../server/models';
 import { buildOverview } from '../../server/services/overview';
 import { formatCents } from '../../src/theme';
+import { DEMO_EMAIL, DEMO_PASSWORD, type DemoRole } from '../helpers/api';
 
 let server: AppServer;
+
+/** Signs in through the API in the page's own context (the form itself is tested in signin.test.ts). */
+async function signInQuick(s: BrowserSession, role: DemoRole) {
+  const res = await s.page.request.post(`${server.url}/api/auth/login`, {
+    data: { email: DEMO_EMAIL[role], password: DEMO_PASSWORD },
+    headers: { 'X-Requested-With': 'Bayslate' },
+  });
+  expect(res.status()).toBe(200);
+}
 let tern: Build;
 beforeAll(async () => {
   server = await startAppServer();
@@ -20,18 +30,18 @@ describe('build overview in the browser', () => {
   it('the owner lands on the overview, reads the figures, opens a chart’s table and clicks through to the backlog', async () => {
     const s: BrowserSession = await openBrowser({ server });
     try {
-      await signIn(s, 'owner');
+      await signInQuick(s, 'owner');
       await s.page.goto(`${server.url}/builds/${tern.id}`);
       await s.page.waitForURL(/\/overview$/);
       await s.page.getByRole('heading', { name: 'Overview', level: 1 }).waitFor();
-      await s.page.getByTestId('figure-net').waitFor();
+      await s.page.locator('[data-test="figure-net"]').waitFor();
       const expected = await buildOverview(tern);
-      expect(await s.page.getByTestId('figure-net').textContent()).toBe(formatCents(expected.headline.netCents));
-      expect(await s.page.getByTestId('figure-remaining').textContent()).toBe(formatCents(expected.headline.remainingCents));
-      expect(await s.page.getByTestId('figure-forecast').textContent()).toBe(formatCents(expected.headline.forecastCents));
-      expect(await s.page.getByTestId('figure-upgrades').textContent()).toBe(`${expected.headline.upgradesDone} / ${expected.headline.upgradesTotal}`);
-      expect(await s.page.getByTestId('figure-episodes').textContent()).toBe(`${expected.headline.episodesLive} / ${expected.headline.episodesTotal}`);
-      expect(await s.page.getByTestId('credit-rule').textContent()).toContain('0/100');
+      expect(await s.page.locator('[data-test="figure-net"]').textContent()).toBe(formatCents(expected.headline.netCents));
+      expect(await s.page.locator('[data-test="figure-remaining"]').textContent()).toBe(formatCents(expected.headline.remainingCents));
+      expect(await s.page.locator('[data-test="figure-forecast"]').textContent()).toBe(formatCents(expected.headline.forecastCents));
+      expect(await s.page.locator('[data-test="figure-upgrades"]').textContent()).toBe(`${expected.headline.upgradesDone} / ${expected.headline.upgradesTotal}`);
+      expect(await s.page.locator('[data-test="figure-episodes"]').textContent()).toBe(`${expected.headline.episodesLive} / ${expected.headline.episodesTotal}`);
+      expect(await s.page.locator('[data-test="credit-rule"]').textContent()).toContain('0/100');
       const text = (await s.page.locator('main').textContent()) ?? '';
       expect(text).not.toMatch(/NaN|Infinity|undefined/);
       expect(await s.page.locator('canvas').count()).toBeGreaterThanOrEqual(4);
@@ -59,7 +69,7 @@ describe('build overview in the browser', () => {
   it('the owner opens the printable build report and prints it', async () => {
     const s = await openBrowser({ server });
     try {
-      await signIn(s, 'owner');
+      await signInQuick(s, 'owner');
       await s.page.goto(`${server.url}/builds/${tern.id}/overview`);
       await s.page.getByRole('link', { name: 'Build report' }).click();
       await s.page.getByRole('heading', { name: `Build report: ${tern.name}` }).waitFor();
@@ -80,13 +90,13 @@ describe('build overview in the browser', () => {
     const empty = await Build.create({ slug: 'overview-empty', name: 'Empty build', year: 2020, make: 'Halvorsen', model: 'Skua', vin: null, mileage: null, budgetCents: null, labourRateCents: null, campaign: null, summary: null });
     const s = await openBrowser({ server });
     try {
-      await signIn(s, 'producer');
+      await signInQuick(s, 'producer');
       await s.page.goto(`${server.url}/builds/${empty.id}/overview`);
       await s.page.getByText('No budget set').waitFor();
       await s.page.getByText('No labour rate').waitFor();
       await s.page.getByText('No upgrades yet', { exact: true }).waitFor();
-      expect(await s.page.getByTestId('figure-remaining').textContent()).toBe('—');
-      expect(await s.page.getByTestId('figure-forecast').textContent()).toBe('—');
+      expect(await s.page.locator('[data-test="figure-remaining"]').textContent()).toBe('—');
+      expect(await s.page.locator('[data-test="figure-forecast"]').textContent()).toBe('—');
       await s.page.getByText(/No burndown yet/).waitFor();
       const text = (await s.page.locator('main').textContent()) ?? '';
       expect(text).not.toMatch(/NaN|Infinity|undefined/);
@@ -99,7 +109,7 @@ describe('build overview in the browser', () => {
   it('an installer is not offered the overview and is sent away from it', async () => {
     const s = await openBrowser({ server });
     try {
-      await signIn(s, 'installer');
+      await signInQuick(s, 'installer');
       await s.page.goto(`${server.url}/builds/${tern.id}/overview`);
       await s.page.waitForURL((u) => !u.pathname.endsWith('/overview'));
       expect(await s.page.getByRole('link', { name: 'Overview' }).count()).toBe(0);

@@ -22,6 +22,9 @@ export interface ImportResult<P> {
   created?: number;
 }
 
+/** Undoes writeCsv's formula guard: "'=x" → "=x". */
+const unescapeFormula = (cell: string) => (/^'[=+\-@\t\r]/.test(cell) ? cell.slice(1) : cell);
+
 /** Parses CSV text into rows keyed by header; blank lines are skipped but still counted. */
 export function readCsv(text: string, columns: readonly string[], required: readonly string[]) {
   const errors: CsvProblem[] = [];
@@ -50,7 +53,7 @@ export function readCsv(text: string, columns: readonly string[], required: read
     if (cells.every((c) => c.trim() === '')) return;
     if (cells.length > names.length) errors.push({ line, field: '(row)', message: `has ${cells.length} cells but the header names ${names.length} columns` });
     const rec: Record<string, string> = {};
-    names.forEach((n, j) => (rec[n] = (cells[j] ?? '').trim()));
+    names.forEach((n, j) => (rec[n] = unescapeFormula((cells[j] ?? '').trim())));
     rows.push({ line, cells: rec });
   });
   if (rows.length === 0 && !errors.length) errors.push({ line: 2, field: '(row)', message: 'The file has a header but no rows.' });
@@ -59,7 +62,9 @@ export function readCsv(text: string, columns: readonly string[], required: read
 
 /** Writes rows as CSV with a fixed column order (CRLF line ends, as RFC 4180 describes). */
 export function writeCsv(columns: readonly string[], rows: Record<string, string | number | null>[]) {
-  return Papa.unparse({ fields: [...columns], data: rows.map((r) => columns.map((c) => (r[c] === null || r[c] === undefined ? '' : String(r[c])))) }, { newline: '\r\n' }) + '\r\n';
+  // escapeFormulae: a cell starting with = + - @ gets a leading ' so a spreadsheet shows it as text
+  // instead of running it (OWASP "CSV injection"); readCsv takes the ' off again.
+  return Papa.unparse({ fields: [...columns], data: rows.map((r) => columns.map((c) => (r[c] === null || r[c] === undefined ? '' : String(r[c])))) }, { newline: '\r\n', escapeFormulae: true }) + '\r\n';
 }
 
 export const blankToUndefined = (s: string | undefined) => (s === undefined || s === '' ? undefined : s);

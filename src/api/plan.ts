@@ -1,0 +1,92 @@
+// The episode plan of one build: the planner's data, proposals, applying a plan, the calendar URL.
+import { api } from './http';
+import type { Area, EpisodeRecord, EpisodeState, InstallState } from '@shared/domain';
+import type { PlannerInput, PlanViolation } from '@shared/planner/index';
+
+export interface PlanUpgrade {
+  id: number;
+  title: string;
+  area: Area;
+  estimatedHours: number;
+  priority: number;
+  installState: InstallState;
+  episodeId: number | null;
+  episodePosition: number | null;
+  partsDueDate: string | null;
+  prerequisiteIds: number[];
+}
+
+export interface CriticalSummary {
+  hours: number;
+  days: number;
+  hoursPerDay: number;
+  critical: { id: number; title: string }[];
+  earliestFinish: string;
+}
+
+export interface PlanOverview {
+  episodes: EpisodeRecord[];
+  upgrades: PlanUpgrade[];
+  input: PlannerInput;
+  violations: PlanViolation[];
+  criticalPath: CriticalSummary | null;
+  capacityHours: number;
+}
+
+export interface ProposedEpisode {
+  id: number | null;
+  number: number;
+  title: string;
+  state: EpisodeState | null;
+  shootDate: string | null;
+  releaseDate: string | null;
+  area: Area | null;
+  hours: number;
+  upgradeIds: number[];
+  locked: boolean;
+  oversize: boolean;
+}
+
+export interface PlanDifference {
+  upgradeId: number;
+  title: string;
+  kind: 'moved' | 'reordered' | 'added' | 'removed';
+  from: { episodeId: number | null; number: number; position: number } | null;
+  to: { episodeId: number | null; number: number; position: number } | null;
+}
+
+export interface ProposalAnswer {
+  proposal: {
+    episodes: ProposedEpisode[];
+    forecastFinish: string | null;
+    buildDoneDate: string | null;
+    capacityHours: number;
+    unplaced: { id: number; title: string }[];
+    violations: PlanViolation[];
+  };
+  current: { episodes: EpisodeRecord[]; violations: PlanViolation[] };
+  differences: PlanDifference[];
+}
+
+export interface PlanBodyEpisode {
+  id?: number;
+  title?: string;
+  shootDate?: string | null;
+  releaseDate?: string | null;
+  upgradeIds: number[];
+}
+
+const base = (buildId: number) => `/api/builds/${buildId}/plan`;
+
+export const planApi = {
+  overview: (buildId: number) => api.get<PlanOverview>(base(buildId)),
+  check: (buildId: number) => api.get<{ violations: PlanViolation[] }>(`${base(buildId)}/check`),
+  propose: (buildId: number, capacity: { shootHoursPerEpisode?: number; shopHoursPerWeek?: number; releaseCadenceDays?: number } = {}) =>
+    api.post<ProposalAnswer>(`${base(buildId)}/proposal`, capacity),
+  apply: (buildId: number, episodes: PlanBodyEpisode[]) => api.put<{ episodes: EpisodeRecord[]; violations: PlanViolation[] }>(base(buildId), { episodes }),
+};
+
+export const calendarApi = {
+  get: (buildId: number) => api.get<{ url: string }>(`/api/builds/${buildId}/calendar`),
+  rotate: (buildId: number) => api.post<{ url: string }>(`/api/builds/${buildId}/calendar/rotate`, {}),
+};

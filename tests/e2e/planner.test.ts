@@ -1,0 +1,64 @@
+// The producer plans the series in the browser: proposes, accepts, moves an upgrade by keyboard and sees the violation at once.
+import { describe, it, expect, beforeAll, afterAll } from 'vitest';
+import { openBrowser, signIn, audit, visit, startAppServer, type AppServer } from '../helpers/browser';
+import { Build } from '../../server/models';
+
+let server: AppServer;
+let buildId: number;
+beforeAll(async () => {
+  server = await startAppServer();
+  buildId = (await Build.findOne({ where: { slug: 'project-tern' } }))!.id;
+});
+afterAll(async () => {
+  await server?.stop();
+});
+
+describe('episode planner in the browser', () => {
+  it('producer proposes a plan, accepts it, moves an upgrade with the keyboard and sees the violation inline', async () => {
+    const s = await openBrowser({ server });
+    const { page } = s;
+    try {
+      await signIn(s, 'producer');
+      await visit(s, `/builds/${buildId}/planner`);
+      await page.getByRole('heading', { name: 'Episode planner' }).waitFor();
+      await page.getByRole('heading', { name: 'No problems in this plan' }).waitFor();
+      expect(await page.getByRole('heading', { name: /^Episode 7: Ready to tow/ }).isVisible()).toBe(true);
+      // The timeline's table alternative.
+      await page.getByRole('button', { name: 'Show the dates as a table' }).click();
+      await page.getByRole('table').getByText('Ready to tow').waitFor();
+      await audit(s, 'planner with timeline table');
+
+      await page.getByRole('button', { name: 'Propose a plan' }).click();
+      const proposal = page.getByRole('region', { name: 'Proposed plan' });
+      await proposal.waitFor();
+      // The two unplanned demo upgrades show up as new in the proposal.
+      await proposal.getByText('Heated front seats — new in the plan').waitFor();
+      await audit(s, 'proposal beside the current plan');
+      await proposal.getByRole('button', { name: 'Accept proposal' }).click();
+      await proposal.waitFor({ state: 'detached' });
+      await page.getByText(/Proposal applied/).waitFor();
+      await page.getByRole('heading', { name: 'No problems in this plan' }).waitFor();
+      expect(await page.getByText('Not in an episode (0)').isVisible()).toBe(true);
+
+      // Keyboard alternative to dragging: the "Move to" list, chosen from the keyboard.
+      const picker = page.getByLabel('Move Trailer wiring, 7-pin to');
+      const options = await picker.locator('option:not([disabled])').allTextContents();
+      const last = options.filter((o) => o.startsWith('Episode ')).pop()!;
+      await picker.focus();
+      await picker.selectOption({ label: last });
+      const problem = page.getByRole('note').filter({ hasText: 'Trailer brake controller' }).filter({ hasText: 'prerequisite' });
+      await problem.first().waitFor();
+      expect(await problem.first().textContent()).toContain('Trailer wiring, 7-pin');
+      await page.getByRole('heading', { name: /1 problem in this plan/ }).waitFor();
+      await audit(s, 'planner with a violation');
+
+      // Discarding from the keyboard restores the saved plan and its clean check.
+      const back = page.getByLabel('Move Trailer wiring, 7-pin to');
+      await back.selectOption({ index: 1 });
+      await page.getByRole('button', { name: 'Discard changes' }).press('Enter');
+      await page.getByRole('heading', { name: 'No problems in this plan' }).waitFor();
+    } finally {
+      await s.close();
+    }
+  });
+});
