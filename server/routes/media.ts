@@ -37,7 +37,7 @@ export function mediaRouter() {
     '/',
     requireRole('producer', 'installer'),
     (req, _res, next) => (req.is('multipart/form-data') ? next() : next(badRequest('Send the file as multipart/form-data in the field "file".', [{ path: 'file', message: 'is required' }]))),
-    receiveOneFile(),
+    receiveOneFile(media.prepareStream),
     async (req, res) => {
       const record = await media.storeUpload(buildOf(req), req.user!, req.file as ReceivedFile | undefined, req.body);
       res.status(201).json({ media: record });

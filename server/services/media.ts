@@ -1,7 +1,6 @@
 // Media: storing an upload (object, thumbnail, row — all or nothing), listing with presigned
 // URLs, editing, deleting, and the role rules (invoices only for roles that see money).
 import { randomUUID } from 'node:crypto';
-import sharp from 'sharp';
 import { Op, type WhereOptions } from 'sequelize';
 import { sequelize, Media, Upgrade, Episode, Part, User, type Build } from '../models';
 import { AppError, badRequest, forbidden, notFound } from '../errors';
@@ -10,7 +9,8 @@ import { record } from './activity';
 import { seesMoney } from './visibility';
 import { hasRole } from '../middleware/roles';
 import { putBuffer, putFile, presignGet, removeObjects } from '../storage';
-import { contentDisposition, removeTemp, sanitizeName, type ReceivedFile } from './mediaFiles';
+import type { Request } from 'express';
+import { contentDisposition, removeTemp, sanitizeName, storageUnavailable, type Detected, type ReceivedFile } from './mediaFiles';
 import { mediaUploadFields, type MediaListQuery, type MediaPatch, type MediaRecord } from '../../shared/schemas/media';
 import { zodFields } from '../middleware/validate';
 import type { MediaKind } from '../../shared/domain';
@@ -23,18 +23,16 @@ export const THUMB_SIZE = 400;
 const isInvoice = (m: { kind: string; partId: number | null }) => m.kind === 'document' && m.partId !== null;
 const hiddenInvoices: WhereOptions = { [Op.not]: { kind: 'document', partId: { [Op.ne]: null } } } as WhereOptions;
 
-export const storageUnavailable = () =>
-  new AppError(503, 'storage_unavailable', 'The file store cannot be reached right now, so nothing was saved. Try again in a minute.');
-
 /** Our own object names: build, year-month, a random id and the extension of the detected type. */
-function newKeys(buildId: number, ext: string) {
-  const month = new Date().toISOString().slice(0, 7);
-  const base = `builds/${buildId}/${month}/${randomUUID()}`;
-  return { objectKey: `${base}.${ext}`, thumbKey: `${base}.thumb.webp` };
+function newObjectKey(buildId: number, ext: string) {
+  return `builds/${buildId}/${new Date().toISOString().slice(0, 7)}/${randomUUID()}.${ext}`;
 }
+const thumbKeyOf = (objectKey: string) => objectKey.replace(/\.[a-z0-9]+$/, '.thumb.webp');
 
 /** A ~400 px WebP made once at upload; null for photos the bundled decoder cannot read (HEIC). */
 async function makeThumbnail(file: string, mime: string): Promise<Buffer | null> {
+  // Loaded on the first photo: a server that only receives footage never maps libvips.
+  const sharp = (await import('sharp')).default;
   try {
     return await sharp(file, { limitInputPixels: 268_402_689 })
       .rotate()
@@ -63,80 +61,97 @@ async function checkAttachments(build: Build, f: { upgradeId?: number; episodeId
   return { upgradeId, episodeId: f.episodeId ?? null, partId: f.partId ?? null };
 }
 
-/** Stores one received upload. The temporary file is always removed. */
+/** The checked form fields of an upload whose content turned out to be `detected`. */
+async function checkUpload(build: Build, person: Person, detected: Detected, rawFields: unknown) {
+  const parsed = mediaUploadFields.safeParse({ ...(rawFields as object) });
+  if (!parsed.success) {
+    const fields = zodFields(parsed.error);
+    throw new AppError(400, 'bad_request', `Check these fields: ${fields.map((x) => x.path).join(', ')}.`, fields);
+  }
+  const f = parsed.data;
+  const kind: MediaKind = f.kind ?? detected.kind;
+  // A photographed paper invoice is a document; otherwise the content decides the kind.
+  if (kind !== detected.kind && !(kind === 'document' && detected.kind === 'photo'))
+    throw badRequest(`The file is a ${detected.label}, so it cannot be stored as a ${kind}.`, [{ path: 'kind', message: `does not match the file (${detected.label})` }]);
+  const links = await checkAttachments(build, f);
+  if (isInvoice({ kind, partId: links.partId }) && !seesMoney(person))
+    throw forbidden('Invoices are kept by the owner and the producer; your role cannot add one.');
+  return { f, kind, links };
+}
+
+/**
+ * The upload engine's hook once the type is known: with the fields sent before the file valid,
+ * the file streams into storage under this key while it arrives (videos need no second pass).
+ */
+export async function prepareStream(req: Request, detected: Detected): Promise<string | null> {
+  if (!req.build || !req.user) return null;
+  await checkUpload(req.build, req.user, detected, req.body);
+  return newObjectKey(req.build.id, detected.ext);
+}
+
+/** Stores one received upload: object, thumbnail, row — all or nothing. The temporary file is always removed. */
 export async function storeUpload(build: Build, person: Person, file: ReceivedFile | undefined, rawFields: unknown): Promise<MediaRecord> {
+  // Objects written for this upload so far; removed again if anything below fails.
+  const written: string[] = file?.stored ? [file.stored.key] : [];
+  let m: Media;
   try {
     if (!file) throw badRequest('Attach the file as multipart/form-data in the field "file".', [{ path: 'file', message: 'is required' }]);
-    const parsed = mediaUploadFields.safeParse({ ...(rawFields as object) });
-    if (!parsed.success) {
-      const fields = zodFields(parsed.error);
-      throw new AppError(400, 'bad_request', `Check these fields: ${fields.map((x) => x.path).join(', ')}.`, fields);
-    }
-    const f = parsed.data;
     const detected = file.detected;
-    const kind: MediaKind = f.kind ?? detected.kind;
-    // A photographed paper invoice is a document; otherwise the content decides the kind.
-    if (kind !== detected.kind && !(kind === 'document' && detected.kind === 'photo'))
-      throw badRequest(`The file is a ${detected.label}, so it cannot be stored as a ${kind}.`, [{ path: 'kind', message: `does not match the file (${detected.label})` }]);
-    const links = await checkAttachments(build, f);
+    // Checked again with every field (some may have come after the file).
+    const { f, kind, links } = await checkUpload(build, person, detected, rawFields);
     const originalName = sanitizeName(file.originalname);
-    if (isInvoice({ kind, partId: links.partId }) && !seesMoney(person))
-      throw forbidden('Invoices are kept by the owner and the producer; your role cannot add one.');
-
     const thumb = detected.kind === 'photo' ? await makeThumbnail(file.path, detected.mime) : null;
-    const keys = newKeys(build.id, detected.ext);
-    const written: string[] = [];
+    const objectKey = file.stored?.key ?? newObjectKey(build.id, detected.ext);
+    const thumbKey = thumbKeyOf(objectKey);
     try {
-      await putFile(keys.objectKey, file.path, detected.mime);
-      written.push(keys.objectKey);
-      if (thumb) {
-        await putBuffer(keys.thumbKey, thumb, 'image/webp');
-        written.push(keys.thumbKey);
+      if (!file.stored) {
+        await putFile(objectKey, file.path, detected.mime);
+        written.push(objectKey);
       }
-    } catch (err) {
-      await cleanUp(written);
-      if (err instanceof AppError) throw err;
+      if (thumb) {
+        await putBuffer(thumbKey, thumb, 'image/webp');
+        written.push(thumbKey);
+      }
+    } catch {
       throw storageUnavailable();
     }
-    try {
-      const m = await sequelize.transaction(async (t) => {
-        const row = await Media.create(
-          {
-            buildId: build.id,
-            ...links,
-            kind,
-            stage: f.stage ?? null,
-            caption: f.caption ?? null,
-            objectKey: keys.objectKey,
-            thumbKey: thumb ? keys.thumbKey : null,
-            originalName,
-            contentType: detected.mime,
-            sizeBytes: file.size,
-            sha256: file.sha256,
-            uploadedBy: person.id,
-          },
-          { transaction: t },
-        );
-        await record(t, {
-          actor: person,
+    m = await sequelize.transaction(async (t) => {
+      const row = await Media.create(
+        {
           buildId: build.id,
-          entity: 'media',
-          entityId: row.id,
-          action: 'uploaded',
-          summary: `${person.name} uploaded ${kind} “${originalName}”`,
-          after: { kind, stage: row.stage, caption: row.caption, upgradeId: row.upgradeId, episodeId: row.episodeId, partId: row.partId },
-        });
-        return row;
+          ...links,
+          kind,
+          stage: f.stage ?? null,
+          caption: f.caption ?? null,
+          objectKey,
+          thumbKey: thumb ? thumbKey : null,
+          originalName,
+          contentType: detected.mime,
+          sizeBytes: file.size,
+          sha256: file.sha256,
+          uploadedBy: person.id,
+        },
+        { transaction: t },
+      );
+      await record(t, {
+        actor: person,
+        buildId: build.id,
+        entity: 'media',
+        entityId: row.id,
+        action: 'uploaded',
+        summary: `${person.name} uploaded ${kind} “${originalName}”`,
+        after: { kind, stage: row.stage, caption: row.caption, upgradeId: row.upgradeId, episodeId: row.episodeId, partId: row.partId },
       });
-      return toRecord(m, person.name);
-    } catch (err) {
-      // No object without its row.
-      await cleanUp(written);
-      throw err;
-    }
+      return row;
+    });
+  } catch (err) {
+    // No object without its row.
+    await cleanUp(written);
+    throw err;
   } finally {
     await removeTemp(file);
   }
+  return toRecord(m, person.name);
 }
 
 async function cleanUp(keys: string[]) {

@@ -5,7 +5,7 @@ import { createHash, randomUUID } from 'node:crypto';
 import { createWriteStream, mkdirSync } from 'node:fs';
 import { unlink } from 'node:fs/promises';
 import path from 'node:path';
-import { Transform, type TransformCallback } from 'node:stream';
+import { PassThrough, Transform, type TransformCallback } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
 import type { Request } from 'express';
 import multer, { type StorageEngine } from 'multer';
@@ -13,6 +13,7 @@ import { fileTypeFromBuffer } from 'file-type';
 import { config } from '../config';
 import { AppError } from '../errors';
 import type { MediaKind } from '../../shared/domain';
+import { putStream, type StreamUpload } from '../storage';
 
 export interface AllowedType {
   kind: MediaKind;
@@ -62,16 +63,32 @@ export function contentDisposition(name: string, type: 'attachment' | 'inline' =
   return `${type}; filename="${ascii}"; filename*=UTF-8''${encodeURIComponent(name).replace(/['()*]/g, (c) => '%' + c.charCodeAt(0).toString(16).toUpperCase())}`;
 }
 
+export type Detected = AllowedType & { mime: string };
+
+export const storageUnavailable = () =>
+  new AppError(503, 'storage_unavailable', 'The file store cannot be reached right now, so nothing was saved. Try again in a minute.');
+
 /** What the engine adds to req.file. */
 export interface ReceivedFile extends Express.Multer.File {
   sha256: string;
-  detected: AllowedType & { mime: string };
+  detected: Detected;
+  /** Set when the file was streamed into the object store while it arrived. */
+  stored?: { key: string };
 }
+
+/**
+ * Called once the type is known, before any byte goes to storage: checks the form fields read
+ * so far and answers the object key to stream to (or null to store it after the upload ends).
+ */
+export type OnDetected = (req: Request, detected: Detected) => Promise<string | null>;
 
 const SNIFF_BYTES = 4100; // file-type reads at most this many bytes for the formats we accept
 
 /** Hashes and counts bytes, sniffs the type from the head, and stops past the kind's limit. */
 class Inspector extends Transform {
+  constructor(private onDetected?: (t: Detected) => Promise<void>) {
+    super();
+  }
   hash = createHash('sha256');
   size = 0;
   detected: (AllowedType & { mime: string }) | null = null;
@@ -100,14 +117,14 @@ class Inspector extends Transform {
   private release(cb: TransformCallback) {
     const head = Buffer.concat(this.head);
     this.head = [];
-    sniff(head).then(
-      (t) => {
+    sniff(head)
+      .then(async (t) => {
         this.detected = t;
-        if (this.size > limitBytes(t.kind)) return cb(tooLarge(t.kind));
+        if (this.size > limitBytes(t.kind)) throw tooLarge(t.kind);
+        await this.onDetected?.(t);
         cb(null, head);
-      },
-      (err) => cb(err),
-    );
+      })
+      .catch((err) => cb(err));
   }
 }
 
@@ -123,19 +140,37 @@ export async function sniff(head: Buffer): Promise<AllowedType & { mime: string 
 }
 
 class InspectingDiskStorage implements StorageEngine {
-  _handleFile(_req: Request, file: Express.Multer.File, cb: (error?: unknown, info?: Partial<ReceivedFile>) => void) {
+  constructor(private onDetected?: OnDetected) {}
+
+  _handleFile(req: Request, file: Express.Multer.File, cb: (error?: unknown, info?: Partial<ReceivedFile>) => void) {
     const dir = path.resolve(config().UPLOAD_DIR);
     mkdirSync(dir, { recursive: true });
     // Our own name on disk; the person's name is kept only as data.
     const dest = path.join(dir, `${randomUUID()}.part`);
-    const inspector = new Inspector();
-    pipeline(file.stream, inspector, createWriteStream(dest, { flags: 'wx' })).then(
-      () => cb(null, { path: dest, size: inspector.size, sha256: inspector.hash.digest('hex'), detected: inspector.detected! }),
-      (err) => {
-        unlink(dest).catch(() => undefined);
+    let upload: StreamUpload | null = null;
+    // Once the type is known and the fields check out, the same bytes also stream to storage,
+    // so a large video is stored by the time its last byte arrives.
+    const toStore = new PassThrough({ highWaterMark: 1024 * 1024 });
+    const inspector: Inspector = new Inspector(async (t) => {
+      const key = this.onDetected ? await this.onDetected(req, t) : null;
+      if (!key) return;
+      upload = putStream(key, toStore, t.mime);
+      upload.done.catch(() => inspector.destroy(storageUnavailable()));
+      inspector.pipe(toStore);
+    });
+    pipeline(file.stream, inspector, createWriteStream(dest, { flags: 'wx' }))
+      .then(async () => {
+        const u = upload as StreamUpload | null;
+        if (u) await u.done.catch(() => Promise.reject(storageUnavailable()));
+        cb(null, { path: dest, size: inspector.size, sha256: inspector.hash.digest('hex'), detected: inspector.detected!, stored: u ? { key: u.key } : undefined });
+      })
+      .catch(async (err) => {
+        const u = upload as StreamUpload | null;
+        toStore.destroy();
+        if (u) await u.abort();
+        await unlink(dest).catch(() => undefined);
         cb(err);
-      },
-    );
+      });
   }
 
   _removeFile(_req: Request, file: Express.Multer.File, cb: (error: Error | null) => void) {
@@ -148,9 +183,9 @@ class InspectingDiskStorage implements StorageEngine {
 }
 
 /** The multer middleware for one file in field `file`; its errors become our JSON errors. */
-export function receiveOneFile() {
+export function receiveOneFile(onDetected?: OnDetected) {
   const upload = multer({
-    storage: new InspectingDiskStorage(),
+    storage: new InspectingDiskStorage(onDetected),
     // Browsers send UTF-8 file names.
     defParamCharset: 'utf8',
     limits: { files: 1, fields: 12, fieldSize: 2000, parts: 14, fileSize: largestLimit() },

@@ -39,7 +39,7 @@ function onNotice(msg: pg.Notification) {
 
 function connect(): Promise<void> {
   if (!config().OVERVIEW_CACHE || listening || connecting) return connecting ?? Promise.resolve();
-  const c = new pg.Client({ connectionString: config().DATABASE_URL });
+  const c = new pg.Client({ connectionString: config().DATABASE_URL, keepAlive: true });
   const lost = () => {
     if (client !== c) return;
     listening = false;

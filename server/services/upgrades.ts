@@ -146,9 +146,15 @@ export async function updateUpgrade(actor: Person, build: Build, id: number, inp
         throw new AppError(409, 'prerequisites_not_installed', `Install these first: ${missing.join(', ')}.`, undefined, { prerequisites: missing });
       }
     }
-    if (fields.installState === 'installed' && u.installState !== 'installed' && fields.installedOn === undefined && !u.installedOn) fields.installedOn = today();
+    if (fields.installedOn === undefined && fields.installState && fields.installState !== u.installState) {
+      // The install date follows the state unless the person gives one: set on install, cleared on the way back.
+      if (fields.installState === 'installed' && !u.installedOn) fields.installedOn = today();
+      if (fields.installState !== 'installed') fields.installedOn = null;
+    }
     const before = await upgradeRecord(u, t);
     u.set(fields as Partial<Upgrade>);
+    // A position belongs to the episode it was given in; a move to another episode goes to its end.
+    if (fields.episodeId !== undefined && fields.episodeId !== before.episodeId) u.episodePosition = null;
     await u.save({ transaction: t });
     const after = await upgradeRecord(u, t);
     const changes = diff(before, after);

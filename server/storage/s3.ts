@@ -79,16 +79,48 @@ export function s3(): S3Client {
 
 const bucket = () => storageSettings().bucket;
 
-/** Streams a file from disk into the store with multipart upload (8 MiB parts, 4 at a time). */
+/**
+ * Streams a file from disk into the store with multipart upload: 8 MiB parts, 3 in flight, so
+ * at most ~24 MiB of a file is in memory whatever its size.
+ */
 export async function putFile(key: string, file: string, contentType: string): Promise<void> {
   const upload = new Upload({
     client: s3(),
     params: { Bucket: bucket(), Key: key, Body: createReadStream(file), ContentType: contentType },
     partSize: 8 * 1024 * 1024,
-    queueSize: 4,
+    queueSize: 3,
     leavePartsOnError: false,
   });
   await upload.done();
+}
+
+export interface StreamUpload {
+  key: string;
+  done: Promise<void>;
+  /** Stops a multipart upload in progress (its parts are discarded) and removes a finished object. */
+  abort: () => Promise<void>;
+}
+
+/** Starts a multipart upload that reads `body` as it arrives (same part size and queue as putFile). */
+export function putStream(key: string, body: Readable, contentType: string): StreamUpload {
+  const upload = new Upload({
+    client: s3(),
+    params: { Bucket: bucket(), Key: key, Body: body, ContentType: contentType },
+    partSize: 8 * 1024 * 1024,
+    queueSize: 3,
+    leavePartsOnError: false,
+  });
+  const done = upload.done().then(() => undefined);
+  done.catch(() => undefined); // the caller awaits it; never an unhandled rejection
+  return {
+    key,
+    done,
+    abort: async () => {
+      await upload.abort().catch(() => undefined);
+      await done.catch(() => undefined);
+      await removeObject(key).catch(() => undefined);
+    },
+  };
 }
 
 export async function putBuffer(key: string, body: Buffer, contentType: string): Promise<void> {

@@ -336,6 +336,22 @@ describe('media: storage down, and leftovers', () => {
     const installer = await as('installer');
     const kept = (await upload(installer, await png(), 'kept.png')).body.media;
     const keptRow = (await Media.findByPk(kept.id))!;
+    // Refused after the bytes began streaming into storage: what was stored is removed again.
+    const c = config() as { UPLOAD_MAX_PHOTO_MB: number };
+    const saved = c.UPLOAD_MAX_PHOTO_MB;
+    c.UPLOAD_MAX_PHOTO_MB = 1;
+    try {
+      const big = Buffer.concat([await jpeg(), Buffer.alloc(12 * 1024 * 1024, 7)]);
+      expect((await upload(installer, big, 'too-big.jpg')).status).toBe(413);
+    } finally {
+      c.UPLOAD_MAX_PHOTO_MB = saved;
+    }
+    const late = await installer.post(`/api/builds/${build.id}/media`).attach('file', mp4(9 * 1024 * 1024), 'late.mp4').field('upgradeId', String(otherUpgrade.id));
+    expect(late.status).toBe(400);
+    const stored: string[] = [];
+    for await (const o of listKeys('builds/')) stored.push(o.key);
+    expect(stored.sort()).toEqual([keptRow.objectKey, keptRow.thumbKey].sort());
+
     await putBuffer(`builds/${build.id}/2026-01/orphan.jpg`, await jpeg(), 'image/jpeg');
     const dry = await sweepOrphans({ graceMs: 0 });
     expect(dry.orphans.map((o) => o.key)).toEqual([`builds/${build.id}/2026-01/orphan.jpg`]);

@@ -189,6 +189,15 @@ describe('PATCH /upgrades/:upgradeId', () => {
     expect(hist.body.activity[0]).toMatchObject({ action: 'update', userName: 'Theo Okafor' });
     expect(hist.body.activity[0].changes.priority).toEqual([3, 1]);
   });
+  it('the install date follows the install state unless given', async () => {
+    const u = await create('producer', { title: 'Dated', area: 'front' });
+    const inst = await as.producer.patch(url(`/${u.id}`)).send({ version: 0, installState: 'installed' });
+    expect(inst.body.upgrade.installedOn).toMatch(/^\d{4}-\d{2}-\d{2}$/);
+    const given = await as.producer.patch(url(`/${u.id}`)).send({ version: 1, installedOn: '2026-11-02' });
+    expect(given.body.upgrade.installedOn).toBe('2026-11-02');
+    const back = await as.producer.patch(url(`/${u.id}`)).send({ version: 2, installState: 'queued' });
+    expect(back.body.upgrade.installedOn).toBeNull();
+  });
   it('a stale version answers 409 stale with the current record', async () => {
     const u = await create('producer', { title: 'Contended', area: 'front' });
     await as.producer.patch(url(`/${u.id}`)).send({ version: 0, title: 'First writer' });
@@ -223,6 +232,22 @@ describe('PATCH /upgrades/:upgradeId', () => {
     const again = await as.installer.patch(url(`/${brake.id}`)).send({ version: brake.version, installState: 'in_bay' });
     expect(again.status).toBe(200);
     expect((await Upgrade.findByPk(wiring.id))!.installedOn).toMatch(/^\d{4}-\d{2}-\d{2}$/);
+  });
+  it.each([
+    ['version', {}],
+    ['version', { version: 'one' }],
+    ['area', { version: 0, area: 'roof' }],
+    ['demoSegment', { version: 0, demoSegment: 'filmed' }],
+    ['tireFrom', { version: 0, tireFrom: '18 inch' }],
+    ['installedOn', { version: 0, installedOn: '2026-12-32' }],
+    ['buildId', { version: 0, buildId: 1 }],
+  ])('PATCH with bad %s answers 400 naming it, nothing written', async (field, body) => {
+    const u = await byTitle('Power liftgate');
+    const before = await counts(...TABLES);
+    const res = await as.producer.patch(url(`/${u.id}`)).send(body);
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields.map((f: { path: string }) => f.path)).toContain(field);
+    expect(await counts(...TABLES)).toEqual(before);
   });
   it('marketing gets 403', async () => {
     const u = await byTitle('Power liftgate');

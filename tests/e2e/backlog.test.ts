@@ -207,6 +207,40 @@ describe('backlog in the browser', () => {
       await page.getByLabel('VIN').waitFor();
       await page.getByLabel('Budget (dollars)').waitFor();
       await audit(s, 'build settings (owner)');
+      const buildId = await ternId(s);
+
+      // VIN: the regulation's worked example 1M8GDM9AXKP042788 (49 CFR 565.15(c)) has check digit
+      // X and year code K (1989 or 2019). With a wrong ninth character the check warns, shows the
+      // computed digit, and the VIN is kept only with the explicit override.
+      await page.getByLabel('VIN').fill('1M8GDM9A1KP042788');
+      await page.locator('[data-test="vin-digit"]').waitFor();
+      expect(await page.locator('[data-test="vin-digit"]').innerText()).toBe('X');
+      expect(await page.locator('[data-test="vin-years"]').innerText()).toBe('1989 or 2019');
+      await audit(s, 'VIN warning');
+      await page.getByRole('button', { name: 'Save settings' }).click();
+      await page.getByText('Tick “use this VIN anyway”').waitFor();
+      await page.locator('[data-test="vin-override"]').click();
+      await page.getByRole('button', { name: 'Save settings' }).click();
+      await message(page, 'Settings saved.');
+      let { build } = await apiGet<{ build: { vin: string; vinCheckOverridden: boolean; version: number; budgetCents: number } }>(s, `/api/builds/${buildId}`);
+      expect(build.vin).toBe('1M8GDM9A1KP042788');
+      expect(build.vinCheckOverridden).toBe(true);
+
+      // Someone else saves while the owner edits: the owner re-applies only their own change.
+      await page.getByLabel('Mileage').fill('23456');
+      const other = await s.page.request.patch(`${server.url}/api/builds/${buildId}`, {
+        headers: { 'X-Requested-With': 'Bayslate' },
+        data: { summary: 'Changed in another tab', version: build.version },
+      });
+      expect(other.status()).toBe(200);
+      await page.getByRole('button', { name: 'Save settings' }).click();
+      await page.getByText('Someone else changed this first').waitFor();
+      await audit(s, 'stale dialog');
+      await page.getByRole('button', { name: 'Apply my change again' }).click();
+      await message(page, 'Settings saved.');
+      ({ build } = await apiGet(s, `/api/builds/${buildId}`));
+      expect((build as unknown as { mileage: number; summary: string }).mileage).toBe(23456);
+      expect((build as unknown as { mileage: number; summary: string }).summary).toBe('Changed in another tab');
     } finally {
       await s.close();
     }

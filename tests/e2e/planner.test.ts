@@ -28,6 +28,23 @@ describe('episode planner in the browser', () => {
       await page.getByRole('table').getByText('Ready to tow').waitFor();
       await audit(s, 'planner with timeline table');
 
+      // Native drag and drop: an unplanned upgrade dragged onto an episode joins it (not saved yet).
+      // The HTML5 drag events, as the browser sends them, with one shared DataTransfer.
+      const sensors = page.locator('.unplanned li', { hasText: 'Rear parking sensors' });
+      const target = page.locator('[data-test="episode-13"]');
+      const dataTransfer = await page.evaluateHandle(() => new DataTransfer());
+      await sensors.dispatchEvent('dragstart', { dataTransfer });
+      await target.dispatchEvent('dragover', { dataTransfer });
+      await target.dispatchEvent('drop', { dataTransfer });
+      await sensors.dispatchEvent('dragend', { dataTransfer }).catch(() => undefined);
+      await target.getByText('Rear parking sensors', { exact: true }).waitFor();
+      // Over capacity at once (7 h + 3 h in an 8 h episode), said on the episode itself.
+      await target.getByRole('note').filter({ hasText: 'over its capacity' }).waitFor();
+      expect(await page.getByText('Not in an episode (1)').isVisible()).toBe(true);
+      await page.getByRole('region', { name: 'Unsaved changes' }).waitFor();
+      await page.getByRole('button', { name: 'Discard changes' }).click();
+      await page.getByText('Not in an episode (2)').waitFor();
+
       await page.getByRole('button', { name: 'Propose a plan' }).click();
       const proposal = page.getByRole('region', { name: 'Proposed plan' });
       await proposal.waitFor();
