@@ -5,12 +5,14 @@
 import { fork, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
 import { fileURLToPath } from 'node:url';
+import { readFileSync } from 'node:fs';
 import type { AddressInfo } from 'node:net';
 import pg from 'pg';
 import type autocannon from 'autocannon';
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 10);
 const CONNECTIONS = 50;
+const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 5);
 const TARGET_P95_MS = 50;
 const TARGET_RATIO = 0.4;
 
@@ -28,6 +30,7 @@ async function serve() {
   outer.use(createApp());
   const server = outer.listen(0, '127.0.0.1', () => process.send!({ port: (server.address() as AddressInfo).port }));
   process.on('disconnect', () => process.exit(0));
+  process.on('SIGTERM', () => process.exit(0));
 }
 
 // ---------- the generated build ----------
@@ -79,19 +82,51 @@ interface Figures {
   p99: number;
   rps: number;
   requests: number;
+  /** Server CPU per request (µs): independent of what else the machine is doing. */
+  cpuUsPerRequest: number;
   non2xx: number;
   errors: number;
 }
 
-async function load(url: string, headers: Record<string, string>): Promise<Figures> {
+/** Load of one route for `seconds`; the raw latencies are returned so rounds can be merged. */
+/** CPU time the server process has used so far, in ms (Linux /proc; 0 elsewhere). */
+function serverCpuMs(pid: number | undefined): number {
+  try {
+    const f = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+    return ((Number(f[11]) + Number(f[12])) * 1000) / 100; // utime + stime, in clock ticks of 1/100 s
+  } catch {
+    return 0;
+  }
+}
+let serverPid: number | undefined;
+
+async function round(url: string, headers: Record<string, string>, seconds: number) {
+  const cpu0 = serverCpuMs(serverPid);
   const autocannon = (await import('autocannon')).default;
   const latencies: number[] = [];
-  const inst = autocannon({ url, connections: CONNECTIONS, duration: SECONDS, headers, timeout: 10 }) as unknown as Promise<autocannon.Result> & { on: (ev: 'response', fn: (...a: never[]) => void) => void };
+  const inst = autocannon({ url, connections: CONNECTIONS, duration: seconds, headers, timeout: 10 }) as unknown as Promise<autocannon.Result> & { on: (ev: 'response', fn: (...a: never[]) => void) => void };
   inst.on('response', (_c: unknown, _status: number, _bytes: number, ms: number) => latencies.push(ms));
   const r = await inst;
-  latencies.sort((a, b) => a - b);
+  return { latencies, requests: r.requests.total, non2xx: r.non2xx, errors: r.errors + r.timeouts, cpuMs: serverCpuMs(serverPid) - cpu0 };
+}
+
+function figures(rounds: Awaited<ReturnType<typeof round>>[], seconds: number): Figures {
+  const latencies = rounds.flatMap((r) => r.latencies).sort((a, b) => a - b);
   const pct = (p: number) => (latencies.length ? latencies[Math.min(latencies.length - 1, Math.ceil((p / 100) * latencies.length) - 1)] : NaN);
-  return { p50: pct(50), p95: pct(95), p99: pct(99), rps: r.requests.total / SECONDS, requests: r.requests.total, non2xx: r.non2xx, errors: r.errors + r.timeouts };
+  const requests = rounds.reduce((s, r) => s + r.requests, 0);
+  const cpuMs = rounds.reduce((s, r) => s + r.cpuMs, 0);
+  return { p50: pct(50), p95: pct(95), p99: pct(99), rps: requests / seconds, requests, cpuUsPerRequest: requests ? (cpuMs * 1000) / requests : NaN, non2xx: rounds.reduce((s, r) => s + r.non2xx, 0), errors: rounds.reduce((s, r) => s + r.errors, 0) };
+}
+
+/**
+ * The routes take turns in short rounds (ROUNDS × SECONDS/ROUNDS each) rather than one long run
+ * after the other, so a change in the machine's other load during the run falls on all of them alike.
+ */
+async function compare(targets: { name: string; url: string; headers: Record<string, string> }[]) {
+  const per = SECONDS / ROUNDS;
+  const got = new Map<string, Awaited<ReturnType<typeof round>>[]>(targets.map((t) => [t.name, []]));
+  for (let i = 0; i < ROUNDS; i++) for (const t of targets) got.get(t.name)!.push(await round(t.url, t.headers, per));
+  return new Map(targets.map((t) => [t.name, figures(got.get(t.name)!, SECONDS)]));
 }
 
 async function warm(url: string, headers: Record<string, string>) {
@@ -131,11 +166,12 @@ async function main() {
     console.log(`generated ${n.upgrades} upgrades, ${n.parts} parts, ${n.labour} labour entries in ${Math.round(performance.now() - t0)} ms (database ${dbName})`);
     await sequelize.close();
 
-    child = fork(fileURLToPath(import.meta.url), ['--serve'], { env: process.env, execArgv: ['--import', 'tsx'], stdio: ['ignore', 'inherit', 'inherit', 'ipc'] });
+    child = fork(fileURLToPath(import.meta.url), ['--serve'], { env: process.env, execArgv: ['--import', 'tsx', ...(process.env.BENCH_CPU_PROFILE ? ['--cpu-prof', `--cpu-prof-dir=${process.env.BENCH_CPU_PROFILE}`] : [])], stdio: ['ignore', 'inherit', 'inherit', 'ipc'] });
     const port = await new Promise<number>((resolve, reject) => {
       child!.once('message', (m: { port: number }) => resolve(m.port));
       child!.once('exit', (code) => reject(new Error(`the server exited with ${code}`)));
     });
+    serverPid = child.pid;
     const base = `http://127.0.0.1:${port}`;
     const login = await fetch(`${base}/api/auth/login`, {
       method: 'POST',
@@ -145,7 +181,8 @@ async function main() {
     if (!login.ok) throw new Error(`sign-in answered ${login.status}`);
     const cookie = login.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
     // As a browser sends them: the session cookie and gzip accepted.
-    const headers = { cookie, 'x-requested-with': 'Bayslate', 'accept-encoding': 'gzip, deflate, br' };
+    const headers: Record<string, string> = { cookie, 'x-requested-with': 'Bayslate' };
+    if (process.env.BENCH_GZIP !== '0') headers['accept-encoding'] = 'gzip, deflate, br';
     const overviewUrl = `${base}/api/builds/${build.id}/overview`;
     const check = await fetch(overviewUrl, { headers });
     if (!check.ok) throw new Error(`overview answered ${check.status}`);
@@ -153,19 +190,26 @@ async function main() {
     console.log(`overview response: ${(body.length / 1024).toFixed(1)} KiB`);
 
     await warm(overviewUrl, headers);
+    const cacheState = (await fetch(overviewUrl, { headers })).headers.get('x-overview-cache');
+    console.log(`overview cache after warm-up: ${cacheState}`);
     await warm(`${base}/bench/bare`, {});
-    const overview = await load(overviewUrl, headers);
-    const bare = await load(`${base}/bench/bare`, {});
-    // For reading the figures: what a signed-in request costs before any feature runs.
-    const me = process.env.BENCH_ME === '0' ? null : await load(`${base}/api/auth/me`, headers);
+    const results = await compare([
+      { name: 'overview', url: overviewUrl, headers },
+      { name: 'bare', url: `${base}/bench/bare`, headers: {} },
+      // For reading the figures: what a signed-in request costs before any feature runs.
+      { name: 'me', url: `${base}/api/auth/me`, headers },
+    ]);
+    const overview = results.get('overview')!;
+    const bare = results.get('bare')!;
+    const me = results.get('me')!;
     const ratio = overview.rps / bare.rps;
     const row = (name: string, f: Figures) =>
-      `${name.padEnd(22)} ${f.p50.toFixed(1).padStart(7)} ${f.p95.toFixed(1).padStart(7)} ${f.p99.toFixed(1).padStart(7)} ${f.rps.toFixed(0).padStart(8)} ${String(f.non2xx + f.errors).padStart(7)}`;
-    console.log(`\n${CONNECTIONS} connections, ${SECONDS} s each, loopback`);
-    console.log(`${'route'.padEnd(22)} ${'p50 ms'.padStart(7)} ${'p95 ms'.padStart(7)} ${'p99 ms'.padStart(7)} ${'req/s'.padStart(8)} ${'failed'.padStart(7)}`);
+      `${name.padEnd(22)} ${f.p50.toFixed(1).padStart(7)} ${f.p95.toFixed(1).padStart(7)} ${f.p99.toFixed(1).padStart(7)} ${f.rps.toFixed(0).padStart(8)} ${f.cpuUsPerRequest.toFixed(0).padStart(9)} ${String(f.non2xx + f.errors).padStart(7)}`;
+    console.log(`\n${CONNECTIONS} connections, ${SECONDS} s each (${ROUNDS} alternating rounds), loopback, OVERVIEW_CACHE=${process.env.OVERVIEW_CACHE ?? '1'}`);
+    console.log(`${'route'.padEnd(22)} ${'p50 ms'.padStart(7)} ${'p95 ms'.padStart(7)} ${'p99 ms'.padStart(7)} ${'req/s'.padStart(8)} ${'cpu µs/r'.padStart(9)} ${'failed'.padStart(7)}`);
     console.log(row('GET overview', overview));
     console.log(row('bare SELECT 1', bare));
-    if (me) console.log(row('signed-in /api/auth/me', me));
+    console.log(row('signed-in /api/auth/me', me));
     console.log(`throughput ratio: ${(ratio * 100).toFixed(1)} % (target ≥ ${TARGET_RATIO * 100} %)`);
     console.log(`overview p95: ${overview.p95.toFixed(1)} ms (target < ${TARGET_P95_MS} ms)`);
     const met = overview.p95 < TARGET_P95_MS && ratio >= TARGET_RATIO && overview.non2xx + overview.errors === 0;

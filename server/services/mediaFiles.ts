@@ -13,7 +13,7 @@ import { fileTypeFromBuffer } from 'file-type';
 import { config } from '../config';
 import { AppError } from '../errors';
 import type { MediaKind } from '../../shared/domain';
-import { putStream, type StreamUpload } from '../storage';
+import { putStream, type StreamUpload } from '../storage/s3';
 
 export interface AllowedType {
   kind: MediaKind;

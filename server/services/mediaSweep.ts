@@ -1,6 +1,9 @@
 // Leftover objects: keys in the bucket that no media row names (an upload whose row was never
 // written, a deleted build's files, a removal that failed while the store was down).
+import { readdir, stat, unlink } from 'node:fs/promises';
+import path from 'node:path';
 import { Op } from 'sequelize';
+import { config } from '../config';
 import { Media } from '../models';
 import { listKeys, removeObjects } from '../storage';
 
@@ -40,4 +43,19 @@ export async function sweepOrphans(opts: { remove?: boolean; graceMs?: number } 
   await check();
   if (opts.remove) await removeObjects(orphans.map((o) => o.key));
   return { scanned, orphans, removed: opts.remove ? orphans.length : 0 };
+}
+
+/** Temporary upload files (UPLOAD_DIR/*.part) older than `graceMs`: left by a crash mid-upload. */
+export async function sweepTempFiles(opts: { remove?: boolean; graceMs?: number } = {}): Promise<string[]> {
+  const dir = path.resolve(config().UPLOAD_DIR);
+  const cutoff = Date.now() - (opts.graceMs ?? 3600_000);
+  const names = await readdir(dir).catch(() => [] as string[]);
+  const old: string[] = [];
+  for (const n of names.filter((x) => x.endsWith('.part'))) {
+    const f = path.join(dir, n);
+    const st = await stat(f).catch(() => null);
+    if (st && st.mtimeMs <= cutoff) old.push(f);
+  }
+  if (opts.remove) await Promise.all(old.map((f) => unlink(f).catch(() => undefined)));
+  return old;
 }

@@ -4,6 +4,8 @@
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import type { Page } from 'playwright-core';
 import { openBrowser, signIn, audit, visit, startAppServer, type AppServer, type BrowserSession } from '../helpers/browser';
+import { compareTires } from '../../shared/tires';
+import { SAFETY_CAUTIONS } from '../../shared/safety';
 
 let server: AppServer;
 beforeAll(async () => {
@@ -136,6 +138,22 @@ describe('backlog in the browser', () => {
       const { parts } = await apiGet<{ parts: { partNumber: string; upgradeId: number }[] }>(s, `/api/builds/${buildId}/parts?upgradeId=${created.id}`);
       expect(parts.map((p) => p.partNumber).sort()).toEqual(['HT-PDL-6320', 'HT-PDL-6321']);
       await audit(s, 'parts after import');
+
+      // Destructive actions ask first: a part is deleted after confirming; an upgrade others
+      // depend on is refused with its dependants named.
+      await visit(s, `/builds/${buildId}/backlog?upgrade=${created.id}`);
+      const line = drawer(page).locator('[data-test="part-HT-PDL-6321"]');
+      await line.getByRole('button', { name: /Delete/ }).click();
+      await page.getByRole('dialog', { name: 'Delete part HT-PDL-6321?' }).waitFor();
+      await audit(s, 'delete confirmation');
+      await page.getByRole('button', { name: 'Delete the part' }).click();
+      await message(page, 'Part deleted.');
+      await line.waitFor({ state: 'detached' });
+      await visit(s, `/builds/${buildId}/backlog?upgrade=${mirrors.id}`);
+      await drawer(page).getByRole('button', { name: 'Delete', exact: true }).click();
+      await page.getByRole('button', { name: 'Delete the upgrade' }).click();
+      await message(page, 'Puddle lamps in the mirrors');
+      await upgradeByTitle(s, buildId, 'Power-folding mirrors with turn signals');
     } finally {
       await s.close();
     }
@@ -166,6 +184,18 @@ describe('backlog in the browser', () => {
       const after = (await apiGet<{ labour: { hours: number; note: string | null }[] }>(s, `/api/builds/${buildId}/labour?upgradeId=${wiring.id}`)).labour;
       expect(after.length).toBe(before + 1);
       expect(after.some((l) => l.hours === 1.5 && l.note === 'Routed the harness along the frame rail')).toBe(true);
+
+      // Install state: the brake controller waits for the trailer wiring, and says so.
+      const brake = await upgradeByTitle(s, buildId, 'Trailer brake controller');
+      await visit(s, `/builds/${buildId}/backlog?upgrade=${brake.id}`);
+      const states = drawer(page).getByRole('group', { name: 'Install state' });
+      await states.getByRole('button', { name: 'In the bay' }).click();
+      await message(page, 'Trailer wiring, 7-pin');
+      expect((await apiGet<{ upgrade: { installState: string } }>(s, `/api/builds/${buildId}/upgrades/${brake.id}`)).upgrade.installState).toBe('queued');
+      await visit(s, `/builds/${buildId}/backlog?upgrade=${wiring.id}`);
+      await drawer(page).getByRole('group', { name: 'Install state' }).getByRole('button', { name: 'Installed' }).click();
+      await message(page, 'Marked installed.');
+      expect((await apiGet<{ upgrade: { installState: string } }>(s, `/api/builds/${buildId}/upgrades/${wiring.id}`)).upgrade.installState).toBe('installed');
 
       // Receive a part from the parts screen.
       await visit(s, `/builds/${buildId}/parts`);
@@ -265,6 +295,21 @@ describe('backlog in the browser', () => {
       expect(await drawer(page).getByRole('button', { name: 'Log hours' }).count()).toBe(0);
       expect(await drawer(page).getByRole('button', { name: 'Edit details' }).count()).toBe(0);
       await audit(s, 'drawer (marketing)');
+      // The wheel-and-tire panel and the cautions of a flagged upgrade.
+      const wheels = await upgradeByTitle(s, buildId, '20-inch alloy wheels');
+      await visit(s, `/builds/${buildId}/backlog?upgrade=${wheels.id}`);
+      const tires = drawer(page).locator('[data-test="tire-check"]');
+      await tires.waitFor();
+      const expected = compareTires('235/65R18', '255/50R20');
+      if (!expected.ok) throw new Error('demo sizes should parse');
+      expect(await tires.locator('[data-test="tire-change"]').innerText()).toBe(expected.display.diameterChange);
+      expect(await tires.locator('[data-test="tire-speedo"]').innerText()).toBe(`${expected.display.speedometerAtTrue60} mph`);
+      expect(await tires.locator('[data-test="tire-warning"]').count()).toBe(expected.warning ? 1 : 0);
+      expect(await tires.innerText()).toContain(`${expected.to.display.overallDiameter} in`);
+      expect(await drawer(page).locator('[data-test="caution-wheels_tires"]').innerText()).toContain(SAFETY_CAUTIONS.wheels_tires.caution);
+      expect(await drawer(page).locator('[data-test="caution-lifting"]').count()).toBe(1);
+      await audit(s, 'tire check (marketing)');
+
       await visit(s, `/builds/${buildId}/parts`);
       await page.locator('[data-test="part-HT-LMP-4410-L"] [data-test="retail"]').waitFor();
       expect(await page.locator('main').innerText()).not.toMatch(/Cost \$/);

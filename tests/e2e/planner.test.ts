@@ -1,7 +1,7 @@
 // The producer plans the series in the browser: proposes, accepts, moves an upgrade by keyboard and sees the violation at once.
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import { openBrowser, signIn, audit, visit, startAppServer, type AppServer } from '../helpers/browser';
-import { Build } from '../../server/models';
+import { Build, Episode } from '../../server/models';
 
 let server: AppServer;
 let buildId: number;
@@ -14,7 +14,7 @@ afterAll(async () => {
 });
 
 describe('episode planner in the browser', () => {
-  it('producer proposes a plan, accepts it, moves an upgrade with the keyboard and sees the violation inline', async () => {
+  it('producer proposes a plan, accepts it, moves an upgrade with the keyboard and sees the violation inline', { timeout: 150_000 }, async () => {
     const s = await openBrowser({ server });
     const { page } = s;
     try {
@@ -37,7 +37,7 @@ describe('episode planner in the browser', () => {
       await target.dispatchEvent('dragover', { dataTransfer });
       await target.dispatchEvent('drop', { dataTransfer });
       await sensors.dispatchEvent('dragend', { dataTransfer }).catch(() => undefined);
-      await target.getByText('Rear parking sensors', { exact: true }).waitFor();
+      await target.locator('.name', { hasText: 'Rear parking sensors' }).waitFor();
       // Over capacity at once (7 h + 3 h in an 8 h episode), said on the episode itself.
       await target.getByRole('note').filter({ hasText: 'over its capacity' }).waitFor();
       expect(await page.getByText('Not in an episode (1)').isVisible()).toBe(true);
@@ -74,6 +74,37 @@ describe('episode planner in the browser', () => {
       await back.selectOption({ index: 1 });
       await page.getByRole('button', { name: 'Discard changes' }).press('Enter');
       await page.getByRole('heading', { name: 'No problems in this plan' }).waitFor();
+    } finally {
+      await s.close();
+    }
+  });
+
+  it('producer edits an episode, and a stale save offers to reload', { timeout: 120_000 }, async () => {
+    const s = await openBrowser({ server });
+    const { page } = s;
+    try {
+      await signIn(s, 'producer');
+      await visit(s, `/builds/${buildId}/planner`);
+      await page.getByRole('button', { name: 'Edit episode 8', exact: true }).click();
+      const form = page.getByRole('dialog');
+      await form.getByLabel('Title').waitFor();
+      await audit(s, 'episode edit form');
+      // Release before shoot is caught by the shared schema before anything is sent.
+      await form.getByLabel('Shoot date').fill('2027-03-10');
+      await form.getByLabel('Release date').fill('2027-03-01');
+      await form.getByRole('button', { name: 'Save episode' }).click();
+      await form.getByText('Release date must be on or after the shoot date').waitFor();
+      await form.getByLabel('Release date').fill('2027-03-17');
+      // Someone else saves first.
+      const ep = (await Episode.findOne({ where: { buildId, number: 8 } }))!;
+      ep.title = 'Renamed elsewhere';
+      await ep.save();
+      await form.getByRole('button', { name: 'Save episode' }).click();
+      await page.getByText('Someone else changed this first').waitFor();
+      await audit(s, 'stale episode dialog');
+      await page.getByRole('button', { name: 'Reload' }).click();
+      await page.getByRole('heading', { name: /^Episode 8: Renamed elsewhere/ }).waitFor();
+      expect((await Episode.findByPk(ep.id))!.shootDate).not.toBe('2027-03-10');
     } finally {
       await s.close();
     }

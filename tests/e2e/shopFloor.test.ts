@@ -15,7 +15,7 @@ afterAll(async () => {
 });
 
 describe('shop floor on a phone', () => {
-  it('installer at 390px works an upgrade from start to filmed and logs hours', async () => {
+  it('installer at 390px works an upgrade from start to filmed and logs hours', { timeout: 120_000 }, async () => {
     const s = await openBrowser({ server, phone: true });
     const { page } = s;
     try {
