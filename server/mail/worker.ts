@@ -83,6 +83,18 @@ export async function processDueMail(opts: { transport?: Transporter | null; lim
   return result;
 }
 
+/**
+ * Forgets votes nobody confirmed: a day after their link expired the pending vote goes, and a
+ * request that was never confirmed goes once it has no pending vote left.
+ */
+export async function pruneUnconfirmed() {
+  await sequelize.query(`DELETE FROM viewer_votes WHERE confirmed_at IS NULL AND expires_at < now() - interval '1 day'`);
+  await sequelize.query(
+    `DELETE FROM viewer_requests r WHERE r.confirmed_at IS NULL AND r.created_at < now() - interval '1 day'
+       AND NOT EXISTS (SELECT 1 FROM viewer_votes v WHERE v.request_id = r.id)`,
+  );
+}
+
 let timer: NodeJS.Timeout | null = null;
 let running: Promise<unknown> | null = null;
 let stopped = true;
@@ -94,6 +106,7 @@ export function startMailWorker() {
   const tick = () => {
     if (stopped) return;
     running = processDueMail()
+      .then(() => pruneUnconfirmed())
       .catch((err) => console.error('[mail] worker pass failed:', err?.message ?? err))
       .finally(() => {
         running = null;

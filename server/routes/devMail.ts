@@ -16,8 +16,8 @@ const LINK = /https?:\/\/[^\s<>"')]+/g;
 function page(title: string, body: string) {
   return `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width,initial-scale=1">
 <title>${esc(title)} · Bayslate development inbox</title><link rel="icon" href="/favicon.svg">
-<style>body{font-family:system-ui,sans-serif;background:#faf8f3;color:#1d1f22;margin:0;padding:1.5rem;max-width:60rem}
-h1{font-size:1.4rem}table{border-collapse:collapse;width:100%}th,td{text-align:left;padding:.4rem .6rem;border-bottom:1px solid #e4dfd3;vertical-align:top}
+<style>body{font-family:system-ui,sans-serif;background:#faf8f3;color:#1d1f22;margin:0;padding:1rem;max-width:60rem}pre{overflow-wrap:anywhere}
+h1{font-size:1.4rem}table{border-collapse:collapse;width:100%;table-layout:fixed}th,td{text-align:left;padding:.4rem .6rem;border-bottom:1px solid #e4dfd3;vertical-align:top;overflow-wrap:anywhere}
 th{background:#f1ede4}a{color:#30485c}pre{white-space:pre-wrap;background:#fff;border:1px solid #e4dfd3;padding:1rem;border-radius:6px}
 .note{color:#5c616b}</style></head><body><main>${body}</main></body></html>`;
 }

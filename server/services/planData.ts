@@ -17,6 +17,8 @@ export interface UpgradeRow {
   episodeId: number | null;
   episodePosition: number | null;
   partsDueDate: string | null;
+  /** Parts still to come with no expected arrival yet: the planner cannot hold the upgrade back for them. */
+  partsUndated: number;
   prerequisiteIds: number[];
 }
 
@@ -35,12 +37,14 @@ export async function loadPlanData(build: Build, t?: Transaction): Promise<PlanD
   const [rows, edges, eps, ids, votes] = await Promise.all([
     sequelize.query<{
       id: number; title: string; area: Area; estimated_hours: number; priority: number; install_state: InstallState;
-      episode_id: number | null; episode_position: number | null; parts_due: string | null;
+      episode_id: number | null; episode_position: number | null; parts_due: string | null; parts_undated: number;
     }>(
       // Parts not yet in hand (not received, fitted or returned) decide when an upgrade can be shot.
       `SELECT u.id, u.title, u.area, u.estimated_hours, u.priority, u.install_state, u.episode_id, u.episode_position,
               (SELECT to_char(max(p.expected_arrival), 'YYYY-MM-DD') FROM parts p
-                WHERE p.upgrade_id = u.id AND p.state NOT IN ('received','fitted','returned')) AS parts_due
+                WHERE p.upgrade_id = u.id AND p.state NOT IN ('received','fitted','returned')) AS parts_due,
+              (SELECT count(*)::int FROM parts p
+                WHERE p.upgrade_id = u.id AND p.state NOT IN ('received','fitted','returned') AND p.expected_arrival IS NULL) AS parts_undated
          FROM upgrades u WHERE u.build_id = :buildId ORDER BY u.id`,
       { replacements, type: QueryTypes.SELECT, transaction: t },
     ),
@@ -71,6 +75,7 @@ export async function loadPlanData(build: Build, t?: Transaction): Promise<PlanD
       episodeId: r.episode_id,
       episodePosition: r.episode_position,
       partsDueDate: r.parts_due,
+      partsUndated: r.parts_undated,
       prerequisiteIds: prereqs.get(r.id) ?? [],
     })),
   };

@@ -13,6 +13,8 @@ export interface PlanUpgrade {
   episodeId: number | null;
   episodePosition: number | null;
   partsDueDate: string | null;
+  /** Parts still to come without an expected arrival (the planner cannot wait for them). */
+  partsUndated: number;
   prerequisiteIds: number[];
 }
 

@@ -1,7 +1,7 @@
 // Episodes on routes/episodes.ts: list, create with renumbering, state moves, 409s, delete, scoping.
 import { describe, it, expect, beforeAll } from 'vitest';
 import { anonymous, signInAs } from '../helpers/api';
-import { counts } from '../helpers/db';
+import { count, counts } from '../helpers/db';
 import { Build, Episode, Activity } from '../../server/models';
 
 let buildId: number;
@@ -80,7 +80,7 @@ describe('episodes', () => {
   it('state moves forward with an activity row each; going live needs a video URL and notifies', async () => {
     const producer = await signInAs('producer');
     const eps = (await producer.get(base)).body.episodes;
-    const draft = eps.find((e: { state: string }) => e.state === 'draft');
+    const draft = eps.filter((e: { state: string }) => e.state === 'draft').pop();
     const acts = await Activity.count({ where: { entity: 'episode', entityId: draft.id, action: 'state' } });
     const toShot = await producer.patch(`${base}/${draft.id}`).send({ state: 'shot', version: draft.version });
     expect(toShot.status).toBe(200);
@@ -97,6 +97,22 @@ describe('episodes', () => {
     expect(back.status).toBe(200);
     expect(back.body.episode.publishedAt).toBeNull();
     expect(await Activity.count({ where: { entity: 'episode', entityId: draft.id, action: 'state' } })).toBe(acts + 3);
+  });
+
+  it("going live tells the viewers who asked for one of the episode's upgrades, once", async () => {
+    const producer = await signInAs('producer');
+    const eps = (await producer.get(base)).body.episodes;
+    // "Warm hands, soft light" holds the heated steering wheel, a viewer request the demo accepted.
+    const ep = eps.find((e: { title: string }) => e.title === 'Warm hands, soft light');
+    const before = await count('mail_outbox');
+    const live = await producer.patch(`${base}/${ep.id}`).send({ state: 'live', videoUrl: 'https://video.example/tern-ep8', version: ep.version });
+    expect(live.status).toBe(200);
+    const queued = (await count('mail_outbox')) - before;
+    expect(queued).toBeGreaterThan(0);
+    // Back and live again: the same people are not told twice.
+    const back = await producer.patch(`${base}/${ep.id}`).send({ state: 'in_edit', version: live.body.episode.version });
+    await producer.patch(`${base}/${ep.id}`).send({ state: 'live', version: back.body.episode.version });
+    expect((await count('mail_outbox')) - before).toBe(queued);
   });
 
   it('an installer may only move a state forward, never back, and may not change other fields', async () => {

@@ -174,6 +174,15 @@ describe('GET /api/builds/:buildId/overview', () => {
     expect((await anonymous().get(`/api/builds/${handMade.id}/overview`)).status).toBe(401);
   });
 
+  it('refuses a producer at once when the owner takes the role away (no stale person is reused)', async () => {
+    const created = await owner.post('/api/users').send({ name: 'Temp Producer', email: 'temp-producer@cedar-ridge.test', roles: ['producer'] });
+    expect(created.status).toBe(201);
+    const agent = await signInAs({ email: 'temp-producer@cedar-ridge.test', password: created.body.temporaryPassword });
+    expect((await agent.get(`/api/builds/${handMade.id}/overview`)).status).toBe(200);
+    expect((await owner.patch(`/api/users/${created.body.user.id}`).send({ roles: ['installer'] })).status).toBe(200);
+    expect((await agent.get(`/api/builds/${handMade.id}/overview`)).status).toBe(403);
+  });
+
   it('answers 404 for a build that does not exist', async () => {
     expect((await owner.get('/api/builds/999999/overview')).status).toBe(404);
     expect((await owner.get('/api/builds/abc/overview')).status).toBe(404);

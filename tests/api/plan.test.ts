@@ -33,6 +33,11 @@ describe('the episode plan', () => {
     expect(res.body.criticalPath.days).toBeGreaterThan(0);
     expect(res.body.criticalPath.earliestFinish).toMatch(/^\d{4}-\d{2}-\d{2}$/);
     expect((await producer.get(`${base}/check`)).body.violations).toEqual([]);
+    // Parts still to come: the latest expected arrival, and a count of those with no date yet.
+    const byTitle = (t: string) => res.body.upgrades.find((u: { title: string }) => u.title === t);
+    expect(byTitle('Surround-view camera')).toMatchObject({ partsDueDate: '2026-12-29', partsUndated: 0 });
+    expect(byTitle('LED tail lamps')).toMatchObject({ partsDueDate: null, partsUndated: 2 });
+    expect(byTitle('Trailer wiring, 7-pin')).toMatchObject({ partsDueDate: null, partsUndated: 0 });
   });
 
   it('anonymous 401, installer and marketing 403', async () => {

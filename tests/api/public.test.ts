@@ -287,3 +287,21 @@ describe('unsubscribe and rate limits', () => {
     expect(status).toBe(429);
   });
 });
+
+describe('unconfirmed votes are forgotten', () => {
+  it('the worker drops pending votes a day past their expiry, and requests nobody confirmed', async () => {
+    const { pruneUnconfirmed } = await import('../../server/mail/worker');
+    // (Created directly: this file has used up its per-address write limit by now.)
+    const req = await ViewerRequest.create({ buildId: tern.id, title: 'Never confirmed wish', details: null });
+    await ViewerVote.create({ requestId: req.id, emailHash: emailHash(uniqueAddress('never')), emailSealed: 'sealed', name: null, confirmTokenHash: 'f'.repeat(64), expiresAt: new Date(Date.now() + 3_600_000) });
+    const kept = await openRequest('Confirmed and kept');
+    await pruneUnconfirmed();
+    expect(await ViewerVote.count({ where: { requestId: req.id } })).toBe(1);
+    await sequelize.query(`UPDATE viewer_votes SET expires_at = now() - interval '2 days' WHERE request_id = :id`, { replacements: { id: req.id } });
+    await sequelize.query(`UPDATE viewer_requests SET created_at = now() - interval '3 days' WHERE id IN (:ids)`, { replacements: { ids: [req.id, kept.id] } });
+    await pruneUnconfirmed();
+    expect(await ViewerVote.count({ where: { requestId: req.id } })).toBe(0);
+    expect(await ViewerRequest.count({ where: { id: req.id } })).toBe(0);
+    expect(await ViewerRequest.count({ where: { id: kept.id } })).toBe(1);
+  });
+});

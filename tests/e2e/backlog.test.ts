@@ -295,6 +295,15 @@ describe('backlog in the browser', () => {
       expect(await drawer(page).getByRole('button', { name: 'Log hours' }).count()).toBe(0);
       expect(await drawer(page).getByRole('button', { name: 'Edit details' }).count()).toBe(0);
       await audit(s, 'drawer (marketing)');
+      // Marketing keeps product pages current, and nothing else on the part.
+      await line.getByRole('button', { name: /Change product page/ }).click();
+      await line.getByLabel('Product page for HT-LMP-4410-L').fill('https://shop.cedar-ridge.test/parts/ht-lmp-4410-l');
+      await line.getByRole('button', { name: 'Save link' }).click();
+      await message(page, 'Product page saved.');
+      const { parts: lampParts } = await apiGet<{ parts: { partNumber: string; productUrl: string | null; unitCostCents?: number }[] }>(s, `/api/builds/${buildId}/parts?upgradeId=${lamps.id}`);
+      const left = lampParts.find((p) => p.partNumber === 'HT-LMP-4410-L')!;
+      expect(left.productUrl).toBe('https://shop.cedar-ridge.test/parts/ht-lmp-4410-l');
+      expect('unitCostCents' in left).toBe(false);
       // The wheel-and-tire panel and the cautions of a flagged upgrade.
       const wheels = await upgradeByTitle(s, buildId, '20-inch alloy wheels');
       await visit(s, `/builds/${buildId}/backlog?upgrade=${wheels.id}`);

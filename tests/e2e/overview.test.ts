@@ -58,6 +58,14 @@ describe('build overview in the browser', () => {
       // The CSV export offers a file with every upgrade's row.
       const [download] = await Promise.all([s.page.waitForEvent('download'), costPanel.getByRole('button', { name: 'Export Cost per upgrade as CSV' }).click()]);
       expect(download.suggestedFilename()).toBe('cost-per-upgrade.csv');
+      const csv = await (await import('node:fs/promises')).readFile((await download.path())!, 'utf8');
+      expect(csv.split('\r\n')[0]).toBe('Upgrade,Parts (USD),Labour (USD),Other (USD),Recovered (USD),Net (USD)');
+      expect(csv.trim().split('\r\n')).toHaveLength(expected.upgrades.length + 1);
+      // The PNG export is the chart's own picture.
+      const [png] = await Promise.all([s.page.waitForEvent('download'), costPanel.getByRole('button', { name: 'Export Cost per upgrade as PNG' }).click()]);
+      expect(png.suggestedFilename()).toBe('cost-per-upgrade.png');
+      const bytes = await (await import('node:fs/promises')).readFile((await png.path())!);
+      expect(bytes.subarray(1, 4).toString()).toBe('PNG');
 
       await row.first().getByRole('link', { name: costliest.title }).click();
       await s.page.waitForURL((u) => u.pathname.endsWith('/backlog') && u.searchParams.get('upgrade') === String(costliest.upgradeId));
@@ -101,6 +109,20 @@ describe('build overview in the browser', () => {
       const text = (await s.page.locator('main').textContent()) ?? '';
       expect(text).not.toMatch(/NaN|Infinity|undefined/);
       await audit(s, 'overview of an empty build');
+    } finally {
+      await s.close();
+    }
+  });
+
+  it('reads at phone width: figures and charts one above the other, nothing wider than the screen', async () => {
+    const s = await openBrowser({ server, phone: true });
+    try {
+      await signInQuick(s, 'owner');
+      await s.page.goto(`${server.url}/builds/${tern.id}/overview`);
+      await s.page.locator('[data-test="figure-net"]').waitFor();
+      const overflow = await s.page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+      expect(overflow).toBeLessThanOrEqual(1);
+      await audit(s, 'overview at phone width');
     } finally {
       await s.close();
     }

@@ -35,7 +35,8 @@ describe('viewer story', () => {
     const wish = `Illuminated cargo sill ${Date.now().toString(36)}`;
 
     // 1. The viewer, not signed in, asks on the public page.
-    const viewer = await openBrowser({ server });
+    // The viewer is on a phone.
+    const viewer = await openBrowser({ server, phone: true });
     try {
       await visit(viewer, '/b/project-tern');
       await viewer.page.getByRole('heading', { name: 'Project Tern' }).waitFor();
