@@ -2,6 +2,8 @@
 // 10,000 labour entries, against a bare route running `SELECT 1` on the same pool, in one run.
 // Run: npm run bench:api. It makes a fresh database, serves the app from a child process on a free
 // loopback port, loads it with autocannon (50 connections, BENCH_SECONDS each), and drops the database.
+// Knobs: BENCH_SECONDS (10), BENCH_ROUNDS (5), BENCH_GZIP=0 (ask for identity bodies), OVERVIEW_CACHE=0
+// (measure the uncached path), BENCH_CPU_PROFILE=<dir> (write the server's CPU profile there).
 import { fork, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
 import { fileURLToPath } from 'node:url';
@@ -27,6 +29,16 @@ async function serve() {
     await sequelize.query('SELECT 1');
     res.json({ ok: true });
   });
+  // How many overview answers came from the cache, reported to the parent at the end.
+  const cache = { hit: 0, miss: 0 };
+  outer.use((_req, res, next) => {
+    res.on('finish', () => {
+      const h = res.getHeader('x-overview-cache');
+      if (h === 'hit' || h === 'miss') cache[h] += 1;
+    });
+    next();
+  });
+  process.on('message', (m) => m === 'stats' && process.send!({ cache }));
   outer.use(createApp());
   const server = outer.listen(0, '127.0.0.1', () => process.send!({ port: (server.address() as AddressInfo).port }));
   process.on('disconnect', () => process.exit(0));
@@ -203,6 +215,10 @@ async function main() {
     const bare = results.get('bare')!;
     const me = results.get('me')!;
     const ratio = overview.rps / bare.rps;
+    const stats = await new Promise<{ cache: { hit: number; miss: number } }>((resolve) => {
+      child!.once('message', (m) => resolve(m as { cache: { hit: number; miss: number } }));
+      child!.send('stats');
+    });
     const row = (name: string, f: Figures) =>
       `${name.padEnd(22)} ${f.p50.toFixed(1).padStart(7)} ${f.p95.toFixed(1).padStart(7)} ${f.p99.toFixed(1).padStart(7)} ${f.rps.toFixed(0).padStart(8)} ${f.cpuUsPerRequest.toFixed(0).padStart(9)} ${String(f.non2xx + f.errors).padStart(7)}`;
     console.log(`\n${CONNECTIONS} connections, ${SECONDS} s each (${ROUNDS} alternating rounds), loopback, OVERVIEW_CACHE=${process.env.OVERVIEW_CACHE ?? '1'}`);
@@ -211,6 +227,7 @@ async function main() {
     console.log(row('bare SELECT 1', bare));
     console.log(row('signed-in /api/auth/me', me));
     console.log(`throughput ratio: ${(ratio * 100).toFixed(1)} % (target ≥ ${TARGET_RATIO * 100} %)`);
+    console.log(`overview answers from the cache: ${stats.cache.hit} of ${stats.cache.hit + stats.cache.miss}`);
     console.log(`overview p95: ${overview.p95.toFixed(1)} ms (target < ${TARGET_P95_MS} ms)`);
     const met = overview.p95 < TARGET_P95_MS && ratio >= TARGET_RATIO && overview.non2xx + overview.errors === 0;
     console.log(met ? 'targets met' : 'targets NOT met');

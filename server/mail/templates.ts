@@ -31,16 +31,16 @@ export function upgradeLiveMail(p: { buildName: string; episodeTitle: string; ep
   };
 }
 
-export function invitationMail(p: { name: string; roles: string[]; invitedBy: string | null }) {
+export function invitationMail(p: { name: string; roles: string[]; invitedBy: string | null; link: string }) {
   const url = `${config().publicUrl}/sign-in`;
   return {
     subject: 'You have a Bayslate account',
     text:
       `Hello ${p.name},\n\n` +
       `${p.invitedBy ?? 'The shop owner'} added you to Bayslate as ${p.roles.join(', ')}.\n\n` +
-      `Sign in here with this e-mail address:\n${url}\n\n` +
-      `Your first password is given to you in person by ${p.invitedBy ?? 'the owner'}, never by mail. ` +
-      `Change it under "My account" after you sign in.` +
+      `Choose your password here (the link works once, for 7 days):\n${p.link}\n\n` +
+      `Then sign in with this e-mail address at:\n${url}\n\n` +
+      `No password is ever sent by mail. If ${p.invitedBy ?? 'the owner'} gave you a temporary one in person, it works too; change it under "My account".` +
       sign,
   };
 }

@@ -20,6 +20,7 @@ import { publishingRouter } from './publishing';
 import { linkHealthRouter, campaignRouter } from './linkHealth';
 import { viewerRequestsRouter } from './viewerRequests';
 import { publicRouter } from './public';
+import { invitationsRouter } from './invitations';
 
 interface Mount {
   prefix: string;
@@ -51,6 +52,7 @@ function mounts(): Mount[] {
     { prefix: '/api/builds/:buildId/campaign', router: campaignRouter() },
     { prefix: '/api/builds/:buildId/viewer-requests', router: viewerRequestsRouter() },
     { prefix: '/api/public', router: publicRouter() },
+    { prefix: '/api/invitations', router: invitationsRouter() },
   ];
 }
 

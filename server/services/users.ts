@@ -8,6 +8,8 @@ import { AppError, badRequest, notFound } from '../errors';
 import { record, type Actor } from './activity';
 import { enqueueMail } from '../mail/outbox';
 import { invitationMail } from '../mail/templates';
+import { createInvitationLink } from './invitations';
+import { config } from '../config';
 import type { CreateUserInput, UpdateUserInput } from '../../shared/schemas/auth';
 import type { Role } from '../../shared/domain';
 
@@ -28,8 +30,9 @@ export async function createUser(actor: Actor | null, input: CreateUserInput) {
       { transaction: t },
     );
     await record(t, { actor, buildId: null, entity: 'user', entityId: user.id, action: 'create', summary: `Added ${user.name} (${user.roles.join(', ')})`, after: user.toPublic() });
-    // The invitation names the sign-in page only; the first password never travels by mail.
-    const mail = invitationMail({ name: user.name, roles: user.roles, invitedBy: actor?.name ?? null });
+    // The invitation carries a one-time link to choose a password; no password travels by mail.
+    const link = `${config().publicUrl}/welcome/${await createInvitationLink(t, user.id)}`;
+    const mail = invitationMail({ name: user.name, roles: user.roles, invitedBy: actor?.name ?? null, link });
     await enqueueMail(t, { kind: 'invitation', to: user.email, subject: mail.subject, text: mail.text, dedupeKey: `invite:${user.id}` });
     return { user: user.toPublic(), temporaryPassword };
   });

@@ -50,6 +50,7 @@ const routes: RouteRecordRaw[] = [
   // The public build page and the links in viewers' mails: no sign-in, their own simple layout.
   { path: '/b/:slug', name: 'public-build', component: () => import('@/views/PublicBuildView.vue'), meta: { public: true, title: 'Build page' } },
   { path: '/confirm/:token', name: 'confirm-vote', component: () => import('@/views/PublicBuildView.vue'), meta: { public: true, title: 'Confirm your vote' } },
+  { path: '/welcome/:token', name: 'welcome', component: () => import('@/views/WelcomeView.vue'), meta: { public: true, title: 'Welcome' } },
   { path: '/unsubscribe/:token', name: 'unsubscribe', component: () => import('@/views/PublicBuildView.vue'), meta: { public: true, title: 'Unsubscribe' } },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { public: true, title: 'Not found' } },
 ];

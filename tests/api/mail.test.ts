@@ -5,7 +5,7 @@ import net from 'node:net';
 import type { Transporter } from 'nodemailer';
 import { anonymous, signInAs } from '../helpers/api';
 import { count } from '../helpers/db';
-import { mailsTo, uniqueAddress } from '../helpers/mailbox';
+import { mailsTo, linkIn, uniqueAddress } from '../helpers/mailbox';
 import { sequelize, MailOutbox } from '../../server/models';
 import { enqueueMail } from '../../server/mail/outbox';
 import { processDueMail, backoffMs } from '../../server/mail/worker';
@@ -137,6 +137,43 @@ describe('mail health, invitation and the development inbox', () => {
     expect(mail!.subject).toBe('You have a Bayslate account');
     expect(mail!.text).toContain(`${config().publicUrl}/sign-in`);
     expect(mail!.text).not.toContain(res.body.temporaryPassword);
+  });
+
+  it('the invitation link sets a password once, and the person signs in with it', async () => {
+    const owner = await signInAs('owner');
+    const email = uniqueAddress('invitee');
+    expect((await owner.post('/api/users').send({ email, name: 'Noor Hale', roles: ['marketing'] })).status).toBe(201);
+    await processDueMail();
+    const [mail] = await mailsTo(email);
+    const token = linkIn(mail!, '/welcome/').split('/welcome/')[1]!;
+    expect(await count('invitation_links')).toBeGreaterThan(0);
+    const [stored] = await sequelize.query(`SELECT count(*)::int AS n FROM invitation_links WHERE token_hash = :t`, { replacements: { t: token } });
+    expect((stored as { n: number }[])[0]!.n).toBe(0); // only the hash is kept
+    const who = await anonymous().get(`/api/invitations/${token}`);
+    expect(who.status).toBe(200);
+    expect(who.body).toEqual({ name: 'Noor Hale', email });
+    const short = await anonymous().post(`/api/invitations/${token}`).send({ password: 'short' });
+    expect(short.status).toBe(400);
+    expect(short.body.error.fields[0].path).toBe('password');
+    expect((await anonymous().post(`/api/invitations/${token}`).send({ password: 'a-good-long-password' })).status).toBe(200);
+    expect((await anonymous().post('/api/auth/login').send({ email, password: 'a-good-long-password' })).status).toBe(200);
+    const again = await anonymous().post(`/api/invitations/${token}`).send({ password: 'another-long-password' });
+    expect(again.status).toBe(410);
+    expect(again.body.error.code).toBe('link_used');
+    expect((await anonymous().post('/api/auth/login').send({ email, password: 'another-long-password' })).status).toBe(401);
+  });
+
+  it('an expired or unknown invitation link is refused', async () => {
+    const owner = await signInAs('owner');
+    const email = uniqueAddress('late-invitee');
+    await owner.post('/api/users').send({ email, name: 'Late Invitee', roles: ['installer'] });
+    await processDueMail();
+    const token = linkIn((await mailsTo(email))[0]!, '/welcome/').split('/welcome/')[1]!;
+    await sequelize.query(`UPDATE invitation_links SET expires_at = now() - interval '1 minute'`);
+    const res = await anonymous().post(`/api/invitations/${token}`).send({ password: 'a-good-long-password' });
+    expect(res.status).toBe(410);
+    expect(res.body.error.code).toBe('link_expired');
+    expect((await anonymous().get('/api/invitations/abcdefghijklmnopqrstuvwxyz0123456789')).status).toBe(404);
   });
 
   it('a refused new person (duplicate e-mail) queues no mail', async () => {

@@ -154,6 +154,31 @@ describe('backlog in the browser', () => {
       await page.getByRole('button', { name: 'Delete the upgrade' }).click();
       await message(page, 'Puddle lamps in the mirrors');
       await upgradeByTitle(s, buildId, 'Power-folding mirrors with turn signals');
+
+      // Other costs go on the upgrade too.
+      await visit(s, `/builds/${buildId}/backlog?upgrade=${created.id}`);
+      await drawer(page).getByRole('button', { name: 'Add an expense' }).click();
+      await drawer(page).getByLabel('What for').fill('Trim clips and tape');
+      await drawer(page).getByLabel('Amount (dollars)').fill('18.40');
+      await drawer(page).getByRole('button', { name: 'Add expense' }).click();
+      await message(page, 'Expense added.');
+      const { expenses } = await apiGet<{ expenses: { description: string; amountCents: number }[] }>(s, `/api/builds/${buildId}/expenses?upgradeId=${created.id}`);
+      expect(expenses).toEqual([expect.objectContaining({ description: 'Trim clips and tape', amountCents: 1840 })]);
+
+      // A new build starts from the builds list and opens in its settings.
+      await page.keyboard.press('Escape');
+      await page.getByRole('navigation', { name: 'Main navigation' }).getByRole('link', { name: 'Builds' }).click();
+      await page.getByRole('button', { name: 'New build' }).click();
+      const nb = page.locator('.n-modal');
+      await nb.getByLabel('Name of the build').fill('Project Heron');
+      await nb.getByLabel('Make', { exact: true }).fill('Halvorsen');
+      await nb.getByLabel('Model', { exact: true }).fill('Heron');
+      await audit(s, 'new build form');
+      await nb.getByRole('button', { name: 'Create the build' }).click();
+      await page.waitForURL(/\/builds\/\d+\/settings/);
+      await page.locator('[data-test="build-name"]', { hasText: 'Project Heron' }).waitFor();
+      const { builds } = await apiGet<{ builds: { slug: string }[] }>(s, '/api/builds');
+      expect(builds.map((b) => b.slug)).toContain('project-heron');
     } finally {
       await s.close();
     }

@@ -42,4 +42,6 @@ export const rows: MatrixRow[] = [
   { method: 'POST', path: '/api/public/builds/:slug/requests/:requestId/votes', allow: 'public', body: () => ({ email: 'not-an-address' }) },
   { method: 'GET', path: '/api/public/confirm/:token', allow: 'public' },
   { method: 'GET', path: '/api/public/unsubscribe/:token', allow: 'public' },
+  { method: 'GET', path: '/api/invitations/:token', allow: 'public' },
+  { method: 'POST', path: '/api/invitations/:token', allow: 'public', body: () => ({ password: 'short' }) },
 ];
