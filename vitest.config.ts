@@ -42,7 +42,7 @@ export default defineConfig({
           environment: 'node',
           globalSetup: ['tests/helpers/global-services.ts'],
           setupFiles: ['tests/helpers/per-file-db.ts'],
-          testTimeout: 60_000,
+          testTimeout: 120_000,
           hookTimeout: 90_000,
           pool: 'forks',
           maxWorkers: 2,

@@ -38,6 +38,8 @@ async function choose(page: Page, scope: ReturnType<Page['locator']>, option: st
   await scope.locator('.n-base-selection').first().click();
   await page.locator('.n-base-select-option:visible', { hasText: option }).first().click();
 }
+// A whole journey drives many screens; the shared two-core machine makes some of them slow.
+const JOURNEY_TIMEOUT = 180_000;
 const drawer = (page: Page) => page.locator('.n-drawer');
 const message = (page: Page, text: string) => page.locator('.n-message', { hasText: text }).first().waitFor();
 
@@ -182,7 +184,7 @@ describe('backlog in the browser', () => {
     } finally {
       await s.close();
     }
-  });
+  }, JOURNEY_TIMEOUT);
 
   it('installer at phone width logs hours and marks a part received', async () => {
     const s = await openBrowser({ server, phone: true });
@@ -239,7 +241,7 @@ describe('backlog in the browser', () => {
     } finally {
       await s.close();
     }
-  });
+  }, JOURNEY_TIMEOUT);
 
   it('owner sees spend against budget on the builds list', async () => {
     const s = await openBrowser({ server });
@@ -299,7 +301,7 @@ describe('backlog in the browser', () => {
     } finally {
       await s.close();
     }
-  });
+  }, JOURNEY_TIMEOUT);
 
   it('marketing sees retail prices but no shop cost', async () => {
     const s = await openBrowser({ server });
@@ -351,5 +353,5 @@ describe('backlog in the browser', () => {
     } finally {
       await s.close();
     }
-  });
+  }, JOURNEY_TIMEOUT);
 });

@@ -159,7 +159,7 @@ describe('media in the browser', () => {
       await dialog.getByRole('button', { name: 'Delete' }).click();
       await s.page.locator('.n-dialog').getByRole('button', { name: 'Delete' }).click();
       await s.page.locator('.n-message', { hasText: 'Deleted.' }).first().waitFor();
-      await s.page.getByText('Bare roof, plugs still in, before the rails').waitFor({ state: 'detached' });
+      await s.page.locator('[data-test="media-grid"]').getByText('Bare roof, plugs still in, before the rails').waitFor({ state: 'detached' });
     } finally {
       await s.close();
     }
