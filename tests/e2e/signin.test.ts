@@ -45,6 +45,38 @@ describe('sign-in in the browser', () => {
     });
   }
 
+  it('the owner adds a person with roles, then deactivates them after confirming', async () => {
+    const s = await openBrowser({ server });
+    try {
+      await signIn(s, 'owner');
+      await s.page.getByRole('link', { name: 'Users & roles' }).click();
+      await s.page.getByRole('button', { name: 'Add a person' }).click();
+      const dialog = s.page.getByRole('dialog', { name: 'Add a person' });
+      await dialog.waitFor();
+      await audit(s, 'add a person');
+      await dialog.getByRole('button', { name: 'Add', exact: true }).click();
+      await dialog.getByText('is required').first().waitFor();
+      await dialog.getByLabel('Name').fill('Pia Sandoval');
+      await dialog.getByLabel('E-mail').fill('pia@cedar-ridge.test');
+      await dialog.getByRole('checkbox', { name: 'installer' }).click();
+      await dialog.getByRole('button', { name: 'Add', exact: true }).click();
+      await dialog.getByText('Temporary password').waitFor();
+      await dialog.getByRole('button', { name: 'Close' }).click();
+      const row = s.page.getByRole('row').filter({ hasText: 'pia@cedar-ridge.test' });
+      await row.waitFor();
+      await row.getByRole('button', { name: 'Deactivate' }).click();
+      await s.page.getByRole('dialog', { name: 'Deactivate Pia Sandoval?' }).waitFor();
+      await audit(s, 'deactivate confirmation');
+      await s.page.getByRole('button', { name: 'Deactivate', exact: true }).last().click();
+      await row.getByText('Deactivated').waitFor();
+      await s.page.getByRole('link', { name: 'My account' }).click();
+      await s.page.getByRole('heading', { name: 'Change password' }).waitFor();
+      await audit(s, 'my account');
+    } finally {
+      await s.close();
+    }
+  });
+
   it('a wrong password shows a message and stays on sign-in', async () => {
     const s = await openBrowser({ server });
     try {
