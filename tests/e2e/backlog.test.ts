@@ -167,6 +167,21 @@ describe('backlog in the browser', () => {
       const { expenses } = await apiGet<{ expenses: { description: string; amountCents: number }[] }>(s, `/api/builds/${buildId}/expenses?upgradeId=${created.id}`);
       expect(expenses).toEqual([expect.objectContaining({ description: 'Trim clips and tape', amountCents: 1840 })]);
 
+      // The stock part it takes off is recorded for sale, then sold (the sale offsets cost).
+      await drawer(page).getByRole('button', { name: 'Record a removed part' }).click();
+      await drawer(page).getByLabel('Description').last().fill('Plain mirror caps');
+      await choose(page, drawer(page).locator('.n-form-item', { hasText: 'What happens to it' }), 'For sale');
+      await drawer(page).getByLabel('Expected sale (dollars)').fill('30');
+      await drawer(page).getByRole('button', { name: 'Record it' }).click();
+      await message(page, 'Removed part recorded.');
+      await drawer(page).getByRole('button', { name: /Record sale price/ }).click();
+      await drawer(page).getByLabel('Sold for (dollars)').fill('25');
+      await drawer(page).getByRole('button', { name: 'Save sale' }).click();
+      await message(page, 'sale recorded.');
+      const { removedParts } = await apiGet<{ removedParts: { description: string; disposition: string; expectedSaleCents: number; actualSaleCents: number }[] }>(s, `/api/builds/${buildId}/removed-parts?upgradeId=${created.id}`);
+      expect(removedParts).toEqual([expect.objectContaining({ description: 'Plain mirror caps', disposition: 'sold', expectedSaleCents: 3000, actualSaleCents: 2500 })]);
+      await audit(s, 'removed part sold');
+
       // A new build starts from the builds list and opens in its settings.
       await page.keyboard.press('Escape');
       await page.getByRole('navigation', { name: 'Main navigation' }).getByRole('link', { name: 'Builds' }).click();
