@@ -12,10 +12,12 @@ try {
   ensurePostgres();
   ensureChromium();
   ensureNodeModules(root);
+  log('type-checking client, server and tests…');
+  execFileSync(process.execPath, [path.join(root, 'node_modules/vue-tsc/bin/vue-tsc.js'), '--noEmit', '-p', 'tsconfig.json'], { cwd: root, stdio: 'inherit' });
   log('building the client for the browser tests…');
   execFileSync(process.execPath, [path.join(root, 'node_modules/vite/bin/vite.js'), 'build', '--logLevel', 'warn'], { cwd: root, stdio: 'inherit' });
 } catch (err) {
-  console.error(`[bayslate] ${err.message}`);
+  console.error(`[bayslate] ${err.message.split('\n')[0]}`);
   process.exit(1);
 }
 const extra = process.argv.slice(2);

@@ -294,7 +294,7 @@ describe('backlog in the browser', () => {
       await page.locator('[data-test="vin-override"]').click();
       await page.getByRole('button', { name: 'Save settings' }).click();
       await message(page, 'Settings saved.');
-      let { build } = await apiGet<{ build: { vin: string; vinCheckOverridden: boolean; version: number; budgetCents: number } }>(s, `/api/builds/${buildId}`);
+      const { build } = await apiGet<{ build: { vin: string; vinCheckOverridden: boolean; version: number; budgetCents: number } }>(s, `/api/builds/${buildId}`);
       expect(build.vin).toBe('1M8GDM9A1KP042788');
       expect(build.vinCheckOverridden).toBe(true);
 
@@ -310,9 +310,9 @@ describe('backlog in the browser', () => {
       await audit(s, 'stale dialog');
       await page.getByRole('button', { name: 'Apply my change again' }).click();
       await message(page, 'Settings saved.');
-      ({ build } = await apiGet(s, `/api/builds/${buildId}`));
-      expect((build as unknown as { mileage: number; summary: string }).mileage).toBe(23456);
-      expect((build as unknown as { mileage: number; summary: string }).summary).toBe('Changed in another tab');
+      const after = (await apiGet<{ build: { mileage: number; summary: string } }>(s, `/api/builds/${buildId}`)).build;
+      expect(after.mileage).toBe(23456);
+      expect(after.summary).toBe('Changed in another tab');
     } finally {
       await s.close();
     }

@@ -87,7 +87,7 @@ describe('media in the browser', () => {
         const b = document.querySelector<HTMLProgressElement>('[data-test="upload-progress"]');
         return !!b && b.value > 0 && b.value < 100;
       }, null, { timeout: 20_000 });
-      expect(await s.page.getByRole('button', { name: 'Cancel upload of wiring-loom-1.jpg' }).isVisible()).toBe(true);
+      await s.page.getByRole('button', { name: 'Cancel upload of wiring-loom-1.jpg' }).waitFor();
       await audit(s, 'media library, uploads in progress (phone)');
       await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput: -1 });
 
@@ -121,7 +121,7 @@ describe('media in the browser', () => {
     try {
       const buildId = await ternId();
       await signInTo(s, 'producer', `/builds/${buildId}/media`);
-      expect(await s.page.getByRole('link', { name: 'Media' }).first().isVisible()).toBe(true);
+      await s.page.getByRole('link', { name: 'Media' }).first().waitFor();
       await s.page.getByText('Stock halogen housings on the bench').waitFor();
       await s.page.getByText('Rails torqued and sealed').waitFor();
       await imagesLoaded(s, '[data-test="media-grid"] img');
@@ -155,7 +155,7 @@ describe('media in the browser', () => {
       await s.page.getByText('The file is removed from storage for everyone.').waitFor();
       await audit(s, 'media delete confirmation');
       await s.page.getByRole('button', { name: 'Keep it' }).click();
-      expect(await dialog.isVisible()).toBe(true);
+      await dialog.waitFor();
       await dialog.getByRole('button', { name: 'Delete' }).click();
       await s.page.locator('.n-dialog').getByRole('button', { name: 'Delete' }).click();
       await s.page.locator('.n-message', { hasText: 'Deleted.' }).first().waitFor();

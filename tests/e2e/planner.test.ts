@@ -22,7 +22,7 @@ describe('episode planner in the browser', () => {
       await visit(s, `/builds/${buildId}/planner`);
       await page.getByRole('heading', { name: 'Episode planner' }).waitFor();
       await page.getByRole('heading', { name: 'No problems in this plan' }).waitFor();
-      expect(await page.getByRole('heading', { name: /^Episode 7: Ready to tow/ }).isVisible()).toBe(true);
+      await page.getByRole('heading', { name: /^Episode 7: Ready to tow/ }).waitFor();
       // The timeline's table alternative.
       await page.getByRole('button', { name: 'Show the dates as a table' }).click();
       await page.getByRole('table').getByText('Ready to tow').waitFor();
@@ -40,7 +40,7 @@ describe('episode planner in the browser', () => {
       await target.locator('.name', { hasText: 'Rear parking sensors' }).waitFor();
       // Over capacity at once (7 h + 3 h in an 8 h episode), said on the episode itself.
       await target.getByRole('note').filter({ hasText: 'over its capacity' }).waitFor();
-      expect(await page.getByText('Not in an episode (1)').isVisible()).toBe(true);
+      await page.getByText('Not in an episode (1)').waitFor();
       await page.getByRole('region', { name: 'Unsaved changes' }).waitFor();
       await page.getByRole('button', { name: 'Discard changes' }).click();
       await page.getByText('Not in an episode (2)').waitFor();
@@ -55,7 +55,7 @@ describe('episode planner in the browser', () => {
       await proposal.waitFor({ state: 'detached' });
       await page.getByText(/Proposal applied/).waitFor();
       await page.getByRole('heading', { name: 'No problems in this plan' }).waitFor();
-      expect(await page.getByText('Not in an episode (0)').isVisible()).toBe(true);
+      await page.getByText('Not in an episode (0)').waitFor({ timeout: 10_000 });
 
       // Keyboard alternative to dragging: the "Move to" list, chosen from the keyboard.
       const picker = page.getByLabel('Move Trailer wiring, 7-pin to');

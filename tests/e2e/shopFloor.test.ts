@@ -29,8 +29,8 @@ describe('shop floor on a phone', () => {
       const brake = page.getByRole('listitem').filter({ has: page.getByRole('heading', { name: /Trailer brake controller/ }) });
       const startBrake = brake.getByRole('button', { name: 'Start Trailer brake controller' });
       expect(await startBrake.isDisabled()).toBe(true);
-      expect(await brake.getByText('Cannot start yet: install Trailer wiring, 7-pin first.').isVisible()).toBe(true);
-      expect(await brake.getByRole('note', { name: /Safety: Brakes and trailer brakes/ }).isVisible()).toBe(true);
+      await brake.getByText('Cannot start yet: install Trailer wiring, 7-pin first.').waitFor();
+      await brake.getByRole('note', { name: /Safety: Brakes and trailer brakes/ }).waitFor();
 
       // Another one starts.
       const charger = page.getByRole('listitem').filter({ has: page.getByRole('heading', { name: /Wireless charging pad/ }) });

@@ -25,7 +25,7 @@ describe('sign-in in the browser', () => {
       try {
         await signIn(s, role);
         const nav = s.page.getByRole('navigation', { name: 'Main navigation' });
-        for (const label of expectations[role].sees) expect(await nav.getByRole('link', { name: label }).isVisible()).toBe(true);
+        for (const label of expectations[role].sees) await nav.getByRole('link', { name: label }).waitFor();
         for (const label of expectations[role].hidden) expect(await nav.getByRole('link', { name: label }).count()).toBe(0);
         if (role === 'owner') {
           await nav.getByRole('link', { name: 'Users & roles' }).click();
