@@ -11,6 +11,8 @@ export class Media extends Model<InferAttributes<Media>, InferCreationAttributes
   declare episodeId: number | null;
   declare partId: number | null;
   declare kind: MediaKind;
+  /** Set at upload for a document on a part; kept when the part goes (money roles only). */
+  declare invoice: CreationOptional<boolean>;
   declare stage: MediaStage | null;
   declare caption: string | null;
   declare objectKey: string;
@@ -32,6 +34,7 @@ Media.init(
     episodeId: DataTypes.INTEGER,
     partId: DataTypes.INTEGER,
     kind: { type: DataTypes.TEXT, allowNull: false },
+    invoice: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
     stage: DataTypes.TEXT,
     caption: DataTypes.TEXT,
     objectKey: { type: DataTypes.TEXT, allowNull: false },

@@ -20,8 +20,8 @@ type Person = Express.User;
 export const THUMB_SIZE = 400;
 
 /** A document on a part is an invoice: only roles that see money may see it. */
-const isInvoice = (m: { kind: string; partId: number | null }) => m.kind === 'document' && m.partId !== null;
-const hiddenInvoices: WhereOptions = { [Op.not]: { kind: 'document', partId: { [Op.ne]: null } } } as WhereOptions;
+const isInvoice = (m: { kind: string; partId: number | null; invoice?: boolean }) => m.invoice === true || (m.kind === 'document' && m.partId !== null);
+const hiddenInvoices: WhereOptions = { invoice: false, [Op.not]: { kind: 'document', partId: { [Op.ne]: null } } } as WhereOptions;
 
 /** Our own object names: build, year-month, a random id and the extension of the detected type. */
 function newObjectKey(buildId: number, ext: string) {
@@ -121,6 +121,7 @@ export async function storeUpload(build: Build, person: Person, file: ReceivedFi
           buildId: build.id,
           ...links,
           kind,
+          invoice: isInvoice({ kind, partId: links.partId }),
           stage: f.stage ?? null,
           caption: f.caption ?? null,
           objectKey,

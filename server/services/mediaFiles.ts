@@ -139,6 +139,8 @@ export async function sniff(head: Buffer): Promise<AllowedType & { mime: string 
   return { ...allowed, mime: t.mime };
 }
 
+type UploadRequest = Request & { uploadSettled?: Promise<unknown> };
+
 class InspectingDiskStorage implements StorageEngine {
   constructor(private onDetected?: OnDetected) {}
 
@@ -158,7 +160,10 @@ class InspectingDiskStorage implements StorageEngine {
       upload.done.catch(() => inspector.destroy(storageUnavailable()));
       inspector.pipe(toStore);
     });
-    pipeline(file.stream, inspector, createWriteStream(dest, { flags: 'wx' }))
+    const out = createWriteStream(dest, { flags: 'wx' });
+    // multer answers an aborted upload at once; receiveOneFile waits for this so the temporary
+    // file is gone before the person hears of the error.
+    (req as UploadRequest).uploadSettled = pipeline(file.stream, inspector, out)
       .then(async () => {
         const u = upload as StreamUpload | null;
         if (u) await u.done.catch(() => Promise.reject(storageUnavailable()));
@@ -168,6 +173,9 @@ class InspectingDiskStorage implements StorageEngine {
         const u = upload as StreamUpload | null;
         toStore.destroy();
         if (u) await u.abort();
+        // The file may still be opening when the pipeline fails early; remove it once closed,
+        // or the open would create it again after the unlink.
+        if (!out.closed) await new Promise<void>((r) => out.once('close', () => r()));
         await unlink(dest).catch(() => undefined);
         cb(err);
       });
@@ -191,8 +199,9 @@ export function receiveOneFile(onDetected?: OnDetected) {
     limits: { files: 1, fields: 12, fieldSize: 2000, parts: 14, fileSize: largestLimit() },
   }).single('file');
   return (req: Request, res: Parameters<typeof upload>[1], next: (err?: unknown) => void) => {
-    upload(req, res, (err?: unknown) => {
+    upload(req, res, async (err?: unknown) => {
       if (!err) return next();
+      await (req as UploadRequest).uploadSettled?.catch(() => undefined);
       if (err instanceof multer.MulterError) {
         if (err.code === 'LIMIT_FILE_SIZE') return next(new AppError(413, 'too_large', `The file is larger than the largest upload allowed (${Math.round(largestLimit() / 1024 / 1024)} MB).`));
         if (err.code === 'LIMIT_UNEXPECTED_FILE' || err.code === 'LIMIT_FILE_COUNT') return next(new AppError(400, 'bad_request', 'Send one file per upload, in the form field "file".'));

@@ -249,6 +249,20 @@ describe('media: roles', () => {
     expect((await (await as('producer')).get(`/api/builds/${build.id}/media/${inv.id}/download`).redirects(0)).status).toBe(302);
   });
 
+  it('an invoice stays hidden from installer and marketing after its part is deleted', async () => {
+    const owner = await as('owner');
+    const spare = await Part.create({ buildId: build.id, upgradeId: part.upgradeId, partNumber: 'HT-INV-1', description: 'Part with an invoice', quantity: 1, unitCostCents: 100, retailPriceCents: null, supplier: null, productUrl: null, expectedArrival: null, orderedOn: null, receivedOn: null });
+    const inv = (await upload(owner, pdf(), 'invoice-of-a-part.pdf', { partId: spare.id })).body.media;
+    expect((await owner.delete(`/api/builds/${build.id}/parts/${spare.id}`)).status).toBe(204);
+    for (const role of ['installer', 'marketing'] as const) {
+      const a = await as(role);
+      const list = await a.get(`/api/builds/${build.id}/media?pageSize=200`);
+      expect(list.body.media.map((m: { id: number }) => m.id)).not.toContain(inv.id);
+      expect((await a.get(`/api/builds/${build.id}/media/${inv.id}/download`).redirects(0)).status).toBe(404);
+    }
+    expect((await owner.get(`/api/builds/${build.id}/media/${inv.id}/download`).redirects(0)).status).toBe(302);
+  });
+
   it('marketing reads the list with presigned thumbnail and full URLs', async () => {
     const res = await (await as('marketing')).get(`/api/builds/${build.id}/media?kind=photo&stage=after`);
     expect(res.status).toBe(200);
