@@ -24,6 +24,8 @@ const schema = z.object({
   SERVE_CLIENT: bool(true),
   CLIENT_DIST: z.string().default('dist'),
   LOG_REQUESTS: bool(false),
+  // Unexpected errors are quiet in tests unless this is on.
+  LOG_TEST_ERRORS: bool(false),
   // Object storage: with S3_ENDPOINT unset the server runs a local fake S3 on loopback.
   S3_ENDPOINT: z.string().url().optional(),
   S3_BUCKET: z.string().default('bayslate-media'),

@@ -33,7 +33,7 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   else if (err instanceof DatabaseError && (err.parent as { code?: string })?.code === '23514')
     e = new AppError(400, 'bad_request', `A value is out of its allowed range (${(err.parent as { constraint?: string }).constraint ?? 'check'}).`);
   else {
-    if (!config().isTest || process.env.BAYSLATE_TEST_LOG_ERRORS) console.error(`[error] ${req.method} ${req.originalUrl}`, err);
+    if (!config().isTest || config().LOG_TEST_ERRORS) console.error(`[error] ${req.method} ${req.originalUrl}`, err);
     e = new AppError(500, 'internal', config().isProduction ? 'Something went wrong on the server.' : String(err?.message ?? err));
   }
   if (res.headersSent) return;
