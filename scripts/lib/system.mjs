@@ -54,7 +54,8 @@ export function ensureDebianPackages(packages, present, why) {
     run(['apt-get', 'update', '-qq']);
     aptUpdated = true;
   }
-  run(['apt-get', 'install', '-y', '-qq', '--no-install-recommends', ...packages]);
+  // With recommended packages, as checked on these machines (Chromium brings its fonts that way).
+  run(['apt-get', 'install', '-y', '-qq', ...packages]);
   if (!present()) throw new Error(`installed ${packages.join(' ')} but still cannot find it`);
 }
 
