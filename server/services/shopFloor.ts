@@ -6,56 +6,11 @@ import { notFound } from '../errors';
 import { forViewer, type Viewer } from './visibility';
 import { toRecord, upgradeIdsByEpisode } from './episodes';
 import { cautionsFor } from '../../shared/safety';
+import { toPartRecord, toUpgradeRecord } from './backlogRecords';
 import type { EpisodeRecord, PartRecord, UpgradeRecord } from '../../shared/domain';
 
 /** States an installer works in: about to be shot, or shot with pick-up work left. */
 const WORKING_STATES = ['scheduled', 'shot', 'in_edit'] as const;
-
-export function upgradeRecord(u: Upgrade, prerequisiteIds: number[]): UpgradeRecord & { installedOn: string | null } {
-  return {
-    id: u.id,
-    buildId: u.buildId,
-    title: u.title,
-    replaces: u.replaces,
-    becomes: u.becomes,
-    area: u.area,
-    estimatedHours: Number(u.estimatedHours),
-    valueAddedCents: u.valueAddedCents,
-    priority: u.priority,
-    safetyFlags: u.safetyFlags,
-    installState: u.installState,
-    installSegment: u.installSegment,
-    demoSegment: u.demoSegment,
-    installedOn: u.installedOn,
-    episodeId: u.episodeId,
-    episodePosition: u.episodePosition,
-    notes: u.notes,
-    tireFrom: u.tireFrom,
-    tireTo: u.tireTo,
-    prerequisiteIds,
-    version: u.version,
-  };
-}
-
-function partRecord(p: Part): PartRecord & { receivedOn: string | null; version: number } {
-  return {
-    id: p.id,
-    buildId: p.buildId,
-    upgradeId: p.upgradeId,
-    partNumber: p.partNumber,
-    description: p.description,
-    quantity: p.quantity,
-    unitCostCents: p.unitCostCents,
-    retailPriceCents: p.retailPriceCents,
-    supplier: p.supplier,
-    condition: p.condition,
-    productUrl: p.productUrl,
-    expectedArrival: p.expectedArrival,
-    receivedOn: p.receivedOn,
-    state: p.state,
-    version: p.version,
-  };
-}
 
 /**
  * The next episode to work: the scheduled one with the earliest shoot date (then lowest number);
@@ -101,8 +56,8 @@ export async function shopFloor(build: Build, viewer: Viewer, episodeId?: number
     const mine = edges.filter((e) => e.upgradeId === id).map((e) => e.prerequisiteId);
     const blocked = mine.map((p) => prereqById.get(p)).filter((p) => p && p.installState !== 'installed');
     return {
-      upgrade: forViewer(upgradeRecord(u, mine) as unknown as Record<string, unknown>, viewer) as unknown as UpgradeRecord,
-      parts: parts.filter((p) => p.upgradeId === id).map((p) => forViewer(partRecord(p) as unknown as Record<string, unknown>, viewer) as unknown as PartRecord),
+      upgrade: forViewer(toUpgradeRecord(u, mine), viewer) as UpgradeRecord,
+      parts: parts.filter((p) => p.upgradeId === id).map((p) => forViewer(toPartRecord(p), viewer) as PartRecord),
       prerequisitesMet: blocked.length === 0,
       blockedBy: blocked.map((p) => p!.title),
       cautions: cautionsFor(u.safetyFlags),
