@@ -222,7 +222,8 @@ describe('backlog in the browser', () => {
       await audit(s, 'log hours form (phone)');
       await drawer(page).getByRole('button', { name: 'Save hours' }).click();
       await message(page, '1.5 h logged.');
-      await drawer(page).getByText('Routed the harness along the frame rail').waitFor();
+      // The history lists the same note once it refreshes, so look in the hours list itself.
+      await drawer(page).locator('.note', { hasText: 'Routed the harness along the frame rail' }).waitFor();
       const after = (await apiGet<{ labour: { hours: number; note: string | null }[] }>(s, `/api/builds/${buildId}/labour?upgradeId=${wiring.id}`)).labour;
       expect(after.length).toBe(before + 1);
       expect(after.some((l) => l.hours === 1.5 && l.note === 'Routed the harness along the frame rail')).toBe(true);
