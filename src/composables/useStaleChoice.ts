@@ -1,8 +1,7 @@
-// Dialogs for the backlog screens: "someone else saved first" (409 stale: reload theirs, or apply
-// mine again on top) and confirmations before destructive actions. naive-ui's dialogs carry
-// role="dialog" without a name, so each one is named after its title for screen readers.
-import { useDialog, type DialogOptions } from 'naive-ui';
+// The "someone else saved first" choice (409 stale: reload theirs, or apply mine again on top),
+// asked through the app's one confirmation dialog.
 import { ApiError } from '@/api/http';
+import { useConfirm } from './useConfirm';
 
 export function isStale(e: unknown): e is ApiError {
   return e instanceof ApiError && e.status === 409 && e.code === 'stale';
@@ -11,26 +10,6 @@ export function isStale(e: unknown): e is ApiError {
 /** The current record the server sent with a stale answer, if any. */
 export function staleCurrent<T>(e: ApiError): T | null {
   return ((e.body as { current?: T }).current ?? null) as T | null;
-}
-
-/** Gives every unnamed dialog on the page its title as accessible name, once it is rendered. */
-function nameDialogs(title: string, frames = 20) {
-  const run = (left: number) => {
-    const unnamed = [...document.querySelectorAll<HTMLElement>('.n-dialog[role="dialog"]:not([aria-label])')];
-    for (const el of unnamed) el.setAttribute('aria-label', el.querySelector('.n-dialog__title')?.textContent?.trim() || title);
-    if (!unnamed.length && left > 0) requestAnimationFrame(() => run(left - 1));
-  };
-  requestAnimationFrame(() => run(frames));
-}
-
-/** dialog.warning with an accessible name. */
-export function useConfirm() {
-  const dialog = useDialog();
-  return (opts: DialogOptions & { title: string }) => {
-    const d = dialog.warning(opts);
-    nameDialogs(opts.title);
-    return d;
-  };
 }
 
 export function useStaleChoice() {
