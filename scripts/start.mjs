@@ -1,6 +1,7 @@
 // `npm start`: everything up with demo data — Debian packages, npm packages, the client build,
-// the private PostgreSQL cluster, the server (which migrates, seeds once and starts the local
-// fake S3 and SMTP). Ctrl-C stops all of it. `npm run dev` adds Vite's hot reload.
+// the private PostgreSQL cluster, the local fake S3 and SMTP (each in a process of its own,
+// restarted if it stops), the server (which migrates and seeds once). Ctrl-C stops all of it.
+// `npm run dev` adds Vite's hot reload.
 import { spawn, execFileSync } from 'node:child_process';
 import { existsSync, readdirSync, statSync } from 'node:fs';
 import path from 'node:path';
@@ -51,6 +52,27 @@ try {
 env.PORT ??= '3000';
 env.BAYSLATE_DEMO ??= '1';
 const children = [];
+const fakes = [];
+try {
+  const { keepFakeRunning } = await import('./lib/local-fakes.mjs');
+  if (!env.S3_ENDPOINT) {
+    const s3 = await keepFakeRunning(root, 's3', env, Number(env.LOCAL_S3_PORT ?? 0));
+    fakes.push(s3);
+    env.S3_ENDPOINT = `http://127.0.0.1:${s3.port}`;
+    log(`local fake S3 on ${env.S3_ENDPOINT} (files in ${env.LOCAL_S3_DIR})`);
+  }
+  if (!env.SMTP_URL) {
+    const smtp = await keepFakeRunning(root, 'smtp', env, Number(env.LOCAL_SMTP_PORT ?? 0));
+    fakes.push(smtp);
+    env.SMTP_URL = `smtp://127.0.0.1:${smtp.port}`;
+    log(`local fake SMTP on 127.0.0.1:${smtp.port} (mails in ${env.LOCAL_MAIL_DIR})`);
+  }
+} catch (err) {
+  console.error(`[bayslate] ${err.message}`);
+  for (const f of fakes) await f.stop();
+  if (cluster) cluster.stop();
+  process.exit(1);
+}
 const server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], { cwd: root, env, stdio: ['ignore', 'pipe', 'inherit'] });
 children.push(server);
 server.stdout.on('data', (chunk) => {
@@ -81,7 +103,8 @@ function stopAll(code = 0) {
   stopping = true;
   log('stopping…');
   for (const c of children) if (c.exitCode === null) c.kill('SIGTERM');
-  const done = () => {
+  const done = async () => {
+    await Promise.all(fakes.map((f) => f.stop()));
     if (cluster) cluster.stop();
     process.exit(code);
   };

@@ -10,13 +10,12 @@ import { errorHandler, notFoundHandler } from './middleware/errors';
 import { mountRoutes } from './routes';
 import { devMailRouter } from './routes/devMail';
 import { installMail } from './mail';
+import { sharedPool } from './db/pool';
+import { catchUpOverviewNotices } from './services/overviewCache';
 
-let sessionPool: pg.Pool | null = null;
-
-/** The pool the session store uses (also used by the bench's bare route). */
-export function getSessionPool() {
-  sessionPool ??= new pg.Pool({ connectionString: config().DATABASE_URL, max: config().DATABASE_POOL_MAX });
-  return sessionPool;
+/** The pool the session store uses (also used by the bench's bare route); it has an 'error' listener (db/pool.ts). */
+export function getSessionPool(): pg.Pool {
+  return sharedPool();
 }
 
 export function createApp(): Express {
@@ -52,11 +51,14 @@ export function createApp(): Express {
   app.use('/api', express.text({ type: 'text/csv', limit: '10mb' }));
   installAuth(app, getSessionPool());
   app.use('/api', sameOriginOnly);
+  // Several instances (deploy): before answering from its overview cache, an instance reads the
+  // change notices PostgreSQL already has for it, so a write made through another instance shows at once.
+  app.use('/api/builds/:buildId/overview', (_req, _res, next) => void catchUpOverviewNotices().then(() => next(), next));
   mountRoutes(app);
   app.use('/api', notFoundHandler);
   installMail();
   // The development inbox (demo mode only), outside /api and before the client's catch-all route.
-  app.use('/dev/mail', devMailRouter());
+  if (c.BAYSLATE_DEMO) app.use('/dev/mail', devMailRouter());
 
   const dist = path.resolve(c.CLIENT_DIST);
   if (c.SERVE_CLIENT && fs.existsSync(path.join(dist, 'index.html'))) {

@@ -20,7 +20,8 @@ const schema = z.object({
   SESSION_ABSOLUTE_HOURS: z.coerce.number().int().min(1).default(7 * 24),
   LOGIN_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
   LOGIN_RATE_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
-  BAYSLATE_DEMO: bool(true),
+  // Demo data and accounts: off unless asked for (`npm start` and the tests turn it on).
+  BAYSLATE_DEMO: bool(false),
   SERVE_CLIENT: bool(true),
   CLIENT_DIST: z.string().default('dist'),
   LOG_REQUESTS: bool(false),
@@ -57,6 +58,10 @@ const schema = z.object({
   PUBLIC_RATE_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
   PUBLIC_WRITE_RATE_LIMIT: z.coerce.number().int().min(1).default(30),
   PUBLIC_EMAIL_RATE_LIMIT: z.coerce.number().int().min(1).default(5),
+  // Running it for real (deploy): how long a stopping server lets requests in flight finish, and
+  // how long each readiness check may take.
+  SHUTDOWN_GRACE_MS: z.coerce.number().int().min(0).default(10_000),
+  READY_CHECK_TIMEOUT_MS: z.coerce.number().int().min(50).default(1000),
 });
 
 export type Config = ReturnType<typeof loadConfig>;

@@ -1,38 +1,62 @@
-// Starts the Bayslate server: starts local fakes, migrates, seeds the demo (once), listens.
+// Starts the Bayslate server: checks its settings, migrates (one instance at a time), seeds the
+// demo in demo mode only, listens; on SIGTERM stops gracefully. The local fakes (S3, SMTP) are
+// not started here: `npm start` runs them in processes of their own.
 import { config } from './config';
 import { createApp } from './app';
 import { migrate, seedDemo } from './db/migrate';
 import { sequelize } from './models';
-import { startLocalServices, stopLocalServices } from './localServices';
+import { closeSharedPool } from './db/pool';
 import { installMail, startMailWorker, stopMailWorker } from './mail';
+import { checkNoDemoAccounts, checkSettings, StartupRefused } from './startupChecks';
+import { markDraining } from './routes/health';
+import { startUserNotices, stopUserNotices } from './services/userNotices';
+import { stopOverviewCache } from './services/overviewCache';
 
 async function main() {
   const c = config();
-  // Local fakes first: the demo seeders store media in the (fake) object storage.
+  checkSettings(c);
   installMail();
-  await startLocalServices();
   await migrate();
-  if (c.BAYSLATE_DEMO) await seedDemo();
+  if (c.BAYSLATE_DEMO) {
+    const seeded = await seedDemo();
+    if (!seeded.length && !(await sequelize.query('SELECT 1 FROM seed_runs LIMIT 1'))[0].length) {
+      throw new StartupRefused('BAYSLATE_DEMO is on but this build of the server has no demo seeders (the compiled server never has): use `npm start`.');
+    }
+  }
+  await checkNoDemoAccounts(c);
+  startUserNotices();
   const app = createApp();
   // Mail goes out from the queue, outside any request (a mail outage never fails a request).
   if (c.MAIL_WORKER) startMailWorker();
   const server = app.listen(c.PORT, c.HOST, () => {
     const addr = server.address();
     const port = typeof addr === 'object' && addr ? addr.port : c.PORT;
-    console.log(`[bayslate] server listening on http://${c.HOST}:${port}`);
+    console.log(`[bayslate] server listening on http://${c.HOST}:${port} (${c.NODE_ENV}${c.BAYSLATE_DEMO ? ', demo data' : ''})`);
   });
-  const stop = async () => {
-    server.close();
-    await stopMailWorker();
-    await stopLocalServices();
-    await sequelize.close();
+
+  // Graceful stop: readiness turns 503, no new connections, requests in flight get up to
+  // SHUTDOWN_GRACE_MS, the mail worker finishes the mail in hand, then the pools close.
+  let stopping = false;
+  const stop = async (signal: string) => {
+    if (stopping) return;
+    stopping = true;
+    console.log(`[bayslate] ${signal}: stopping — finishing requests in flight (up to ${c.SHUTDOWN_GRACE_MS} ms)`);
+    markDraining();
+    const closed = new Promise<void>((resolve) => server.close(() => resolve()));
+    server.closeIdleConnections();
+    const grace = new Promise<void>((resolve) => setTimeout(resolve, c.SHUTDOWN_GRACE_MS).unref());
+    await Promise.all([Promise.race([closed, grace]), stopMailWorker()]);
+    server.closeAllConnections();
+    await Promise.allSettled([stopUserNotices(), stopOverviewCache(), closeSharedPool(), sequelize.close()]);
+    console.log('[bayslate] stopped');
     process.exit(0);
   };
-  process.on('SIGINT', stop);
-  process.on('SIGTERM', stop);
+  process.on('SIGINT', () => void stop('SIGINT'));
+  process.on('SIGTERM', () => void stop('SIGTERM'));
 }
 
 main().catch((err) => {
-  console.error('[bayslate] the server could not start:', err?.message ?? err);
+  const known = err instanceof StartupRefused;
+  console.error(`[bayslate] the server ${known ? 'refuses to start' : 'could not start'}: ${err?.message ?? err}`);
   process.exit(1);
 });

@@ -76,6 +76,8 @@ export async function processDueMail(opts: { transport?: Transporter | null; lim
   const result = { sent: 0, retry: 0, failed: 0 };
   if (!transport) return result;
   for (let i = 0; i < (opts.limit ?? 50); i++) {
+    // A stopping server lets the worker finish the mail in hand, and takes no further one.
+    if (finishing) break;
     const outcome = await sendOne(transport);
     if (outcome === 'none') break;
     result[outcome] += 1;
@@ -116,9 +118,13 @@ export function startMailWorker() {
   tick();
 }
 
+let finishing = false;
+
 export async function stopMailWorker() {
   stopped = true;
   if (timer) clearTimeout(timer);
   timer = null;
+  finishing = true;
   await running;
+  finishing = false;
 }

@@ -10,6 +10,8 @@ import pg from 'pg';
 import { config } from '../config';
 import { User } from '../models';
 import { AppError } from '../errors';
+import { onUserChanged } from '../services/userNotices';
+import { isDemoEmail } from '../db/demoAccounts';
 
 export const SESSION_COOKIE = 'bayslate.sid';
 
@@ -34,6 +36,8 @@ declare global {
 }
 
 export async function verifyPassword(email: string, password: string) {
+  // Demo accounts sign in only in demo mode (a database once seeded keeps them).
+  if (!config().BAYSLATE_DEMO && isDemoEmail(email)) email = '';
   const user = await User.findOne({ where: { email: email.trim().toLowerCase() } });
   const ok = await bcrypt.compare(password, user?.passwordHash ?? DUMMY_HASH);
   return ok && user && user.active ? user : null;
@@ -99,6 +103,8 @@ User.addHook('afterSave', (u: User) => void recentUsers.delete(u.id));
 User.addHook('afterDestroy', (u: User) => void recentUsers.delete(u.id));
 User.addHook('afterBulkUpdate', () => recentUsers.clear());
 User.addHook('afterBulkDestroy', () => recentUsers.clear());
+// Other instances' changes arrive as change notices (services/userNotices.ts).
+onUserChanged((id) => (id === null ? recentUsers.clear() : recentUsers.delete(id)));
 
 // rolling: true re-writes the session's expiry on every request. Doing it at most once a minute per
 // session (the idle window is hours) saves a write per request; the same idea as connect-mongo's touchAfter.

@@ -11,6 +11,7 @@ import {
 import { AppError } from '../errors';
 import { config } from '../config';
 import { zodFields } from './validate';
+import { isDatabaseUnavailable, UNAVAILABLE_MESSAGE } from './unavailable';
 
 export const notFoundHandler: RequestHandler = (_req, _res, next) => {
   next(new AppError(404, 'not_found', 'No such API route.'));
@@ -32,9 +33,10 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     e = new AppError(400, 'bad_request', 'Some fields are not valid.', err.errors.map((x) => ({ path: x.path ?? '', message: x.message })));
   else if (err instanceof DatabaseError && (err.parent as { code?: string })?.code === '23514')
     e = new AppError(400, 'bad_request', `A value is out of its allowed range (${(err.parent as { constraint?: string }).constraint ?? 'check'}).`);
+  else if (isDatabaseUnavailable(err)) e = new AppError(503, 'unavailable', UNAVAILABLE_MESSAGE);
   else {
     if (!config().isTest || config().LOG_TEST_ERRORS) console.error(`[error] ${req.method} ${req.originalUrl}`, err);
-    e = new AppError(500, 'internal', config().isProduction ? 'Something went wrong on the server.' : String(err?.message ?? err));
+    e = new AppError(500, 'internal', config().NODE_ENV === 'development' ? String(err?.message ?? err) : 'Something went wrong on the server.');
   }
   if (res.headersSent) return;
   res.status(e.status).json({

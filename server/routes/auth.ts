@@ -2,6 +2,7 @@
 import { Router } from 'express';
 import rateLimit, { ipKeyGenerator } from 'express-rate-limit';
 import { config } from '../config';
+import { pgRateLimitStore } from '../middleware/rateLimitStore';
 import { validate } from '../middleware/validate';
 import { requireSignedIn } from '../middleware/roles';
 import { signIn, verifyPassword, SESSION_COOKIE } from '../middleware/auth';
@@ -13,6 +14,7 @@ export function authRouter() {
   const router = Router();
   const c = config();
   const loginLimiter = rateLimit({
+    store: pgRateLimitStore('login'),
     windowMs: c.LOGIN_RATE_WINDOW_MINUTES * 60_000,
     limit: c.LOGIN_RATE_LIMIT,
     standardHeaders: 'draft-7',
@@ -23,6 +25,7 @@ export function authRouter() {
       next(new AppError(429, 'too_many_attempts', 'Too many sign-in attempts. Wait a few minutes and try again.')),
   });
   const addressLimiter = rateLimit({
+    store: pgRateLimitStore('login-address'),
     windowMs: c.LOGIN_RATE_WINDOW_MINUTES * 60_000,
     limit: c.LOGIN_RATE_LIMIT * 5,
     standardHeaders: false,

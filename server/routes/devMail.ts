@@ -1,11 +1,19 @@
-// The development inbox at /dev/mail (demo mode only): the .eml files the local fake SMTP saved,
+// The development inbox at /dev/mail (demo mode only; app.ts mounts it only then): the .eml files the local fake SMTP saved,
 // newest first, each readable as plain text. Everything shown is escaped; only http(s) links
 // found in the text are made clickable.
 import { Router } from 'express';
 import { readdir, readFile } from 'node:fs/promises';
 import path from 'node:path';
-import { simpleParser } from 'mailparser';
 import { config } from '../config';
+
+// mailparser is a development dependency: loaded on first use, and the inbox exists in demo mode
+// only, which a production start refuses.
+type Parser = typeof import('mailparser').simpleParser;
+let parser: Promise<Parser> | null = null;
+const simpleParser: Parser = (async (source: Buffer) => {
+  parser ??= import('mailparser').then((m) => m.simpleParser);
+  return (await parser)(source);
+}) as Parser;
 
 const esc = (s: unknown) =>
   String(s ?? '').replace(/[&<>"']/g, (ch) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[ch]!);

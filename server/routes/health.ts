@@ -1,18 +1,20 @@
-// Health: the database and every adapter that registers a check (storage, mail).
+// Health: /live (the process answers; no I/O), /ready (the database and every adapter that
+// registers a check, each with a short time-out, the result reused for about a second), and
+// /api/health (every check, run afresh: a diagnostic). /demo lists the demo sign-ins, in demo mode only.
 import { Router } from 'express';
 import { sequelize } from '../models';
 import { config } from '../config';
-import { DEMO_PASSWORD, DEMO_USERS } from '../db/seeders/0001-demo-users';
+import { DEMO_EMAILS } from '../db/demoAccounts';
 
 type Check = () => Promise<boolean>;
 const checks = new Map<string, Check>();
 
-/** Adapters call this at start-up so /api/health reports them. */
+/** Adapters call this at start-up so /api/health/ready reports them. */
 export function registerHealthCheck(name: string, check: Check) {
   checks.set(name, check);
 }
 
-async function safe(check: Check, ms = 2000): Promise<boolean> {
+async function safe(check: Check, ms: number): Promise<boolean> {
   let timer: NodeJS.Timeout | undefined;
   try {
     return await Promise.race([check(), new Promise<boolean>((r) => (timer = setTimeout(() => r(false), ms)))]);
@@ -23,19 +25,51 @@ async function safe(check: Check, ms = 2000): Promise<boolean> {
   }
 }
 
+let draining = false;
+/** Set on SIGTERM: readiness answers 503 so a load balancer stops sending new requests here. */
+export function markDraining() {
+  draining = true;
+}
+
+type Readiness = { ok: boolean; db: boolean; [name: string]: boolean };
+const REUSE_MS = 1000;
+let last: { at: number; result: Promise<Readiness> } | null = null;
+
+async function runChecks(): Promise<Readiness> {
+  const ms = config().READY_CHECK_TIMEOUT_MS;
+  const names = ['db', ...checks.keys()];
+  const results = await Promise.all([safe(async () => (await sequelize.query('SELECT 1')) !== null, ms), ...[...checks.values()].map((c) => safe(c, ms))]);
+  const out: Readiness = { ok: results.every(Boolean), db: results[0] };
+  names.forEach((n, i) => (out[n] = results[i]));
+  out.ok = results.every(Boolean);
+  return out;
+}
+
+/** The checks' result, computed at most once a second however many callers ask. */
+export function readiness(): Promise<Readiness> {
+  if (!last || Date.now() - last.at > REUSE_MS) last = { at: Date.now(), result: runChecks() };
+  return last.result;
+}
+
 export function healthRouter() {
   const router = Router();
-  router.get('/', async (_req, res) => {
-    const db = await safe(async () => (await sequelize.query('SELECT 1')) !== null);
-    const extra: Record<string, boolean> = {};
-    for (const [name, check] of checks) extra[name] = await safe(check);
-    const ok = db && Object.values(extra).every(Boolean);
-    res.status(db ? 200 : 503).json({ ok, db, ...extra });
+  router.get('/live', (_req, res) => {
+    res.json({ ok: true });
   });
-  // The sign-in page lists the demo accounts, in demo mode only.
-  router.get('/demo', (_req, res) => {
-    const demo = config().BAYSLATE_DEMO;
-    res.json({ demo, accounts: demo ? DEMO_USERS.map((u) => u.email) : [], password: demo ? DEMO_PASSWORD : null });
+  router.get('/ready', async (_req, res) => {
+    const r = await readiness();
+    const ok = r.ok && !draining;
+    res.status(ok ? 200 : 503).json({ ...r, ok, ...(draining ? { stopping: true } : {}) });
+  });
+  // The diagnostic answer: every check run now (point load balancers at /live and /ready instead).
+  router.get('/', async (_req, res) => {
+    const r = await runChecks();
+    res.status(r.db ? 200 : 503).json(r);
+  });
+  // The sign-in page lists the demo accounts, in demo mode only; otherwise there is no such route.
+  router.get('/demo', (_req, res, next) => {
+    if (!config().BAYSLATE_DEMO) return next();
+    res.json({ demo: true, accounts: DEMO_EMAILS, password: 'bayslate-demo' });
   });
   return router;
 }

@@ -2,6 +2,7 @@
 // password once (mounted at /api/invitations).
 import { Router } from 'express';
 import rateLimit from 'express-rate-limit';
+import { pgRateLimitStore } from '../middleware/rateLimitStore';
 import { z } from 'zod';
 import { config } from '../config';
 import { AppError } from '../errors';
@@ -14,6 +15,7 @@ const token = z.object({ token: z.string().regex(/^[A-Za-z0-9_-]{20,200}$/, 'is 
 export function invitationsRouter() {
   const router = Router();
   const limiter = rateLimit({
+    store: pgRateLimitStore('invitation'),
     windowMs: config().LOGIN_RATE_WINDOW_MINUTES * 60_000,
     limit: config().LOGIN_RATE_LIMIT * 5,
     standardHeaders: 'draft-7',

@@ -2,6 +2,7 @@
 // unsubscribe links. Writes are rate-limited per address and per e-mail.
 import { Router } from 'express';
 import rateLimit from 'express-rate-limit';
+import { pgRateLimitStore } from '../middleware/rateLimitStore';
 import { z } from 'zod';
 import { config } from '../config';
 import { AppError } from '../errors';
@@ -21,10 +22,13 @@ export function publicRouter() {
   const c = config();
   const router = Router({ mergeParams: true });
   const windowMs = c.PUBLIC_RATE_WINDOW_MINUTES * 60_000;
-  const perAddress = rateLimit({ windowMs, limit: c.PUBLIC_WRITE_RATE_LIMIT, standardHeaders: 'draft-7', legacyHeaders: false, handler: tooMany });
+  const perAddress = rateLimit({ store: pgRateLimitStore('public-write'), windowMs, limit: c.PUBLIC_WRITE_RATE_LIMIT, standardHeaders: 'draft-7', legacyHeaders: false, handler: tooMany });
+  // Reads keep their counter in this process (a flood guard): a shared counter would cost a
+  // database write per page view on the page that must serve an audience.
   const readPerAddress = rateLimit({ windowMs, limit: c.PUBLIC_WRITE_RATE_LIMIT * 20, standardHeaders: 'draft-7', legacyHeaders: false, handler: tooMany });
   // Per e-mail (by its keyed hash), so one inbox cannot be flooded with confirmation mail.
   const perEmail = rateLimit({
+    store: pgRateLimitStore('public-email'),
     windowMs: 60 * 60_000,
     limit: c.PUBLIC_EMAIL_RATE_LIMIT,
     standardHeaders: false,

@@ -97,6 +97,17 @@ export function store(buildId: number, day: string, before: string, value: unkno
   return entry;
 }
 
+/**
+ * Waits for one round trip on the listening connection: PostgreSQL sends the notices of every
+ * transaction committed before it ahead of the answer, so a change made through another instance
+ * has dropped its entry by the time this resolves.
+ */
+export async function catchUpOverviewNotices(): Promise<void> {
+  const c = client;
+  if (!listening || !c) return;
+  await c.query('SELECT 1').catch(() => undefined);
+}
+
 /** Closes the listening connection (tests, shutdown). */
 export async function stopOverviewCache() {
   const c = client;

@@ -1,18 +1,15 @@
-// Object storage for media: the S3 adapter, the local fake registered for `npm start`
-// (S3_ENDPOINT unset), and the 'storage' health check.
-import { registerLocalService } from '../localServices';
+// Object storage for media: the S3 adapter and the 'storage' health check. The local fake S3 runs
+// in a process of its own (scripts/start.mjs), never inside the server.
 import { registerHealthCheck } from '../routes/health';
-import { bucketReachable, usesLocalFake } from './s3';
-import { startLocalS3, stopLocalS3 } from './localS3';
+import { bucketReachable } from './s3';
 
 export * from './s3';
 
 let registered = false;
 
-/** Called once by the media routes: registers the local fake (if needed) and the health check. */
+/** Called once by the media routes: registers the health check. */
 export function registerStorage() {
   if (registered) return;
   registered = true;
-  if (usesLocalFake()) registerLocalService({ name: 'fake S3', start: startLocalS3, stop: stopLocalS3 });
   registerHealthCheck('storage', bucketReachable);
 }
