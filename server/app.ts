@@ -11,6 +11,7 @@ import { mountRoutes } from './routes';
 import { devMailRouter } from './routes/devMail';
 import { installMail } from './mail';
 import { sharedPool } from './db/pool';
+import { healthProbesRouter } from './routes/health';
 import { catchUpOverviewNotices } from './services/overviewCache';
 
 /** The pool the session store uses (also used by the bench's bare route); it has an 'error' listener (db/pool.ts). */
@@ -49,6 +50,8 @@ export function createApp(): Express {
   }
   app.use('/api', express.json({ limit: '2mb', strict: true }));
   app.use('/api', express.text({ type: 'text/csv', limit: '10mb' }));
+  // Load balancers' probes answer before any session lookup (deploy): /live does no I/O at all.
+  app.use('/api/health', healthProbesRouter());
   installAuth(app, getSessionPool());
   app.use('/api', sameOriginOnly);
   // Several instances (deploy): before answering from its overview cache, an instance reads the

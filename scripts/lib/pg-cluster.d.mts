@@ -5,6 +5,10 @@ export interface Cluster {
   bin: string;
   password: string;
   stop: () => void;
+  /** pg_ctl -m fast stop (the data stays). */
+  pause: () => void;
+  /** Starts the stopped cluster again on the same port. */
+  resume: () => void;
 }
 export function freePort(): Promise<number>;
 export function startCluster(opts: { home: string; port: number; database?: string; fast?: boolean; throwaway?: boolean }): Promise<Cluster>;

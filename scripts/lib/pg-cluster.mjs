@@ -84,8 +84,7 @@ export async function startCluster({ home, port, database = 'bayslate', fast = f
   const password = readFileSync(pwFile, 'utf8').trim();
 
   const status = asOwner(path.join(bin, 'pg_ctl'), ['-D', dataDir, 'status']);
-  if (status.status !== 0) {
-    if (!(await portFree(port))) throw new Error(`port ${port} is taken; set BAYSLATE_PG_PORT to another port`);
+  const pgStart = () => {
     const opts = [`-c listen_addresses=127.0.0.1`, `-p ${port}`, `-k ${sockDir}`];
     if (fast) opts.push('-c fsync=off', '-c synchronous_commit=off', '-c full_page_writes=off');
     chownToPostgres(dataRoot);
@@ -94,6 +93,10 @@ export async function startCluster({ home, port, database = 'bayslate', fast = f
       const tail = existsSync(logFile) ? readFileSync(logFile, 'utf8').split('\n').slice(-15).join('\n') : '';
       throw new Error(`PostgreSQL did not start:\n${r.stderr || r.stdout}\n${tail}`);
     }
+  };
+  if (status.status !== 0) {
+    if (!(await portFree(port))) throw new Error(`port ${port} is taken; set BAYSLATE_PG_PORT to another port`);
+    pgStart();
   } else {
     const pidLine = readFileSync(path.join(dataDir, 'postmaster.pid'), 'utf8').split('\n');
     port = Number(pidLine[3]);
@@ -116,7 +119,12 @@ export async function startCluster({ home, port, database = 'bayslate', fast = f
       rmSync(home, { recursive: true, force: true });
     }
   };
-  return { url, port, stop, bin, password };
+  // For fault tests: stop PostgreSQL as an operator would (fast: sessions are ended) and start it again.
+  const pause = () => {
+    const r = asOwner(path.join(bin, 'pg_ctl'), ['-D', dataDir, '-m', 'fast', '-w', 'stop']);
+    if (r.status !== 0) throw new Error(`pg_ctl stop failed: ${r.stderr || r.stdout}`);
+  };
+  return { url, port, stop, bin, password, pause, resume: pgStart };
 }
 
 /** A throwaway cluster in a temp folder, with fast (unsafe) settings, for tests. */

@@ -31,7 +31,7 @@ export function markDraining() {
   draining = true;
 }
 
-type Readiness = { ok: boolean; db: boolean; [name: string]: boolean };
+type Readiness = { ok: boolean; db: boolean; checkedAt: string; checks: Record<string, boolean> };
 const REUSE_MS = 1000;
 let last: { at: number; result: Promise<Readiness> } | null = null;
 
@@ -39,10 +39,9 @@ async function runChecks(): Promise<Readiness> {
   const ms = config().READY_CHECK_TIMEOUT_MS;
   const names = ['db', ...checks.keys()];
   const results = await Promise.all([safe(async () => (await sequelize.query('SELECT 1')) !== null, ms), ...[...checks.values()].map((c) => safe(c, ms))]);
-  const out: Readiness = { ok: results.every(Boolean), db: results[0] };
-  names.forEach((n, i) => (out[n] = results[i]));
-  out.ok = results.every(Boolean);
-  return out;
+  const each: Record<string, boolean> = {};
+  names.forEach((n, i) => (each[n] = results[i]));
+  return { ok: results.every(Boolean), db: results[0], checkedAt: new Date().toISOString(), checks: each };
 }
 
 /** The checks' result, computed at most once a second however many callers ask. */
@@ -51,20 +50,26 @@ export function readiness(): Promise<Readiness> {
   return last.result;
 }
 
-export function healthRouter() {
+/** /live and /ready: mounted ahead of sessions (app.ts), so they answer with no cookie lookup. */
+export function healthProbesRouter() {
   const router = Router();
   router.get('/live', (_req, res) => {
     res.json({ ok: true });
   });
   router.get('/ready', async (_req, res) => {
-    const r = await readiness();
+    const { checks: each, ...r } = await readiness();
     const ok = r.ok && !draining;
-    res.status(ok ? 200 : 503).json({ ...r, ok, ...(draining ? { stopping: true } : {}) });
+    res.status(ok ? 200 : 503).json({ ...each, ...r, ok, ...(draining ? { stopping: true } : {}) });
   });
+  return router;
+}
+
+export function healthRouter() {
+  const router = Router();
   // The diagnostic answer: every check run now (point load balancers at /live and /ready instead).
   router.get('/', async (_req, res) => {
-    const r = await runChecks();
-    res.status(r.db ? 200 : 503).json(r);
+    const { checks: each, ok, db } = await runChecks();
+    res.status(db ? 200 : 503).json({ ok, ...each });
   });
   // The sign-in page lists the demo accounts, in demo mode only; otherwise there is no such route.
   router.get('/demo', (_req, res, next) => {
