@@ -7,7 +7,7 @@ import { migrate, seedDemo } from './db/migrate';
 import { sequelize } from './models';
 import { closeSharedPool } from './db/pool';
 import { installMail, startMailWorker, stopMailWorker } from './mail';
-import { checkNoDemoAccounts, checkSettings, StartupRefused } from './startupChecks';
+import { checkNoDemoAccounts, checkSettings, demoAccountsExist, StartupRefused } from './startupChecks';
 import { markDraining } from './routes/health';
 import { startUserNotices, stopUserNotices } from './services/userNotices';
 import { stopOverviewCache } from './services/overviewCache';
@@ -18,9 +18,9 @@ async function main() {
   installMail();
   await migrate();
   if (c.BAYSLATE_DEMO) {
-    const seeded = await seedDemo();
-    if (!seeded.length && !(await sequelize.query('SELECT 1 FROM seed_runs LIMIT 1'))[0].length) {
-      throw new StartupRefused('BAYSLATE_DEMO is on but this build of the server has no demo seeders (the compiled server never has): use `npm start`.');
+    await seedDemo();
+    if (!(await demoAccountsExist())) {
+      throw new StartupRefused('BAYSLATE_DEMO is on but no demo data could be seeded (the compiled server carries no seeders): use `npm start`.');
     }
   }
   await checkNoDemoAccounts(c);

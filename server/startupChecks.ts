@@ -23,13 +23,18 @@ export function checkSettings(c: Config) {
   }
 }
 
-/** After migrating: a production database must hold no active demo account. */
-export async function checkNoDemoAccounts(c: Config) {
-  if (!c.isProduction) return;
-  const rows = await sequelize.query<{ email: string }>('SELECT email FROM users WHERE active AND email IN (:emails) ORDER BY email', {
+const activeDemoAccounts = () =>
+  sequelize.query<{ email: string }>('SELECT email FROM users WHERE active AND email IN (:emails) ORDER BY email', {
     replacements: { emails: [...DEMO_EMAILS] },
     type: QueryTypes.SELECT,
   });
+
+export const demoAccountsExist = async () => (await activeDemoAccounts()).length > 0;
+
+/** After migrating: a production database must hold no active demo account. */
+export async function checkNoDemoAccounts(c: Config) {
+  if (!c.isProduction) return;
+  const rows = await activeDemoAccounts();
   if (rows.length) {
     throw new StartupRefused(
       `this database has demo accounts (${rows.map((r) => r.email).join(', ')}), and a production start refuses to serve them. ` +
