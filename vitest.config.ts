@@ -45,7 +45,8 @@ export default defineConfig({
           testTimeout: 120_000,
           // No retries: a journey starts from its own database and waits for what it caused.
           retry: 0,
-          hookTimeout: 90_000,
+          // Each browser test starts its own server on its own database (tests/helpers/fresh-db.ts).
+          hookTimeout: 180_000,
           pool: 'forks',
           maxWorkers: 2,
         },

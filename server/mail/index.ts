@@ -2,6 +2,7 @@
 import path from 'node:path';
 import { config } from '../config';
 import { registerLocalService } from '../localServices';
+// eslint-disable-next-line import-x/no-restricted-paths -- issue 13: the health-check registry belongs outside routes/ (routes/health.ts owner to move it)
 import { registerHealthCheck } from '../routes/health';
 import { startFakeSmtp, type FakeSmtp } from './fakeSmtp';
 import { mailTransport, useLocalSmtp } from './transport';
