@@ -43,10 +43,10 @@ export default defineConfig({
           globalSetup: ['tests/helpers/global-services.ts'],
           setupFiles: ['tests/helpers/per-file-db.ts'],
           testTimeout: 120_000,
-          // One retry for a browser journey that trips on timing on a busy shared machine; a
-          // test that fails twice fails the run. Unit and API tests never retry.
-          retry: 1,
-          hookTimeout: 90_000,
+          // No retries: a journey starts from its own database and waits for what it caused.
+          retry: 0,
+          // Each browser test starts its own server on its own database (tests/helpers/fresh-db.ts).
+          hookTimeout: 180_000,
           pool: 'forks',
           maxWorkers: 2,
         },

@@ -12,8 +12,10 @@ try {
   ensurePostgres();
   ensureChromium();
   ensureNodeModules(root);
-  log('type-checking client, server and tests…');
-  execFileSync(process.execPath, [path.join(root, 'node_modules/vue-tsc/bin/vue-tsc.js'), '--noEmit', '-p', 'tsconfig.json'], { cwd: root, stdio: 'inherit' });
+  log('linting (correctness and layer boundaries, eslint.config.js)…');
+  execFileSync(process.execPath, [path.join(root, 'node_modules/eslint/bin/eslint.js'), '.'], { cwd: root, stdio: 'inherit' });
+  log('type-checking shared (no DOM, no Node), client (DOM), server (Node) and tests…');
+  execFileSync(process.execPath, [path.join(root, 'scripts/typecheck-layers.mjs')], { cwd: root, stdio: 'inherit' });
   log('building the client for the browser tests…');
   execFileSync(process.execPath, [path.join(root, 'node_modules/vite/bin/vite.js'), 'build', '--logLevel', 'warn'], { cwd: root, stdio: 'inherit' });
 } catch (err) {

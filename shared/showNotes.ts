@@ -1,6 +1,7 @@
 // Show notes for an episode: chapter times, tagged product links, safety cautions, as paste-ready plain text.
 // Pure TypeScript (uses only the standard URL API, present in browsers and Node alike).
 import { cautionsFor, SAFETY_DEFERRAL } from './safety';
+import { parseUrl, type WebUrl } from './webUrl';
 
 export interface ChapterInput {
   startSeconds: number;
@@ -102,9 +103,9 @@ export interface UtmTags {
  * any utm_* already present is replaced. Only http and https links are tagged; anything else → null.
  */
 export function tagProductUrl(url: string, tags: UtmTags): string | null {
-  let u: URL;
+  let u: WebUrl;
   try {
-    u = new URL(String(url ?? '').trim());
+    u = parseUrl(String(url ?? '').trim());
   } catch {
     return null;
   }
@@ -181,7 +182,7 @@ export interface ShowNotes {
 function isWebUrl(url: string | null | undefined): url is string {
   if (!url) return false;
   try {
-    const u = new URL(url.trim());
+    const u = parseUrl(url.trim());
     return u.protocol === 'http:' || u.protocol === 'https:';
   } catch {
     return false;

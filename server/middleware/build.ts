@@ -1,8 +1,10 @@
 // Loads the build named by :buildId for routers mounted under /api/builds/:buildId/…, so every
 // record a handler touches can be scoped to it (a record of another build answers 404).
+// An anonymous caller gets 401 before the build is looked up, whether it exists or not, so the
+// answers never tell which builds exist (server/routes/buildScoped.ts puts the role check first).
 import type { RequestHandler } from 'express';
 import { Build } from '../models';
-import { notFound } from '../errors';
+import { notFound, unauthorized } from '../errors';
 
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace
@@ -14,6 +16,7 @@ declare global {
 }
 
 export const loadBuild: RequestHandler = async (req, _res, next) => {
+  if (!req.user) return next(unauthorized());
   const id = Number(req.params.buildId);
   if (!Number.isInteger(id) || id <= 0) return next(notFound('Build'));
   const build = await Build.findByPk(id);

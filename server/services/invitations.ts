@@ -5,7 +5,7 @@ import { sequelize, User } from '../models';
 import { AppError } from '../errors';
 import { record } from './activity';
 import { newToken, tokenHash } from './viewerPrivacy';
-import { hashPassword } from './users';
+import { hashPassword } from './passwords';
 
 export const INVITATION_DAYS = 7;
 

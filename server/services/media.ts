@@ -7,11 +7,14 @@ import { AppError, badRequest, forbidden, notFound } from '../errors';
 import { config } from '../config';
 import { record } from './activity';
 import { seesMoney } from './visibility';
+// eslint-disable-next-line import-x/no-restricted-paths -- issue 13: hasRole belongs outside middleware (media owner to move it)
 import { hasRole } from '../middleware/roles';
 import { putBuffer, putFile, presignGet, removeObjects } from '../storage';
+// eslint-disable-next-line no-restricted-imports -- issue 13: the media service still takes req (media owner to move the upload parsing into the route)
 import type { Request } from 'express';
 import { contentDisposition, removeTemp, sanitizeName, storageUnavailable, type Detected, type ReceivedFile } from './mediaFiles';
 import { mediaUploadFields, type MediaListQuery, type MediaPatch, type MediaRecord } from '../../shared/schemas/media';
+// eslint-disable-next-line import-x/no-restricted-paths -- issue 13: zodFields belongs outside middleware (media owner to move it)
 import { zodFields } from '../middleware/validate';
 import type { MediaKind } from '../../shared/domain';
 

@@ -13,7 +13,8 @@ import { config } from '../config';
 import type { CreateUserInput, UpdateUserInput } from '../../shared/schemas/auth';
 import type { Role } from '../../shared/domain';
 
-export const hashPassword = (plain: string) => bcrypt.hash(plain, 10);
+import { hashPassword } from './passwords';
+export { hashPassword };
 
 export async function listUsers() {
   const users = await User.findAll({ order: [['name', 'ASC']] });

@@ -1,5 +1,6 @@
 // Building blocks for the zod schemas that server and client share.
 import { z } from 'zod';
+import { parseUrl } from '../webUrl';
 
 export const id = z.coerce.number().int().positive();
 export const isoDate = z
@@ -20,7 +21,7 @@ export const httpUrl = z
   .max(2000)
   .refine((s) => {
     try {
-      const u = new URL(s);
+      const u = parseUrl(s);
       return u.protocol === 'http:' || u.protocol === 'https:';
     } catch {
       return false;

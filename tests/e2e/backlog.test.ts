@@ -1,23 +1,27 @@
 // The backlog in the browser, one journey per role: the producer plans (create, edit, link a
 // prerequisite, see a loop refused, import parts from CSV), the installer works from a phone
 // (log hours, receive a part), the owner sees spend, marketing sees retail but never cost.
-import { describe, it, expect, beforeAll, afterAll } from 'vitest';
+import { describe, it, expect, beforeEach, afterEach } from 'vitest';
 import type { Page } from 'playwright-core';
-import { openBrowser, signIn, audit, visit, startAppServer, type AppServer, type BrowserSession } from '../helpers/browser';
+import { openBrowser, signIn, audit, visit, type BrowserSession } from '../helpers/browser';
+import { freshApp, type FreshApp } from '../helpers/fresh-db';
+import { outcomeOf } from '../helpers/outcome';
 import { compareTires } from '../../shared/tires';
 import { SAFETY_CAUTIONS } from '../../shared/safety';
 
-let server: AppServer;
-beforeAll(async () => {
-  server = await startAppServer();
+// Each journey runs on a database of its own, cloned from the template as it starts.
+let app: FreshApp | undefined;
+beforeEach(async () => {
+  app = await freshApp();
 });
-afterAll(async () => {
-  await server?.stop();
+afterEach(async () => {
+  await app?.stop();
+  app = undefined;
 });
 
 /** Reads the API with the page's own session, as the client does. */
 async function apiGet<T>(s: BrowserSession, path: string): Promise<T> {
-  const res = await s.page.request.get(server.url + path, { headers: { 'X-Requested-With': 'Bayslate', Accept: 'application/json' } });
+  const res = await s.page.request.get(s.server.url + path, { headers: { 'X-Requested-With': 'Bayslate', Accept: 'application/json' } });
   expect(res.status(), `${path} answered ${res.status()}`).toBe(200);
   return (await res.json()) as T;
 }
@@ -41,11 +45,10 @@ async function choose(page: Page, scope: ReturnType<Page['locator']>, option: st
 // A whole journey drives many screens; the shared two-core machine makes some of them slow.
 const JOURNEY_TIMEOUT = 180_000;
 const drawer = (page: Page) => page.locator('.n-drawer');
-const message = (page: Page, text: string) => page.locator('.n-message', { hasText: text }).first().waitFor();
 
 describe('backlog in the browser', () => {
   it('producer creates an upgrade, edits it, links a prerequisite, sees a loop refused and imports parts', async () => {
-    const s = await openBrowser({ server });
+    const s = await openBrowser({ server: app!.server });
     const { page } = s;
     try {
       await signIn(s, 'producer');
@@ -69,8 +72,7 @@ describe('backlog in the browser', () => {
       await choose(page, modal.locator('.n-form-item', { hasText: 'Area' }), 'Sides');
       await modal.getByLabel('Estimated hours').fill('1.5');
       await audit(s, 'new upgrade form');
-      await modal.getByRole('button', { name: 'Add to the backlog' }).click();
-      await message(page, 'added to the backlog');
+      await outcomeOf(page, () => modal.getByRole('button', { name: 'Add to the backlog' }).click(), { request: { method: 'POST', path: /\/upgrades$/ }, toast: 'added to the backlog' });
       await drawer(page).getByText('Puddle lamps in the mirrors').first().waitFor();
       await page.waitForURL(/upgrade=\d+/);
       const created = await upgradeByTitle(s, buildId, 'Puddle lamps in the mirrors');
@@ -80,8 +82,7 @@ describe('backlog in the browser', () => {
       await drawer(page).getByRole('button', { name: 'Edit details' }).click();
       await drawer(page).getByLabel('Estimated hours').fill('2.5');
       await drawer(page).getByLabel('Replaces (stock part)').fill('Plain mirror caps');
-      await drawer(page).getByRole('button', { name: 'Save changes' }).click();
-      await message(page, 'Upgrade saved.');
+      await outcomeOf(page, () => drawer(page).getByRole('button', { name: 'Save changes' }).click(), { request: { method: 'PATCH', path: `/upgrades/${created.id}` }, toast: 'Upgrade saved.' });
       await drawer(page).getByText('2.5 h estimated').waitFor();
       await drawer(page).getByText('Plain mirror caps').first().waitFor();
 
@@ -91,8 +92,7 @@ describe('backlog in the browser', () => {
       await page.keyboard.type('Power-folding');
       await page.locator('.n-base-select-option:visible', { hasText: 'Power-folding mirrors with turn signals' }).first().click();
       await drawer(page).locator('#ud-prereq').click(); // closes the option list
-      await drawer(page).getByRole('button', { name: 'Save prerequisites' }).click();
-      await message(page, 'Prerequisites saved.');
+      await outcomeOf(page, () => drawer(page).getByRole('button', { name: 'Save prerequisites' }).click(), { request: { method: 'PUT', path: `/upgrades/${created.id}/prerequisites` }, toast: 'Prerequisites saved.' });
       expect((await upgradeByTitle(s, buildId, 'Puddle lamps in the mirrors')).prerequisiteIds).toEqual([mirrors.id]);
       // The history records the change.
       await drawer(page).locator('#ud-activity').waitFor();
@@ -105,7 +105,7 @@ describe('backlog in the browser', () => {
       await page.keyboard.type('Puddle');
       await page.locator('.n-base-select-option:visible', { hasText: 'Puddle lamps in the mirrors' }).first().click();
       await drawer(page).locator('#ud-prereq').click(); // closes the option list
-      await drawer(page).getByRole('button', { name: 'Save prerequisites' }).click();
+      await outcomeOf(page, () => drawer(page).getByRole('button', { name: 'Save prerequisites' }).click(), { request: { method: 'PUT', path: `/upgrades/${mirrors.id}/prerequisites`, status: 422 } });
       const cycle = drawer(page).locator('[data-test="cycle"]');
       await cycle.waitFor();
       const cycleText = await cycle.innerText();
@@ -133,8 +133,7 @@ describe('backlog in the browser', () => {
       const good = bad.replace(',-1,', ',1,');
       await page.locator('[data-test="csv-file"]').setInputFiles({ name: 'puddle-parts.csv', mimeType: 'text/csv', buffer: Buffer.from(good) });
       await page.locator('[data-test="csv-ok"]').waitFor();
-      await page.locator('[data-test="csv-import"]').click();
-      await message(page, '2 parts imported.');
+      await outcomeOf(page, () => page.locator('[data-test="csv-import"]').click(), { request: { method: 'POST', path: '/parts/import' }, toast: '2 parts imported.' });
       await page.locator('[data-test="group-to-order"] [data-test="part-HT-PDL-6320"]').waitFor();
       await page.locator('[data-test="group-to-order"] [data-test="part-HT-PDL-6321"]').waitFor();
       const { parts } = await apiGet<{ parts: { partNumber: string; upgradeId: number }[] }>(s, `/api/builds/${buildId}/parts?upgradeId=${created.id}`);
@@ -148,13 +147,11 @@ describe('backlog in the browser', () => {
       await line.getByRole('button', { name: /Delete/ }).click();
       await page.getByRole('dialog', { name: 'Delete part HT-PDL-6321?' }).waitFor();
       await audit(s, 'delete confirmation');
-      await page.getByRole('button', { name: 'Delete the part' }).click();
-      await message(page, 'Part deleted.');
+      await outcomeOf(page, () => page.getByRole('button', { name: 'Delete the part' }).click(), { request: { method: 'DELETE', path: /\/parts\/\d+$/ }, toast: 'Part deleted.' });
       await line.waitFor({ state: 'detached' });
       await visit(s, `/builds/${buildId}/backlog?upgrade=${mirrors.id}`);
       await drawer(page).getByRole('button', { name: 'Delete', exact: true }).click();
-      await page.getByRole('button', { name: 'Delete the upgrade' }).click();
-      await message(page, 'Puddle lamps in the mirrors');
+      await outcomeOf(page, () => page.getByRole('button', { name: 'Delete the upgrade' }).click(), { request: { method: 'DELETE', path: `/upgrades/${mirrors.id}`, status: 409 }, toast: 'Puddle lamps in the mirrors' });
       await upgradeByTitle(s, buildId, 'Power-folding mirrors with turn signals');
 
       // Other costs go on the upgrade too.
@@ -162,8 +159,7 @@ describe('backlog in the browser', () => {
       await drawer(page).getByRole('button', { name: 'Add an expense' }).click();
       await drawer(page).getByLabel('What for').fill('Trim clips and tape');
       await drawer(page).getByLabel('Amount (dollars)').fill('18.40');
-      await drawer(page).getByRole('button', { name: 'Add expense' }).click();
-      await message(page, 'Expense added.');
+      await outcomeOf(page, () => drawer(page).getByRole('button', { name: 'Add expense' }).click(), { request: { method: 'POST', path: /\/expenses$/ }, toast: 'Expense added.' });
       const { expenses } = await apiGet<{ expenses: { description: string; amountCents: number }[] }>(s, `/api/builds/${buildId}/expenses?upgradeId=${created.id}`);
       expect(expenses).toEqual([expect.objectContaining({ description: 'Trim clips and tape', amountCents: 1840 })]);
 
@@ -172,12 +168,10 @@ describe('backlog in the browser', () => {
       await drawer(page).getByLabel('Description').last().fill('Plain mirror caps');
       await choose(page, drawer(page).locator('.n-form-item', { hasText: 'What happens to it' }), 'For sale');
       await drawer(page).getByLabel('Expected sale (dollars)').fill('30');
-      await drawer(page).getByRole('button', { name: 'Record it' }).click();
-      await message(page, 'Removed part recorded.');
+      await outcomeOf(page, () => drawer(page).getByRole('button', { name: 'Record it' }).click(), { request: { method: 'POST', path: /\/removed-parts$/ }, toast: 'Removed part recorded.' });
       await drawer(page).getByRole('button', { name: /Record sale price/ }).click();
       await drawer(page).getByLabel('Sold for (dollars)').fill('25');
-      await drawer(page).getByRole('button', { name: 'Save sale' }).click();
-      await message(page, 'sale recorded.');
+      await outcomeOf(page, () => drawer(page).getByRole('button', { name: 'Save sale' }).click(), { request: { method: 'PATCH', path: /\/removed-parts\/\d+$/ }, toast: 'sale recorded.' });
       const { removedParts } = await apiGet<{ removedParts: { description: string; disposition: string; expectedSaleCents: number; actualSaleCents: number }[] }>(s, `/api/builds/${buildId}/removed-parts?upgradeId=${created.id}`);
       expect(removedParts).toEqual([expect.objectContaining({ description: 'Plain mirror caps', disposition: 'sold', expectedSaleCents: 3000, actualSaleCents: 2500 })]);
       await audit(s, 'removed part sold');
@@ -191,7 +185,7 @@ describe('backlog in the browser', () => {
       await nb.getByLabel('Make', { exact: true }).fill('Halvorsen');
       await nb.getByLabel('Model', { exact: true }).fill('Heron');
       await audit(s, 'new build form');
-      await nb.getByRole('button', { name: 'Create the build' }).click();
+      await outcomeOf(page, () => nb.getByRole('button', { name: 'Create the build' }).click(), { request: { method: 'POST', path: '/api/builds' } });
       await page.waitForURL(/\/builds\/\d+\/settings/);
       await page.locator('[data-test="build-name"]', { hasText: 'Project Heron' }).waitFor();
       const { builds } = await apiGet<{ builds: { slug: string }[] }>(s, '/api/builds');
@@ -202,7 +196,7 @@ describe('backlog in the browser', () => {
   }, JOURNEY_TIMEOUT);
 
   it('installer at phone width logs hours and marks a part received', async () => {
-    const s = await openBrowser({ server, phone: true });
+    const s = await openBrowser({ server: app!.server, phone: true });
     const { page } = s;
     try {
       await signIn(s, 'installer');
@@ -220,8 +214,7 @@ describe('backlog in the browser', () => {
       await drawer(page).getByLabel('Hours').fill('1.5');
       await drawer(page).getByLabel('Note').fill('Routed the harness along the frame rail');
       await audit(s, 'log hours form (phone)');
-      await drawer(page).getByRole('button', { name: 'Save hours' }).click();
-      await message(page, '1.5 h logged.');
+      await outcomeOf(page, () => drawer(page).getByRole('button', { name: 'Save hours' }).click(), { request: { method: 'POST', path: /\/labour$/ }, toast: '1.5 h logged.' });
       // The history lists the same note once it refreshes, so look in the hours list itself.
       await drawer(page).locator('.note', { hasText: 'Routed the harness along the frame rail' }).waitFor();
       const after = (await apiGet<{ labour: { hours: number; note: string | null }[] }>(s, `/api/builds/${buildId}/labour?upgradeId=${wiring.id}`)).labour;
@@ -232,12 +225,10 @@ describe('backlog in the browser', () => {
       const brake = await upgradeByTitle(s, buildId, 'Trailer brake controller');
       await visit(s, `/builds/${buildId}/backlog?upgrade=${brake.id}`);
       const states = drawer(page).getByRole('group', { name: 'Install state' });
-      await states.getByRole('button', { name: 'In the bay' }).click();
-      await message(page, 'Trailer wiring, 7-pin');
+      await outcomeOf(page, () => states.getByRole('button', { name: 'In the bay' }).click(), { request: { method: 'PATCH', path: `/upgrades/${brake.id}`, status: 409 }, toast: 'Trailer wiring, 7-pin' });
       expect((await apiGet<{ upgrade: { installState: string } }>(s, `/api/builds/${buildId}/upgrades/${brake.id}`)).upgrade.installState).toBe('queued');
       await visit(s, `/builds/${buildId}/backlog?upgrade=${wiring.id}`);
-      await drawer(page).getByRole('group', { name: 'Install state' }).getByRole('button', { name: 'Installed' }).click();
-      await message(page, 'Marked installed.');
+      await outcomeOf(page, () => drawer(page).getByRole('group', { name: 'Install state' }).getByRole('button', { name: 'Installed' }).click(), { request: { method: 'PATCH', path: `/upgrades/${wiring.id}` }, toast: 'Marked installed.' });
       expect((await apiGet<{ upgrade: { installState: string } }>(s, `/api/builds/${buildId}/upgrades/${wiring.id}`)).upgrade.installState).toBe('installed');
 
       // Receive a part from the parts screen.
@@ -247,8 +238,7 @@ describe('backlog in the browser', () => {
       const button = line.getByRole('button', { name: /Mark received/ });
       const box = await button.boundingBox();
       expect(box!.height).toBeGreaterThanOrEqual(48);
-      await button.click();
-      await message(page, 'HT-LFT-8400 received.');
+      await outcomeOf(page, () => button.click(), { request: { method: 'PATCH', path: /\/parts\/\d+$/ }, toast: 'HT-LFT-8400 received.' });
       await page.locator('[data-test="group-received"] [data-test="part-HT-LFT-8400"]').waitFor();
       const { parts } = await apiGet<{ parts: { partNumber: string; state: string; unitCostCents?: number }[] }>(s, `/api/builds/${buildId}/parts?pageSize=500`);
       expect(parts.find((p) => p.partNumber === 'HT-LFT-8400')!.state).toBe('received');
@@ -260,7 +250,7 @@ describe('backlog in the browser', () => {
   }, JOURNEY_TIMEOUT);
 
   it('owner sees spend against budget on the builds list', async () => {
-    const s = await openBrowser({ server });
+    const s = await openBrowser({ server: app!.server });
     const { page } = s;
     try {
       await signIn(s, 'owner');
@@ -293,24 +283,22 @@ describe('backlog in the browser', () => {
       await page.getByRole('button', { name: 'Save settings' }).click();
       await page.getByText('Tick “use this VIN anyway”').waitFor();
       await page.locator('[data-test="vin-override"]').click();
-      await page.getByRole('button', { name: 'Save settings' }).click();
-      await message(page, 'Settings saved.');
+      await outcomeOf(page, () => page.getByRole('button', { name: 'Save settings' }).click(), { request: { method: 'PATCH', path: `/api/builds/${buildId}` }, toast: 'Settings saved.' });
       const { build } = await apiGet<{ build: { vin: string; vinCheckOverridden: boolean; version: number; budgetCents: number } }>(s, `/api/builds/${buildId}`);
       expect(build.vin).toBe('1M8GDM9A1KP042788');
       expect(build.vinCheckOverridden).toBe(true);
 
       // Someone else saves while the owner edits: the owner re-applies only their own change.
       await page.getByLabel('Mileage').fill('23456');
-      const other = await s.page.request.patch(`${server.url}/api/builds/${buildId}`, {
+      const other = await s.page.request.patch(`${s.server.url}/api/builds/${buildId}`, {
         headers: { 'X-Requested-With': 'Bayslate' },
         data: { summary: 'Changed in another tab', version: build.version },
       });
       expect(other.status()).toBe(200);
-      await page.getByRole('button', { name: 'Save settings' }).click();
+      await outcomeOf(page, () => page.getByRole('button', { name: 'Save settings' }).click(), { request: { method: 'PATCH', path: `/api/builds/${buildId}`, status: 409 } });
       await page.getByText('Someone else changed this first').waitFor();
       await audit(s, 'stale dialog');
-      await page.getByRole('button', { name: 'Apply my change again' }).click();
-      await message(page, 'Settings saved.');
+      await outcomeOf(page, () => page.getByRole('button', { name: 'Apply my change again' }).click(), { request: { method: 'PATCH', path: `/api/builds/${buildId}` }, toast: 'Settings saved.' });
       const after = (await apiGet<{ build: { mileage: number; summary: string } }>(s, `/api/builds/${buildId}`)).build;
       expect(after.mileage).toBe(23456);
       expect(after.summary).toBe('Changed in another tab');
@@ -320,7 +308,7 @@ describe('backlog in the browser', () => {
   }, JOURNEY_TIMEOUT);
 
   it('marketing sees retail prices but no shop cost', async () => {
-    const s = await openBrowser({ server });
+    const s = await openBrowser({ server: app!.server });
     const { page } = s;
     try {
       await signIn(s, 'marketing');
@@ -341,8 +329,7 @@ describe('backlog in the browser', () => {
       // Marketing keeps product pages current, and nothing else on the part.
       await line.getByRole('button', { name: /Change product page/ }).click();
       await line.getByLabel('Product page for HT-LMP-4410-L').fill('https://shop.cedar-ridge.test/parts/ht-lmp-4410-l');
-      await line.getByRole('button', { name: 'Save link' }).click();
-      await message(page, 'Product page saved.');
+      await outcomeOf(page, () => line.getByRole('button', { name: 'Save link' }).click(), { request: { method: 'PATCH', path: /\/parts\/\d+$/ }, toast: 'Product page saved.' });
       const { parts: lampParts } = await apiGet<{ parts: { partNumber: string; productUrl: string | null; unitCostCents?: number }[] }>(s, `/api/builds/${buildId}/parts?upgradeId=${lamps.id}`);
       const left = lampParts.find((p) => p.partNumber === 'HT-LMP-4410-L')!;
       expect(left.productUrl).toBe('https://shop.cedar-ridge.test/parts/ht-lmp-4410-l');

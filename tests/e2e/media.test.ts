@@ -1,34 +1,39 @@
 // Media in the browser: an installer on a phone uploads photos to an upgrade with a progress bar
 // per file and sees them; the producer browses the demo photos, previews, edits and deletes;
 // marketing reads without an upload button. axe-core audits each screen and dialog.
-import { describe, it, expect, beforeAll, afterAll } from 'vitest';
+import { describe, it, expect, beforeAll, afterAll, beforeEach, afterEach } from 'vitest';
 import { mkdtempSync, rmSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import sharp from 'sharp';
-import { openBrowser, audit, visit, startAppServer, type AppServer, type BrowserSession } from '../helpers/browser';
+import { openBrowser, audit, visit, type BrowserSession } from '../helpers/browser';
 import { DEMO_EMAIL, DEMO_PASSWORD, type DemoRole } from '../helpers/api';
-import { Build } from '../../server/models';
+import { freshApp, ternId as ternIdIn, type FreshApp } from '../helpers/fresh-db';
+import { outcomeOf } from '../helpers/outcome';
 
-let server: AppServer;
 let dir: string;
 beforeAll(async () => {
-  server = await startAppServer();
   dir = mkdtempSync(path.join(os.tmpdir(), 'bayslate-e2e-media-'));
 });
 afterAll(async () => {
-  await server?.stop();
   rmSync(dir, { recursive: true, force: true });
+});
+// Each test runs on a database of its own, cloned from the template as it starts.
+let app: FreshApp | undefined;
+beforeEach(async () => {
+  app = await freshApp();
+});
+afterEach(async () => {
+  await app?.stop();
+  app = undefined;
 });
 
 async function apiGet<T>(s: BrowserSession, p: string): Promise<T> {
-  const res = await s.page.request.get(server.url + p, { headers: { 'X-Requested-With': 'Bayslate', Accept: 'application/json' } });
+  const res = await s.page.request.get(s.server.url + p, { headers: { 'X-Requested-With': 'Bayslate', Accept: 'application/json' } });
   expect(res.status(), `${p} answered ${res.status()}`).toBe(200);
   return (await res.json()) as T;
 }
-async function ternId() {
-  return (await Build.findOne({ where: { slug: 'project-tern' } }))!.id;
-}
+const ternId = () => ternIdIn(app!.db);
 /** Signs in through the form from a deep link, as a person following a link would. */
 async function signInTo(s: BrowserSession, role: DemoRole, next: string) {
   await visit(s, `/sign-in?next=${encodeURIComponent(next)}`);
@@ -56,7 +61,7 @@ async function imagesLoaded(s: BrowserSession, selector: string) {
 
 describe('media in the browser', () => {
   it('an installer at 390 px uploads photos to an upgrade with progress and sees them', async () => {
-    const s = await openBrowser({ server, phone: true });
+    const s = await openBrowser({ server: app!.server, phone: true });
     try {
       const buildId = await ternId();
       await signInTo(s, 'installer', `/builds/${buildId}/media`);
@@ -117,7 +122,7 @@ describe('media in the browser', () => {
   });
 
   it('the producer sees the demo photos, previews one, edits its caption and deletes an upload', async () => {
-    const s = await openBrowser({ server });
+    const s = await openBrowser({ server: app!.server });
     try {
       const buildId = await ternId();
       await signInTo(s, 'producer', `/builds/${buildId}/media`);
@@ -144,8 +149,7 @@ describe('media in the browser', () => {
       await imagesLoaded(s, '[data-test="media-preview"] img');
       await audit(s, 'media preview');
       await dialog.getByLabel('Caption').fill('Bare roof, plugs still in, before the rails');
-      await dialog.getByRole('button', { name: 'Save' }).click();
-      await s.page.locator('.n-message', { hasText: 'Saved.' }).first().waitFor();
+      await outcomeOf(s.page, () => dialog.getByRole('button', { name: 'Save' }).click(), { request: { method: 'PATCH', path: /\/media\/\d+$/ }, toast: 'Saved.' });
       await s.page.keyboard.press('Escape');
       await s.page.getByText('Bare roof, plugs still in, before the rails').waitFor();
 
@@ -157,8 +161,7 @@ describe('media in the browser', () => {
       await s.page.getByRole('button', { name: 'Keep it' }).click();
       await dialog.waitFor();
       await dialog.getByRole('button', { name: 'Delete' }).click();
-      await s.page.locator('.n-dialog').getByRole('button', { name: 'Delete' }).click();
-      await s.page.locator('.n-message', { hasText: 'Deleted.' }).first().waitFor();
+      await outcomeOf(s.page, () => s.page.locator('.n-dialog').getByRole('button', { name: 'Delete' }).click(), { request: { method: 'DELETE', path: /\/media\/\d+$/ }, toast: 'Deleted.' });
       await s.page.locator('[data-test="media-grid"]').getByText('Bare roof, plugs still in, before the rails').waitFor({ state: 'detached' });
     } finally {
       await s.close();
@@ -166,7 +169,7 @@ describe('media in the browser', () => {
   });
 
   it('marketing browses the library but has no upload button', async () => {
-    const s = await openBrowser({ server });
+    const s = await openBrowser({ server: app!.server });
     try {
       const buildId = await ternId();
       await signInTo(s, 'marketing', `/builds/${buildId}/media`);

@@ -1,21 +1,24 @@
 // The producer plans the series in the browser: proposes, accepts, moves an upgrade by keyboard and sees the violation at once.
-import { describe, it, expect, beforeAll, afterAll } from 'vitest';
-import { openBrowser, signIn, audit, visit, startAppServer, type AppServer } from '../helpers/browser';
-import { Build, Episode } from '../../server/models';
+import { describe, it, expect, beforeEach, afterEach } from 'vitest';
+import { openBrowser, signIn, audit, visit } from '../helpers/browser';
+import { freshApp, ternId, type FreshApp } from '../helpers/fresh-db';
+import { outcomeOf } from '../helpers/outcome';
 
-let server: AppServer;
+// Each test runs on a database of its own, cloned from the template as it starts.
+let app: FreshApp | undefined;
 let buildId: number;
-beforeAll(async () => {
-  server = await startAppServer();
-  buildId = (await Build.findOne({ where: { slug: 'project-tern' } }))!.id;
+beforeEach(async () => {
+  app = await freshApp();
+  buildId = await ternId(app.db);
 });
-afterAll(async () => {
-  await server?.stop();
+afterEach(async () => {
+  await app?.stop();
+  app = undefined;
 });
 
 describe('episode planner in the browser', () => {
   it('producer proposes a plan, accepts it, moves an upgrade with the keyboard and sees the violation inline', { timeout: 150_000 }, async () => {
-    const s = await openBrowser({ server });
+    const s = await openBrowser({ server: app!.server });
     const { page } = s;
     try {
       await signIn(s, 'producer');
@@ -45,13 +48,13 @@ describe('episode planner in the browser', () => {
       await page.getByRole('button', { name: 'Discard changes' }).click();
       await page.getByText('Not in an episode (2)').waitFor();
 
-      await page.getByRole('button', { name: 'Propose a plan' }).click();
+      await outcomeOf(page, () => page.getByRole('button', { name: 'Propose a plan' }).click(), { request: { method: 'POST', path: '/plan/proposal' } });
       const proposal = page.getByRole('region', { name: 'Proposed plan' });
       await proposal.waitFor();
       // The two unplanned demo upgrades show up as new in the proposal.
       await proposal.getByText('Heated front seats — new in the plan').waitFor();
       await audit(s, 'proposal beside the current plan');
-      await proposal.getByRole('button', { name: 'Accept proposal' }).click();
+      await outcomeOf(page, () => proposal.getByRole('button', { name: 'Accept proposal' }).click(), { request: { method: 'PUT', path: `/api/builds/${buildId}/plan` } });
       await proposal.waitFor({ state: 'detached' });
       await page.getByText(/Proposal applied/).waitFor();
       await page.getByRole('heading', { name: 'No problems in this plan' }).waitFor();
@@ -80,7 +83,7 @@ describe('episode planner in the browser', () => {
   });
 
   it('producer edits an episode, and a stale save offers to reload', { timeout: 120_000 }, async () => {
-    const s = await openBrowser({ server });
+    const s = await openBrowser({ server: app!.server });
     const { page } = s;
     try {
       await signIn(s, 'producer');
@@ -96,15 +99,15 @@ describe('episode planner in the browser', () => {
       await form.getByText('Release date must be on or after the shoot date').waitFor();
       await form.getByLabel('Release date').fill('2027-03-17');
       // Someone else saves first.
-      const ep = (await Episode.findOne({ where: { buildId, number: 8 } }))!;
-      ep.title = 'Renamed elsewhere';
-      await ep.save();
-      await form.getByRole('button', { name: 'Save episode' }).click();
+      const [ep] = await app!.db.sql<{ id: number }>(`UPDATE episodes SET title = 'Renamed elsewhere', version = version + 1, updated_at = now() WHERE build_id = $1 AND number = 8 RETURNING id`, [buildId]);
+      expect(ep, 'episode 8 of the demo build').toBeTruthy();
+      await outcomeOf(page, () => form.getByRole('button', { name: 'Save episode' }).click(), { request: { method: 'PATCH', path: `/episodes/${ep.id}`, status: 409 } });
       await page.getByText('Someone else changed this first').waitFor();
       await audit(s, 'stale episode dialog');
       await page.getByRole('button', { name: 'Reload' }).click();
       await page.getByRole('heading', { name: /^Episode 8: Renamed elsewhere/ }).waitFor();
-      expect((await Episode.findByPk(ep.id))!.shootDate).not.toBe('2027-03-10');
+      const [after] = await app!.db.sql<{ shoot: string | null }>(`SELECT to_char(shoot_date, 'YYYY-MM-DD') AS shoot FROM episodes WHERE id = $1`, [ep.id]);
+      expect(after.shoot).not.toBe('2027-03-10');
     } finally {
       await s.close();
     }

@@ -1,14 +1,18 @@
 // Each demo role signs in through the form, sees its own navigation, and signs out.
-import { describe, it, expect, beforeAll, afterAll } from 'vitest';
-import { openBrowser, signIn, audit, type BrowserSession, startAppServer, type AppServer } from '../helpers/browser';
+import { describe, it, expect, beforeEach, afterEach } from 'vitest';
+import { openBrowser, signIn, audit, type BrowserSession } from '../helpers/browser';
+import { freshApp, type FreshApp } from '../helpers/fresh-db';
+import { outcomeOf } from '../helpers/outcome';
 import type { DemoRole } from '../helpers/api';
 
-let server: AppServer;
-beforeAll(async () => {
-  server = await startAppServer();
+// Each test runs on a database of its own, cloned from the template as it starts.
+let app: FreshApp | undefined;
+beforeEach(async () => {
+  app = await freshApp();
 });
-afterAll(async () => {
-  await server?.stop();
+afterEach(async () => {
+  await app?.stop();
+  app = undefined;
 });
 
 const expectations: Record<DemoRole, { sees: string[]; hidden: string[] }> = {
@@ -21,7 +25,7 @@ const expectations: Record<DemoRole, { sees: string[]; hidden: string[] }> = {
 describe('sign-in in the browser', () => {
   for (const role of Object.keys(expectations) as DemoRole[]) {
     it(`${role} signs in, sees their navigation and signs out`, async () => {
-      const s: BrowserSession = await openBrowser({ server });
+      const s: BrowserSession = await openBrowser({ server: app!.server });
       try {
         await signIn(s, role);
         const nav = s.page.getByRole('navigation', { name: 'Main navigation' });
@@ -37,7 +41,7 @@ describe('sign-in in the browser', () => {
         await s.page.waitForURL(/\/sign-in/);
         await s.page.getByRole('heading', { name: 'Sign in' }).waitFor();
         // Signed out for real: a signed-in page sends the person back to sign-in.
-        await s.page.goto(`${server.url}/builds`);
+        await s.page.goto(`${s.server.url}/builds`);
         await s.page.waitForURL(/\/sign-in/);
       } finally {
         await s.close();
@@ -46,7 +50,7 @@ describe('sign-in in the browser', () => {
   }
 
   it('the owner adds a person with roles, then deactivates them after confirming', async () => {
-    const s = await openBrowser({ server });
+    const s = await openBrowser({ server: app!.server });
     try {
       await signIn(s, 'owner');
       await s.page.getByRole('link', { name: 'Users & roles' }).click();
@@ -59,7 +63,7 @@ describe('sign-in in the browser', () => {
       await dialog.getByLabel('Name').fill('Pia Sandoval');
       await dialog.getByLabel('E-mail').fill('pia@cedar-ridge.test');
       await dialog.getByRole('checkbox', { name: 'installer' }).click();
-      await dialog.getByRole('button', { name: 'Add', exact: true }).click();
+      await outcomeOf(s.page, () => dialog.getByRole('button', { name: 'Add', exact: true }).click(), { request: { method: 'POST', path: '/api/users' } });
       await dialog.getByText('Temporary password').waitFor();
       await dialog.getByRole('button', { name: 'Close' }).click();
       const row = s.page.getByRole('row').filter({ hasText: 'pia@cedar-ridge.test' });
@@ -67,7 +71,7 @@ describe('sign-in in the browser', () => {
       await row.getByRole('button', { name: 'Deactivate' }).click();
       await s.page.getByRole('dialog', { name: 'Deactivate Pia Sandoval?' }).waitFor();
       await audit(s, 'deactivate confirmation');
-      await s.page.getByRole('button', { name: 'Deactivate', exact: true }).last().click();
+      await outcomeOf(s.page, () => s.page.getByRole('button', { name: 'Deactivate', exact: true }).last().click(), { request: { method: 'PATCH', path: /^\/api\/users\/\d+$/ } });
       await row.getByText('Deactivated').waitFor();
       await s.page.getByRole('link', { name: 'My account' }).click();
       await s.page.getByRole('heading', { name: 'Change password' }).waitFor();
@@ -78,12 +82,12 @@ describe('sign-in in the browser', () => {
   });
 
   it('a wrong password shows a message and stays on sign-in', async () => {
-    const s = await openBrowser({ server });
+    const s = await openBrowser({ server: app!.server });
     try {
-      await s.page.goto(`${server.url}/sign-in`);
+      await s.page.goto(`${s.server.url}/sign-in`);
       await s.page.getByLabel('E-mail').fill('owner@cedar-ridge.test');
       await s.page.getByLabel('Password', { exact: true }).fill('wrong-password');
-      await s.page.getByRole('button', { name: 'Sign in' }).click();
+      await outcomeOf(s.page, () => s.page.getByRole('button', { name: 'Sign in' }).click(), { request: { method: 'POST', path: '/api/auth/login', status: 401 } });
       await s.page.getByRole('alert').filter({ hasText: 'do not match' }).waitFor();
       expect(new URL(s.page.url()).pathname).toBe('/sign-in');
       await audit(s);
@@ -93,7 +97,7 @@ describe('sign-in in the browser', () => {
   });
 
   it('works at phone width: the menu opens and offers sign-out', async () => {
-    const s = await openBrowser({ server, phone: true });
+    const s = await openBrowser({ server: app!.server, phone: true });
     try {
       await signIn(s, 'installer');
       await s.page.getByRole('button', { name: 'Open the menu' }).click();

@@ -2,17 +2,20 @@
 // confirms it by the link in the development inbox (/dev/mail), marketing accepts it into the
 // backlog, the producer plans it into an episode, marketing publishes that episode, and the
 // viewer's "it is live" mail arrives. The server runs its mail worker, as `npm start` does.
-import { describe, it, expect, beforeAll, afterAll } from 'vitest';
-import { openBrowser, signIn, audit, visit, startAppServer, type AppServer, type BrowserSession } from '../helpers/browser';
+import { describe, it, expect, beforeEach, afterEach } from 'vitest';
+import { openBrowser, signIn, audit, visit, type BrowserSession } from '../helpers/browser';
 import { waitForMails, uniqueAddress } from '../helpers/mailbox';
-import { Build, Episode, Upgrade } from '../../server/models';
+import { freshApp, ternId, type FreshApp } from '../helpers/fresh-db';
+import { outcomeOf } from '../helpers/outcome';
 
-let server: AppServer;
-beforeAll(async () => {
-  server = await startAppServer({ MAIL_WORKER: '1', MAIL_POLL_MS: '150' });
+// The story runs on a database of its own, cloned from the template as it starts.
+let app: FreshApp | undefined;
+beforeEach(async () => {
+  app = await freshApp({ MAIL_WORKER: '1', MAIL_POLL_MS: '150' });
 });
-afterAll(async () => {
-  await server?.stop();
+afterEach(async () => {
+  await app?.stop();
+  app = undefined;
 });
 
 /** A call to our API from inside the signed-in page (its cookies, our cross-site header). */
@@ -28,15 +31,18 @@ async function apiFromPage<T>(s: BrowserSession, method: string, url: string, bo
 
 describe('viewer story', () => {
   it('a viewer request becomes an upgrade, goes into an episode, and the viewer hears when it is live', async () => {
-    const tern = (await Build.findOne({ where: { slug: 'project-tern' } }))!;
-    const episode = (await Episode.findOne({ where: { buildId: tern.id, number: 10 } }))!;
+    const db = app!.db;
+    const tern = { id: await ternId(db) };
+    const episodeRow = async () =>
+      (await db.sql<{ id: number; title: string; state: string; videoUrl: string | null }>(`SELECT id, title, state, video_url AS "videoUrl" FROM episodes WHERE build_id = $1 AND number = 10`, [tern.id]))[0];
+    const episode = await episodeRow();
     expect(episode.state).not.toBe('live');
     const email = uniqueAddress('story');
     const wish = `Illuminated cargo sill ${Date.now().toString(36)}`;
 
     // 1. The viewer, not signed in, asks on the public page.
     // The viewer is on a phone.
-    const viewer = await openBrowser({ server, phone: true });
+    const viewer = await openBrowser({ server: app!.server, phone: true });
     try {
       await visit(viewer, '/b/project-tern');
       await viewer.page.getByRole('heading', { name: 'Project Tern' }).waitFor();
@@ -51,7 +57,7 @@ describe('viewer story', () => {
       await viewer.page.getByRole('button', { name: 'Send my request' }).click();
       await viewer.page.getByText('E-mail must be an e-mail address').waitFor();
       await emailBox.fill(email);
-      await viewer.page.getByRole('button', { name: 'Send my request' }).click();
+      await outcomeOf(viewer.page, () => viewer.page.getByRole('button', { name: 'Send my request' }).click(), { request: { method: 'POST', path: '/api/public/builds/project-tern/requests' } });
       await viewer.page.getByRole('status').filter({ hasText: 'confirmation mail is on its way' }).waitFor();
       await audit(viewer, 'public page after a request');
 
@@ -75,7 +81,7 @@ describe('viewer story', () => {
     }
 
     // 3. Marketing accepts it into the backlog as a new upgrade.
-    const marketing = await openBrowser({ server });
+    const marketing = await openBrowser({ server: app!.server });
     try {
       await signIn(marketing, 'marketing');
       await visit(marketing, `/builds/${tern.id}/viewer-requests`);
@@ -87,7 +93,7 @@ describe('viewer story', () => {
       await marketing.page.locator('[aria-labelledby="vr-new-area-l"]').click();
       await marketing.page.locator('.n-base-select-option:visible', { hasText: 'Rear' }).first().click();
       await audit(marketing, 'accept dialog');
-      await marketing.page.getByRole('button', { name: 'Accept into the backlog' }).click();
+      await outcomeOf(marketing.page, () => marketing.page.getByRole('button', { name: 'Accept into the backlog' }).click(), { request: { method: 'PATCH', path: /\/viewer-requests\/\d+$/ } });
       await marketing.page.getByText('Accepted into the backlog as Cargo sill lamp.').waitFor();
       await marketing.page.locator('.filters').getByText('Accepted', { exact: true }).click();
       await marketing.page.getByText('Upgrade: Cargo sill lamp').waitFor();
@@ -95,11 +101,14 @@ describe('viewer story', () => {
     } finally {
       await marketing.close();
     }
-    const upgrade = (await Upgrade.findOne({ where: { buildId: tern.id, title: 'Cargo sill lamp' } }))!;
+    const [upgrade] = await db.sql<{ id: number; area: string; episodeId: number | null; version: number }>(
+      `SELECT id, area, episode_id AS "episodeId", version FROM upgrades WHERE build_id = $1 AND title = 'Cargo sill lamp'`,
+      [tern.id],
+    );
     expect(upgrade).toMatchObject({ area: 'rear', episodeId: null });
 
     // 4. The producer plans it into an episode (through the API, signed in in the browser).
-    const producer = await openBrowser({ server });
+    const producer = await openBrowser({ server: app!.server });
     try {
       await signIn(producer, 'producer');
       const r = await apiFromPage<{ upgrade: { episodeId: number } }>(producer, 'PATCH', `/api/builds/${tern.id}/upgrades/${upgrade.id}`, { episodeId: episode.id, version: upgrade.version });
@@ -110,7 +119,7 @@ describe('viewer story', () => {
     }
 
     // 5. Marketing publishes that episode on the Publish screen.
-    const publisher = await openBrowser({ server });
+    const publisher = await openBrowser({ server: app!.server });
     try {
       await signIn(publisher, 'marketing');
       await visit(publisher, `/builds/${tern.id}/publish?episode=${episode.id}`);
@@ -128,14 +137,13 @@ describe('viewer story', () => {
       await audit(publisher, 'publish screen with chapters');
       await publisher.page.getByLabel('Video address').fill('https://video.example/tern-ep10');
       await publisher.page.getByRole('button', { name: 'Publish episode' }).click();
-      await publisher.page.getByRole('dialog').getByRole('button', { name: 'Publish' }).click();
+      await outcomeOf(publisher.page, () => publisher.page.getByRole('dialog').getByRole('button', { name: 'Publish' }).click(), { request: { method: 'POST', path: `/episodes/${episode.id}/publish` } });
       await publisher.page.getByText('Episode 10 is live.').waitFor();
       await audit(publisher, 'episode published');
     } finally {
       await publisher.close();
     }
-    await episode.reload();
-    expect(episode).toMatchObject({ state: 'live', videoUrl: 'https://video.example/tern-ep10' });
+    expect(await episodeRow()).toMatchObject({ state: 'live', videoUrl: 'https://video.example/tern-ep10' });
 
     // 6. The viewer's "it is live" mail arrives, with an unsubscribe link.
     const mails = await waitForMails(email, 2, 20_000);

@@ -1,7 +1,7 @@
 // The HTTP edge of CSV import and export: reading a text/csv body and answering results.
 import type { Request, Response } from 'express';
-import { AppError } from '../../errors';
-import type { ImportResult } from './common';
+import { AppError } from '../errors';
+import type { ImportResult } from '../services/csv/common';
 
 export function csvBody(req: Request): string {
   if (typeof req.body !== 'string') throw new AppError(415, 'unsupported_type', 'Send the file as CSV (Content-Type: text/csv).');
