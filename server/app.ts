@@ -10,6 +10,10 @@ import { errorHandler, notFoundHandler } from './middleware/errors';
 import { mountRoutes } from './routes';
 import { devMailRouter } from './routes/devMail';
 import { installMail } from './mail';
+import { ownHostOnly } from './middleware/host';
+import compression from 'compression';
+import { requestLogger } from './logger';
+import { noStoreByDefault, noStoreWhenSignedIn } from './middleware/caching';
 
 let sessionPool: pg.Pool | null = null;
 
@@ -23,7 +27,12 @@ export function createApp(): Express {
   const c = config();
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', c.publicUrl.startsWith('https://') ? 1 : false);
+  app.set('trust proxy', c.trustProxy);
+  // A JSON log line with a request id for every request (X-Request-Id), then the host check.
+  app.use(requestLogger());
+  app.use(ownHostOnly);
+  // JSON and static files go out compressed when the client accepts it (1 kB and larger).
+  app.use(compression());
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -41,16 +50,11 @@ export function createApp(): Express {
       crossOriginEmbedderPolicy: false,
     }),
   );
-  if (c.LOG_REQUESTS) {
-    app.use((req, res, next) => {
-      const t0 = Date.now();
-      res.on('finish', () => console.log(`${req.method} ${req.originalUrl} ${res.statusCode} ${Date.now() - t0}ms`));
-      next();
-    });
-  }
+  app.use('/api', noStoreByDefault);
   app.use('/api', express.json({ limit: '2mb', strict: true }));
   app.use('/api', express.text({ type: 'text/csv', limit: '10mb' }));
   installAuth(app, getSessionPool());
+  app.use('/api', noStoreWhenSignedIn);
   app.use('/api', sameOriginOnly);
   mountRoutes(app);
   app.use('/api', notFoundHandler);

@@ -5,6 +5,7 @@ import { migrate, seedDemo } from './db/migrate';
 import { sequelize } from './models';
 import { startLocalServices, stopLocalServices } from './localServices';
 import { installMail, startMailWorker, stopMailWorker } from './mail';
+import { startMediaSweeper, stopMediaSweeper } from './services/mediaSweep';
 
 async function main() {
   const c = config();
@@ -16,6 +17,8 @@ async function main() {
   const app = createApp();
   // Mail goes out from the queue, outside any request (a mail outage never fails a request).
   if (c.MAIL_WORKER) startMailWorker();
+  // Leftover uploads (objects no row names, temp files of broken uploads) go on a schedule.
+  startMediaSweeper();
   const server = app.listen(c.PORT, c.HOST, () => {
     const addr = server.address();
     const port = typeof addr === 'object' && addr ? addr.port : c.PORT;
@@ -24,6 +27,7 @@ async function main() {
   const stop = async () => {
     server.close();
     await stopMailWorker();
+    await stopMediaSweeper();
     await stopLocalServices();
     await sequelize.close();
     process.exit(0);

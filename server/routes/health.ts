@@ -32,6 +32,10 @@ export function healthRouter() {
     const ok = db && Object.values(extra).every(Boolean);
     res.status(db ? 200 : 503).json({ ok, db, ...extra });
   });
+  // Liveness for a load balancer: the process answers; no I/O at all.
+  router.get('/live', (_req, res) => {
+    res.json({ ok: true });
+  });
   // The sign-in page lists the demo accounts, in demo mode only.
   router.get('/demo', (_req, res) => {
     const demo = config().BAYSLATE_DEMO;
