@@ -13,6 +13,10 @@ import { installMail } from './mail';
 import { sharedPool } from './db/pool';
 import { healthProbesRouter } from './routes/health';
 import { catchUpOverviewNotices } from './services/overviewCache';
+import { ownHostOnly } from './middleware/host';
+import compression from 'compression';
+import { requestLogger } from './logger';
+import { noStoreByDefault, noStoreWhenSignedIn } from './middleware/caching';
 
 /** The pool the session store uses (also used by the bench's bare route); it has an 'error' listener (db/pool.ts). */
 export function getSessionPool(): pg.Pool {
@@ -23,7 +27,12 @@ export function createApp(): Express {
   const c = config();
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', c.publicUrl.startsWith('https://') ? 1 : false);
+  app.set('trust proxy', c.trustProxy);
+  // A JSON log line with a request id for every request (X-Request-Id), then the host check.
+  app.use(requestLogger());
+  app.use(ownHostOnly);
+  // JSON and static files go out compressed when the client accepts it (1 kB and larger).
+  app.use(compression());
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -41,18 +50,13 @@ export function createApp(): Express {
       crossOriginEmbedderPolicy: false,
     }),
   );
-  if (c.LOG_REQUESTS) {
-    app.use((req, res, next) => {
-      const t0 = Date.now();
-      res.on('finish', () => console.log(`${req.method} ${req.originalUrl} ${res.statusCode} ${Date.now() - t0}ms`));
-      next();
-    });
-  }
+  app.use('/api', noStoreByDefault);
   app.use('/api', express.json({ limit: '2mb', strict: true }));
   app.use('/api', express.text({ type: 'text/csv', limit: '10mb' }));
   // Load balancers' probes answer before any session lookup (deploy): /live does no I/O at all.
   app.use('/api/health', healthProbesRouter());
   installAuth(app, getSessionPool());
+  app.use('/api', noStoreWhenSignedIn);
   app.use('/api', sameOriginOnly);
   // Several instances (deploy): before answering from its overview cache, an instance reads the
   // change notices PostgreSQL already has for it, so a write made through another instance shows at once.

@@ -62,6 +62,26 @@ const schema = z.object({
   // how long each readiness check may take.
   SHUTDOWN_GRACE_MS: z.coerce.number().int().min(0).default(10_000),
   READY_CHECK_TIMEOUT_MS: z.coerce.number().int().min(50).default(1000),
+  // Hardening (issue 10). Host names besides PUBLIC_URL's that requests may name (comma list, host[:port]).
+  ALLOWED_HOSTS: z.string().default(''),
+  // How many proxies in front of the server to believe about the viewer's address: 0/false (none),
+  // a number of hops, or a comma list of proxy addresses/subnets ('loopback', '10.0.0.0/8'). Unset: one
+  // hop when PUBLIC_URL is https, none otherwise.
+  TRUST_PROXY: z.string().optional(),
+  // The secret that keys viewers' address hashes and unsubscribe links (HKDF, a label per purpose).
+  // Required in production; development and tests derive a fixed stand-in.
+  VIEWER_KEY_SECRET: z.string().min(32, 'VIEWER_KEY_SECRET must be at least 32 characters').optional(),
+  // Orphaned uploads: how often the sweeper runs and how old an unreferenced object or temp file must be.
+  MEDIA_SWEEP_MINUTES: z.coerce.number().int().min(0).default(60),
+  MEDIA_SWEEP_GRACE_MINUTES: z.coerce.number().int().min(1).default(24 * 60),
+  // The public build page's answer: seconds a browser or CDN may reuse it, and serve it stale while refreshing.
+  PUBLIC_MAX_AGE_SECONDS: z.coerce.number().int().min(0).default(30),
+  PUBLIC_STALE_SECONDS: z.coerce.number().int().min(0).default(60),
+  // How long a claimed mail stays with one worker before another may take it (a crashed worker).
+  MAIL_CLAIM_SECONDS: z.coerce.number().int().min(5).default(120),
+  // Log level of the JSON logs (pino): fatal, error, warn, info, debug, trace or silent. Unset: info
+  // (silent in tests unless LOG_REQUESTS or LOG_TEST_ERRORS is on).
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).optional(),
 });
 
 export type Config = ReturnType<typeof loadConfig>;
@@ -78,7 +98,25 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env) {
     isProduction: c.NODE_ENV === 'production',
     isTest: c.NODE_ENV === 'test',
     publicUrl: (c.PUBLIC_URL ?? `http://${c.HOST}:${c.PORT}`).replace(/\/$/, ''),
+    trustProxy: trustProxySetting(c.TRUST_PROXY, (c.PUBLIC_URL ?? '').startsWith('https://')),
+    viewerKeySecret: viewerKeySecret(c),
   };
+}
+
+/** Express's 'trust proxy' value from TRUST_PROXY. */
+function trustProxySetting(v: string | undefined, https: boolean): boolean | number | string {
+  if (v === undefined || v === '') return https ? 1 : false;
+  if (['0', 'false', 'no'].includes(v)) return false;
+  if (['true', 'yes'].includes(v)) return true;
+  if (/^\d+$/.test(v)) return Number(v);
+  return v;
+}
+
+function viewerKeySecret(c: z.infer<typeof schema>): string {
+  if (c.VIEWER_KEY_SECRET) return c.VIEWER_KEY_SECRET;
+  if (c.NODE_ENV === 'production') throw new Error('Bayslate configuration is not valid:\n  VIEWER_KEY_SECRET: is required in production (32 or more random characters, e.g. `openssl rand -base64 48`)');
+  // Development and tests: a fixed stand-in (npm start writes a real one under .data).
+  return 'bayslate-development-viewer-key-not-for-production';
 }
 
 let current: Config | null = null;

@@ -11,6 +11,7 @@ import { checkNoDemoAccounts, checkSettings, demoAccountsExist, StartupRefused }
 import { markDraining } from './routes/health';
 import { startUserNotices, stopUserNotices } from './services/userNotices';
 import { stopOverviewCache } from './services/overviewCache';
+import { startMediaSweeper, stopMediaSweeper } from './services/mediaSweep';
 
 async function main() {
   const c = config();
@@ -28,6 +29,8 @@ async function main() {
   const app = createApp();
   // Mail goes out from the queue, outside any request (a mail outage never fails a request).
   if (c.MAIL_WORKER) startMailWorker();
+  // Leftover uploads (objects no row names, temp files of broken uploads) go on a schedule.
+  startMediaSweeper();
   const server = app.listen(c.PORT, c.HOST, () => {
     const addr = server.address();
     const port = typeof addr === 'object' && addr ? addr.port : c.PORT;
@@ -47,7 +50,7 @@ async function main() {
     const grace = new Promise<void>((resolve) => setTimeout(resolve, c.SHUTDOWN_GRACE_MS).unref());
     await Promise.all([Promise.race([closed, grace]), stopMailWorker()]);
     server.closeAllConnections();
-    await Promise.allSettled([stopUserNotices(), stopOverviewCache(), closeSharedPool(), sequelize.close()]);
+    await Promise.allSettled([stopMediaSweeper(), stopUserNotices(), stopOverviewCache(), closeSharedPool(), sequelize.close()]);
     console.log('[bayslate] stopped');
     process.exit(0);
   };

@@ -14,6 +14,12 @@ export async function devEnvironment(root, { startDb = true } = {}) {
     if (!existsSync(f)) writeFileSync(f, randomBytes(32).toString('hex'), { mode: 0o600 });
     env.SESSION_SECRET = readFileSync(f, 'utf8').trim();
   }
+  if (!env.VIEWER_KEY_SECRET) {
+    // The key of viewers' address hashes and unsubscribe links, kept like the session secret.
+    const f = path.join(data, 'viewer-key-secret');
+    if (!existsSync(f)) writeFileSync(f, randomBytes(32).toString('hex'), { mode: 0o600 });
+    env.VIEWER_KEY_SECRET = readFileSync(f, 'utf8').trim();
+  }
   let cluster = null;
   if (!env.DATABASE_URL && startDb) {
     // Reuses a cluster that is already running (e.g. under npm start).

@@ -3,12 +3,30 @@ import { config } from '../config';
 
 const sign = '\n\n— Bayslate, for the build crew';
 
+/**
+ * A viewer's words as one quoted line of a plain-text mail: no line breaks or control and
+ * direction characters (they could fake a paragraph from the shop), and web addresses broken so
+ * mail programs do not turn them into links.
+ */
+export function quoteViewerText(s: string, max = 200): string {
+  const flat = s
+    // eslint-disable-next-line no-control-regex
+    .replace(/[\u0000-\u001f\u007f-\u009f\u2028\u2029\u200e\u200f\u202a-\u202e\u2066-\u2069]+/g, ' ')
+    .replace(/\s+/g, ' ')
+    .trim()
+    .slice(0, max)
+    .replace(/:\/\//g, '[:]//')
+    .replace(/\bwww\./gi, (m) => `${m.slice(0, 3)}[.]`);
+  return `“${flat}”`;
+}
+
 export function confirmVoteMail(p: { buildName: string; requestTitle: string; link: string; hours: number; isNewRequest: boolean }) {
   return {
-    subject: `Confirm your vote: ${p.requestTitle}`.slice(0, 300),
+    // Fixed words and the shop's own build name only: a stranger's text never reaches the subject.
+    subject: `Confirm your vote on the ${p.buildName} build`.slice(0, 300),
     text:
       `Someone (hopefully you) ${p.isNewRequest ? 'asked for' : 'voted for'} this upgrade on the ${p.buildName} build page:\n\n` +
-      `  ${p.requestTitle}\n\n` +
+      `  ${quoteViewerText(p.requestTitle)}\n\n` +
       `To count your vote, open this link within ${p.hours} hours:\n\n${p.link}\n\n` +
       `If it was not you, ignore this mail: nothing is counted and your address is not kept.` +
       sign,

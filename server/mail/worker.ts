@@ -1,8 +1,11 @@
-// Sends queued mail outside any request. Each mail is taken with FOR UPDATE SKIP LOCKED and stays
-// locked while it is handed to SMTP, so two workers never send the same mail; it is marked sent in
-// the same transaction. A failure schedules a retry with exponential backoff; after
-// MAIL_MAX_ATTEMPTS the mail is marked failed. Each mail carries a stable Message-ID built from
-// its queue id, so a crash between SMTP accepting it and the commit is recognisable downstream.
+// Sends queued mail outside any request. A mail is first claimed in a short statement of its own
+// (FOR UPDATE SKIP LOCKED picks a row no other worker is claiming; claimed_until keeps it ours for
+// MAIL_CLAIM_SECONDS), then handed to SMTP with no transaction open and no row locked, then its
+// outcome is recorded. A worker that dies mid-send leaves a claim that runs out, and the mail is
+// sent again: at least once, always with the same Message-ID (built from its queue id), so a
+// repeat is recognisable downstream. A failure schedules a retry with exponential backoff; after
+// MAIL_MAX_ATTEMPTS the mail is marked failed, and the owner can send it again.
+import { randomUUID } from 'node:crypto';
 import type { Transporter } from 'nodemailer';
 import { QueryTypes } from 'sequelize';
 import { sequelize } from '../models';
@@ -28,46 +31,54 @@ export function backoffMs(attempts: number, base = config().MAIL_RETRY_BASE_MS) 
 
 type Outcome = 'none' | 'sent' | 'retry' | 'failed';
 
+/** Takes the next due mail for this worker, in one short statement; null when none is due. */
+async function claimNext(): Promise<(Row & { claim_id: string }) | null> {
+  const rows = await sequelize.query<Row & { claim_id: string }>(
+    `UPDATE mail_outbox SET claimed_until = now() + make_interval(secs => :secs), claim_id = :claim
+     WHERE id = (
+       SELECT id FROM mail_outbox
+       WHERE state = 'queued' AND next_attempt_at <= now() AND (claimed_until IS NULL OR claimed_until < now())
+       ORDER BY next_attempt_at, id LIMIT 1 FOR UPDATE SKIP LOCKED)
+     RETURNING id, to_address, subject, text_body, headers, attempts, scrub_after_send, claim_id`,
+    { replacements: { secs: config().MAIL_CLAIM_SECONDS, claim: randomUUID() }, type: QueryTypes.SELECT },
+  );
+  return rows[0] ?? null;
+}
+
 async function sendOne(transport: Transporter): Promise<Outcome> {
-  return sequelize.transaction(async (t) => {
-    const rows = await sequelize.query<Row>(
-      `SELECT id, to_address, subject, text_body, headers, attempts, scrub_after_send FROM mail_outbox
-       WHERE state = 'queued' AND next_attempt_at <= now()
-       ORDER BY next_attempt_at, id LIMIT 1 FOR UPDATE SKIP LOCKED`,
-      { type: QueryTypes.SELECT, transaction: t },
-    );
-    const row = rows[0];
-    if (!row) return 'none';
-    try {
-      await transport.sendMail({
-        from: config().MAIL_FROM,
-        to: row.to_address,
-        subject: row.subject,
-        text: row.text_body,
-        headers: row.headers,
-        messageId: `<outbox-${row.id}@${mailDomain()}>`,
-      });
-    } catch (err) {
-      const attempts = row.attempts + 1;
-      const failed = attempts >= config().MAIL_MAX_ATTEMPTS;
-      await sequelize.query(
-        `UPDATE mail_outbox SET attempts = :attempts, last_error = :error,
-           state = CASE WHEN :failed THEN 'failed' ELSE 'queued' END,
-           next_attempt_at = now() + (:delay || ' milliseconds')::interval
-         WHERE id = :id`,
-        { replacements: { id: row.id, attempts, error: String((err as Error)?.message ?? err).slice(0, 500), failed, delay: String(backoffMs(attempts)) }, transaction: t },
-      );
-      return failed ? 'failed' : 'retry';
-    }
+  const row = await claimNext();
+  if (!row) return 'none';
+  try {
+    await transport.sendMail({
+      from: config().MAIL_FROM,
+      to: row.to_address,
+      subject: row.subject,
+      text: row.text_body,
+      headers: row.headers,
+      messageId: `<outbox-${row.id}@${mailDomain()}>`,
+    });
+  } catch (err) {
+    const attempts = row.attempts + 1;
+    const failed = attempts >= config().MAIL_MAX_ATTEMPTS;
+    // Only while the claim is still ours: a worker that took over an expired claim decides instead.
     await sequelize.query(
-      `UPDATE mail_outbox SET state = 'sent', sent_at = now(), attempts = attempts + 1, last_error = NULL,
-         to_address = CASE WHEN scrub_after_send THEN NULL ELSE to_address END,
-         text_body = CASE WHEN scrub_after_send THEN '(removed after sending)' ELSE text_body END
-       WHERE id = :id`,
-      { replacements: { id: row.id }, transaction: t },
+      `UPDATE mail_outbox SET attempts = :attempts, last_error = :error, claimed_until = NULL, claim_id = NULL,
+         state = CASE WHEN :failed THEN 'failed' ELSE 'queued' END,
+         next_attempt_at = now() + (:delay || ' milliseconds')::interval
+       WHERE id = :id AND claim_id = :claim AND state = 'queued'`,
+      { replacements: { id: row.id, claim: row.claim_id, attempts, error: String((err as Error)?.message ?? err).slice(0, 500), failed, delay: String(backoffMs(attempts)) } },
     );
-    return 'sent';
-  });
+    return failed ? 'failed' : 'retry';
+  }
+  // Sent is sent, whoever holds the claim now.
+  await sequelize.query(
+    `UPDATE mail_outbox SET state = 'sent', sent_at = now(), attempts = attempts + 1, last_error = NULL, claimed_until = NULL, claim_id = NULL,
+       to_address = CASE WHEN scrub_after_send THEN NULL ELSE to_address END,
+       text_body = CASE WHEN scrub_after_send THEN '(removed after sending)' ELSE text_body END
+     WHERE id = :id AND state = 'queued'`,
+    { replacements: { id: row.id } },
+  );
+  return 'sent';
 }
 
 /** Sends every mail that is due (up to `limit`); returns how many were sent and how many failed. */

@@ -7,6 +7,7 @@ import passport from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import bcrypt from 'bcryptjs';
 import pg from 'pg';
+import rateLimit, { type Store } from 'express-rate-limit';
 import { config } from '../config';
 import { User } from '../models';
 import { AppError } from '../errors';
@@ -171,3 +172,25 @@ export const sameOriginOnly: RequestHandler = (req, _res, next) => {
   }
   next();
 };
+
+/**
+ * Sign-in throttling per account, whatever address the attempts come from: after LOGIN_RATE_LIMIT
+ * failed attempts on one (normalised) e-mail within the window, further attempts are refused
+ * without checking the password. Successful sign-ins do not count. Put it after the body's
+ * validation, so the e-mail is already trimmed and lower-cased. `store` holds the counters (the
+ * in-memory default serves one process; pass a shared store when several instances run).
+ */
+export function accountSignInLimiter(store?: Store): RequestHandler {
+  const c = config();
+  return rateLimit({
+    windowMs: c.LOGIN_RATE_WINDOW_MINUTES * 60_000,
+    limit: c.LOGIN_RATE_LIMIT,
+    standardHeaders: false,
+    legacyHeaders: false,
+    skipSuccessfulRequests: true,
+    ...(store ? { store } : {}),
+    keyGenerator: (req) => `account:${String(req.body?.email ?? '').trim().toLowerCase()}`,
+    handler: (_req, _res, next) =>
+      next(new AppError(429, 'too_many_attempts', 'Too many sign-in attempts for this account. Wait a few minutes and try again.')),
+  });
+}

@@ -35,11 +35,15 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     e = new AppError(400, 'bad_request', `A value is out of its allowed range (${(err.parent as { constraint?: string }).constraint ?? 'check'}).`);
   else if (isDatabaseUnavailable(err)) e = new AppError(503, 'unavailable', UNAVAILABLE_MESSAGE);
   else {
-    if (!config().isTest || config().LOG_TEST_ERRORS) console.error(`[error] ${req.method} ${req.originalUrl}`, err);
+    // pino-http's line for this request carries the error too (res.err), under the same id.
+    res.err = err instanceof Error ? err : new Error(String(err));
+    if (config().isTest && config().LOG_TEST_ERRORS) console.error(`[error] ${req.method} ${req.originalUrl}`, err);
     e = new AppError(500, 'internal', config().NODE_ENV === 'development' ? String(err?.message ?? err) : 'Something went wrong on the server.');
   }
   if (res.headersSent) return;
+  // A person can quote this id; the log line of the request has the same one.
+  const requestId = e.status >= 500 ? { requestId: String(req.id ?? '') } : {};
   res.status(e.status).json({
-    error: { code: e.code, message: e.message, ...(e.fields?.length ? { fields: e.fields } : {}), ...(e.details ?? {}) },
+    error: { code: e.code, message: e.message, ...(e.fields?.length ? { fields: e.fields } : {}), ...(e.details ?? {}), ...requestId },
   });
 };

@@ -5,7 +5,7 @@ import { config } from '../config';
 import { pgRateLimitStore } from '../middleware/rateLimitStore';
 import { validate } from '../middleware/validate';
 import { requireSignedIn } from '../middleware/roles';
-import { signIn, verifyPassword, SESSION_COOKIE } from '../middleware/auth';
+import { accountSignInLimiter, signIn, verifyPassword, SESSION_COOKIE } from '../middleware/auth';
 import { loginSchema, changePasswordSchema } from '../../shared/schemas/auth';
 import { AppError } from '../errors';
 import { changeOwnPassword } from '../services/users';
@@ -34,7 +34,8 @@ export function authRouter() {
       next(new AppError(429, 'too_many_attempts', 'Too many sign-in attempts. Wait a few minutes and try again.')),
   });
 
-  router.post('/login', addressLimiter, validate(loginSchema), loginLimiter, async (req, res) => {
+  const accountLimiter = accountSignInLimiter();
+  router.post('/login', addressLimiter, validate(loginSchema), loginLimiter, accountLimiter, async (req, res) => {
     const user = await verifyPassword(req.body.email, req.body.password);
     // One answer for an unknown e-mail and a wrong password.
     if (!user) throw new AppError(401, 'bad_credentials', 'That e-mail and password do not match an active account.');
@@ -57,7 +58,7 @@ export function authRouter() {
   });
 
   router.post('/password', requireSignedIn, validate(changePasswordSchema), async (req, res) => {
-    await changeOwnPassword(req.user!, req.body.currentPassword, req.body.newPassword);
+    await changeOwnPassword(req.user!, req.body.currentPassword, req.body.newPassword, req.sessionID);
     res.json({ ok: true });
   });
 

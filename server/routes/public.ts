@@ -1,6 +1,6 @@
 // The public API, without sign-in: builds marked public, requests and votes, confirmation and
 // unsubscribe links. Writes are rate-limited per address and per e-mail.
-import { Router } from 'express';
+import { Router, type Request, type RequestHandler, type Response } from 'express';
 import rateLimit from 'express-rate-limit';
 import { pgRateLimitStore } from '../middleware/rateLimitStore';
 import { z } from 'zod';
@@ -9,7 +9,8 @@ import { AppError } from '../errors';
 import { validate } from '../middleware/validate';
 import { id } from '../../shared/schemas/common';
 import { publicRequestSchema, publicVoteSchema } from '../../shared/schemas/viewerRequest';
-import { publicBuildView } from '../services/publicBuild';
+import { publicBuildAnswer } from '../services/publicBuild';
+import { cachedPublic, type PublicEntry } from '../services/publicBuildCache';
 import * as votes from '../services/viewerVotes';
 import { emailHash } from '../services/viewerPrivacy';
 
@@ -17,6 +18,31 @@ const slug = z.object({ slug: z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'is n
 const token = z.object({ token: z.string().regex(/^[A-Za-z0-9_.-]{20,200}$/, 'is not a link of ours') });
 const tooMany = (_req: unknown, _res: unknown, next: (e: unknown) => void) =>
   next(new AppError(429, 'rate_limited', 'Too many requests from here. Wait a few minutes and try again.'));
+
+/**
+ * The same answer for every viewer: browsers and CDNs may keep it briefly and serve it stale while
+ * they fetch it again; a repeat with the ETag gets 304. Signed-in people get no-store anyway.
+ */
+function sendPublic(req: Request, res: Response, entry: PublicEntry, hit: boolean) {
+  const c = config();
+  res.set('X-Public-Cache', hit ? 'hit' : 'miss');
+  res.set('Cache-Control', `public, max-age=${c.PUBLIC_MAX_AGE_SECONDS}, stale-while-revalidate=${c.PUBLIC_STALE_SECONDS}`);
+  res.set('ETag', entry.etag);
+  res.vary('Accept-Encoding');
+  if (req.fresh) return void res.status(304).end();
+  res.type('application/json');
+  if (entry.gzipped && req.acceptsEncodings('gzip', 'identity') === 'gzip') {
+    res.set('Content-Encoding', 'gzip');
+    return void res.send(entry.gzipped);
+  }
+  res.send(entry.body);
+}
+
+const servePublicFromCache: RequestHandler = (req, res, next) => {
+  const hit = cachedPublic(String(req.params.slug));
+  if (!hit) return next();
+  sendPublic(req, res, hit, true);
+};
 
 export function publicRouter() {
   const c = config();
@@ -37,8 +63,11 @@ export function publicRouter() {
     handler: tooMany,
   });
 
-  router.get('/builds/:slug', readPerAddress, validate(slug, 'params'), async (req, res) => {
-    res.json(await publicBuildView(String(req.params.slug)));
+  // A copy in the cache is sent before the per-address limit: it costs no database work, and a
+  // crowd behind one address (a school, a CDN without TRUST_PROXY) still sees the page.
+  router.get('/builds/:slug', validate(slug, 'params'), servePublicFromCache, readPerAddress, async (req, res) => {
+    const { entry, hit } = await publicBuildAnswer(String(req.params.slug));
+    sendPublic(req, res, entry, hit);
   });
   router.post('/builds/:slug/requests', perAddress, validate(slug, 'params'), validate(publicRequestSchema), perEmail, async (req, res) => {
     res.status(202).json(await votes.createRequest(String(req.params.slug), req.body));

@@ -23,7 +23,7 @@ export function usersRouter() {
     res.json({ user: await users.updateUser(req.user!, Number(req.params.userId), req.body) });
   });
   router.post('/:userId/password', validate(params, 'params'), validate(resetPasswordSchema), async (req, res) => {
-    await users.setPassword(req.user!, Number(req.params.userId), req.body.password, true);
+    await users.setPassword(req.user!, Number(req.params.userId), req.body.password);
     res.json({ ok: true });
   });
   return router;

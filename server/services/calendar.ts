@@ -1,5 +1,6 @@
 // The per-build shoot and release calendar (RFC 5545) at a secret URL, and rotating that secret.
-import { timingSafeEqual } from 'node:crypto';
+import { createHash, timingSafeEqual } from 'node:crypto';
+import { QueryTypes } from 'sequelize';
 import ical, { ICalCalendarMethod } from 'ical-generator';
 import { sequelize, Build, Episode } from '../models';
 import { newCalendarToken } from '../models/build';
@@ -13,20 +14,19 @@ const TOKEN_SHAPE = /^[0-9a-f]{32,128}$/;
 export const calendarUrl = (token: string) => `${config().publicUrl}/api/calendar/${token}.ics`;
 
 /**
- * Finds the build whose token matches, comparing every candidate in constant time so the answer's
- * timing says nothing about how much of a guess was right. Builds are few (one per demo vehicle).
+ * Finds the build whose token matches, by the token's SHA-256 through a unique index (migration
+ * 0015): the lookup's timing depends on the hash, not on how much of a guess was right. The token
+ * is then compared in constant time as well.
  */
 export async function buildForToken(token: string): Promise<Build> {
   if (!TOKEN_SHAPE.test(token)) throw notFound('Calendar');
+  const hash = createHash('sha256').update(token).digest('hex');
+  const rows = await sequelize.query<{ id: number }>('SELECT id FROM builds WHERE calendar_token_hash = :hash', { replacements: { hash }, type: QueryTypes.SELECT });
+  const build = rows[0] ? await Build.findByPk(rows[0].id) : null;
   const given = Buffer.from(token);
-  const builds = await Build.findAll({ attributes: ['id', 'calendarToken'] });
-  let match: number | null = null;
-  for (const b of builds) {
-    const mine = Buffer.from(b.calendarToken);
-    if (mine.length === given.length && timingSafeEqual(mine, given)) match = b.id;
-  }
-  if (match === null) throw notFound('Calendar');
-  return (await Build.findByPk(match))!;
+  const mine = Buffer.from(build?.calendarToken ?? '');
+  if (!build || mine.length !== given.length || !timingSafeEqual(mine, given)) throw notFound('Calendar');
+  return build;
 }
 
 /** Day after an ISO date: the exclusive end of an all-day event. */

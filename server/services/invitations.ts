@@ -19,6 +19,11 @@ export async function createInvitationLink(t: Transaction, userId: number): Prom
   return token;
 }
 
+/** Ends every unused link of a person: a password set any other way makes them pointless. */
+export async function endInvitationLinksOf(t: Transaction, userId: number) {
+  await sequelize.query('DELETE FROM invitation_links WHERE user_id = :userId AND used_at IS NULL', { replacements: { userId }, transaction: t });
+}
+
 interface LinkRow {
   id: number;
   user_id: number;
@@ -50,6 +55,7 @@ export async function acceptInvitation(token: string, password: string) {
     user.passwordHash = await hashPassword(password);
     await user.save({ transaction: t });
     await sequelize.query('UPDATE invitation_links SET used_at = now() WHERE id = :id', { replacements: { id: link.id }, transaction: t });
+    await endInvitationLinksOf(t, user.id);
     await record(t, { actor: { id: user.id, name: user.name }, buildId: null, entity: 'user', entityId: user.id, action: 'password', summary: `${user.name} chose a password from the invitation`, changes: {} });
   });
   return { ok: true };

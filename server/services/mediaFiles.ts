@@ -15,7 +15,7 @@ import { fileTypeFromBuffer } from 'file-type';
 import { config } from '../config';
 import { AppError } from '../errors';
 import type { MediaKind } from '../../shared/domain';
-import { putStream, type StreamUpload } from '../storage/s3';
+import { putStream, removeObject, type StreamUpload } from '../storage/s3';
 
 export interface AllowedType {
   kind: MediaKind;
@@ -183,12 +183,14 @@ class InspectingDiskStorage implements StorageEngine {
       });
   }
 
+  // multer calls this for files already received when the upload fails later (a second file, too
+  // many fields): the object streamed to storage goes too, before the person hears of the error.
   _removeFile(_req: Request, file: Express.Multer.File, cb: (error: Error | null) => void) {
-    if (!file.path) return cb(null);
-    unlink(file.path).then(
-      () => cb(null),
-      () => cb(null),
-    );
+    const stored = (file as Partial<ReceivedFile>).stored;
+    Promise.all([
+      file.path ? unlink(file.path).catch(() => undefined) : undefined,
+      stored ? removeObject(stored.key).catch((err) => console.error(`[media] could not remove ${stored.key}; the sweep will:`, err?.message ?? err)) : undefined,
+    ]).then(() => cb(null));
   }
 }
 

@@ -59,3 +59,49 @@ export async function sweepTempFiles(opts: { remove?: boolean; graceMs?: number 
   if (opts.remove) await Promise.all(old.map((f) => unlink(f).catch(() => undefined)));
   return old;
 }
+
+let sweepTimer: NodeJS.Timeout | null = null;
+let sweeping: Promise<unknown> | null = null;
+
+export interface SweeperOptions {
+  intervalMs?: number;
+  /** How old an object no row names must be before it goes (an upload's object exists before its row). */
+  objectGraceMs?: number;
+  /** How old a temporary upload file must be before it goes (a large upload may take hours). */
+  tempGraceMs?: number;
+  /** Called after each pass (tests). */
+  onPass?: (r: { objects: number; tempFiles: number }) => void;
+}
+
+/**
+ * Sweeps leftover objects and temporary upload files every MEDIA_SWEEP_MINUTES (0: never), leaving
+ * anything younger than MEDIA_SWEEP_GRACE_MINUTES. The server starts it; stopMediaSweeper() waits
+ * for a pass in progress. With several instances each sweeps; removing twice is harmless.
+ */
+export function startMediaSweeper(opts: SweeperOptions = {}) {
+  const c = config();
+  const intervalMs = opts.intervalMs ?? c.MEDIA_SWEEP_MINUTES * 60_000;
+  if (sweepTimer || intervalMs <= 0) return;
+  const grace = c.MEDIA_SWEEP_GRACE_MINUTES * 60_000;
+  const pass = async () => {
+    const objects = await sweepOrphans({ remove: true, graceMs: opts.objectGraceMs ?? grace });
+    const temps = await sweepTempFiles({ remove: true, graceMs: opts.tempGraceMs ?? grace });
+    if (objects.removed || temps.length) console.log(`[media] swept ${objects.removed} leftover object(s) and ${temps.length} temporary file(s)`);
+    opts.onPass?.({ objects: objects.removed, tempFiles: temps.length });
+  };
+  const tick = () => {
+    sweeping = pass()
+      .catch((err) => console.error('[media] sweep failed:', err?.message ?? err))
+      .finally(() => {
+        sweeping = null;
+        if (sweepTimer) sweepTimer = setTimeout(tick, intervalMs).unref();
+      });
+  };
+  sweepTimer = setTimeout(tick, intervalMs).unref();
+}
+
+export async function stopMediaSweeper() {
+  if (sweepTimer) clearTimeout(sweepTimer);
+  sweepTimer = null;
+  await sweeping;
+}

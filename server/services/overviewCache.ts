@@ -24,9 +24,26 @@ let listening = false;
 let connecting: Promise<void> | null = null;
 let retryTimer: NodeJS.Timeout | null = null;
 
+/** Other caches that follow the same change notices (the public build page): one listening connection for all. */
+type ChangeListener = (buildId: number | null) => void;
+const changeListeners = new Set<ChangeListener>();
+
+/** Calls `fn(buildId)` on each build's change notice, and `fn(null)` when everything must be forgotten. */
+export function onBuildChanged(fn: ChangeListener): () => void {
+  changeListeners.add(fn);
+  return () => changeListeners.delete(fn);
+}
+
+/** Whether change notices arrive now (a cache may serve only then); starts listening if not. */
+export function changeNoticesLive(): boolean {
+  if (!listening) void connect();
+  return listening;
+}
+
 function forgetAll() {
   entries.clear();
   allGeneration += 1;
+  for (const fn of changeListeners) fn(null);
 }
 
 function onNotice(msg: pg.Notification) {
@@ -35,6 +52,7 @@ function onNotice(msg: pg.Notification) {
   const id = Number(msg.payload);
   entries.delete(id);
   generations.set(id, (generations.get(id) ?? 0) + 1);
+  for (const fn of changeListeners) fn(id);
 }
 
 function connect(): Promise<void> {

@@ -3,6 +3,7 @@
 import { QueryTypes } from 'sequelize';
 import { sequelize, Build, Upgrade, Episode } from '../models';
 import { notFound } from '../errors';
+import { cachedPublic, keepPublic, publicStamp, type PublicEntry } from './publicBuildCache';
 import { cautionsFor } from '../../shared/safety';
 import { AREAS, AREA_LABELS, isUpgradeDone, type Area } from '../../shared/domain';
 
@@ -20,7 +21,20 @@ function statusOf(u: Upgrade): PublicStatus {
   return u.installState === 'queued' ? 'planned' : 'in_progress';
 }
 
+/** The page's answer for `slug`, from the cache when its build has not changed since. */
+export async function publicBuildAnswer(slug: string): Promise<{ entry: PublicEntry; hit: boolean }> {
+  const hit = cachedPublic(slug);
+  if (hit) return { entry: hit, hit: true };
+  const stamp = publicStamp();
+  const { buildId, view } = await publicBuildViewOf(slug);
+  return { entry: keepPublic(slug, buildId, stamp, view), hit: false };
+}
+
 export async function publicBuildView(slug: string) {
+  return (await publicBuildViewOf(slug)).view;
+}
+
+async function publicBuildViewOf(slug: string) {
   const build = await publicBuildBySlug(slug);
   const [upgrades, episodes, requests] = await Promise.all([
     Upgrade.findAll({ where: { buildId: build.id }, order: [['episodePosition', 'ASC'], ['title', 'ASC']] }),
@@ -62,7 +76,7 @@ export async function publicBuildView(slug: string) {
     upgrades: upgrades.filter((u) => u.safetyFlags.includes(c.flag)).map((u) => u.title),
   }));
 
-  return {
+  const view = {
     build: {
       slug: build.slug,
       title: build.name,
@@ -89,4 +103,5 @@ export async function publicBuildView(slug: string) {
       upgrade: r.upgrade_id ? titleOf.get(r.upgrade_id) ?? null : null,
     })),
   };
+  return { buildId: build.id, view };
 }

@@ -8,7 +8,7 @@ import { AppError, badRequest, notFound } from '../errors';
 import { record, type Actor } from './activity';
 import { enqueueMail } from '../mail/outbox';
 import { invitationMail } from '../mail/templates';
-import { createInvitationLink } from './invitations';
+import { createInvitationLink, endInvitationLinksOf } from './invitations';
 import { config } from '../config';
 import type { CreateUserInput, UpdateUserInput } from '../../shared/schemas/auth';
 import type { Role } from '../../shared/domain';
@@ -43,9 +43,12 @@ async function activeOwnersOtherThan(id: number, t: import('sequelize').Transact
   return User.count({ where: { id: { [Op.ne]: id }, active: true, roles: { [Op.contains]: ['owner'] } }, transaction: t });
 }
 
-/** Ends every session of a person at once. */
-export async function endSessionsOf(userId: number, t?: import('sequelize').Transaction) {
-  await sequelize.query(`DELETE FROM "session" WHERE (sess->'passport'->>'user')::int = :userId`, { replacements: { userId }, transaction: t });
+/** Ends every session of a person at once (but `keepSessionId`, the one making the change). */
+export async function endSessionsOf(userId: number, t?: import('sequelize').Transaction, keepSessionId?: string) {
+  await sequelize.query(`DELETE FROM "session" WHERE (sess->'passport'->>'user')::int = :userId AND sid <> :keep`, {
+    replacements: { userId, keep: keepSessionId ?? '' },
+    transaction: t,
+  });
 }
 
 export async function updateUser(actor: Actor, id: number, input: UpdateUserInput) {
@@ -69,22 +72,27 @@ export async function updateUser(actor: Actor, id: number, input: UpdateUserInpu
   });
 }
 
-export async function setPassword(actor: Actor | null, id: number, password: string, endSessions: boolean) {
+/**
+ * Sets a password. Every outstanding invitation link of the person ends, and so do their sessions:
+ * all of them for a reset by the owner, all but `keepSessionId` for a change of one's own.
+ */
+export async function setPassword(actor: Actor | null, id: number, password: string, keepSessionId?: string) {
   return sequelize.transaction(async (t) => {
     const user = await User.findByPk(id, { transaction: t });
     if (!user) throw notFound('User');
     user.passwordHash = await hashPassword(password);
     await user.save({ transaction: t });
-    if (endSessions) await endSessionsOf(user.id, t);
+    await endSessionsOf(user.id, t, keepSessionId);
+    await endInvitationLinksOf(t, user.id);
     await record(t, { actor, buildId: null, entity: 'user', entityId: user.id, action: 'password', summary: `Password set for ${user.name}`, changes: {} });
   });
 }
 
-export async function changeOwnPassword(actor: Actor, current: string, next: string) {
+export async function changeOwnPassword(actor: Actor, current: string, next: string, thisSessionId: string) {
   const user = await User.findByPk(actor.id);
   if (!user) throw notFound('User');
   if (!(await bcrypt.compare(current, user.passwordHash))) {
     throw badRequest('The current password is not right.', [{ path: 'currentPassword', message: 'is not right' }]);
   }
-  await setPassword(actor, actor.id, next, false);
+  await setPassword(actor, actor.id, next, thisSessionId);
 }

@@ -31,7 +31,8 @@ export type MediaListQuery = z.infer<typeof mediaListQuery>;
 
 export const mediaPatch = z
   .strictObject({
-    caption: optionalText(500),
+    // .optional() outside: a caption left out stays undefined (kept), not null (cleared).
+    caption: optionalText(500).optional(),
     stage: z.enum(MEDIA_STAGES).nullable().optional(),
   })
   .refine((b) => b.caption !== undefined || b.stage !== undefined, { message: 'give caption or stage', path: ['caption'] });

@@ -88,3 +88,26 @@ describe('the calendar feed', () => {
     expect((await producer.post('/api/builds/999999/calendar/rotate').send({})).status).toBe(404);
   });
 });
+
+describe('the calendar feed lookup (issue 10)', () => {
+  it('finds the build through the token hash, without loading every build', async () => {
+    for (let i = 0; i < 15; i++) {
+      await Build.create({ slug: `cal-lookup-${i}`, name: `Lookup ${i}`, year: 2020, make: 'Halvorsen', model: 'Skua', vin: null, mileage: null, budgetCents: null, labourRateCents: null, campaign: null, summary: null });
+    }
+    const url = (await (await signInAs('producer')).get(`/api/builds/${build.id}/calendar`)).body.url as string;
+    let loaded = 0;
+    const countRows = (result: unknown) => void (loaded += Array.isArray(result) ? result.length : result ? 1 : 0);
+    Build.addHook('afterFind', 'count-loaded', countRows);
+    try {
+      const res = await anonymous().get(pathOf(url));
+      expect(res.status).toBe(200);
+      expect(loaded).toBeLessThanOrEqual(1);
+      loaded = 0;
+      const wrong = await anonymous().get(pathOf(url).replace(/[0-9a-f]{8}\.ics$/, '00000000.ics'));
+      expect(wrong.status).toBe(404);
+      expect(loaded).toBe(0);
+    } finally {
+      Build.removeHook('afterFind', 'count-loaded');
+    }
+  });
+});
