@@ -108,6 +108,10 @@ export interface BuildRecord {
   isPublic: boolean;
   campaign: string | null;
   summary: string | null;
+  /** IANA zone of the shop: "today" and default dates of this build. */
+  timeZone: string;
+  /** When a part's cost becomes actual cost (shared/costRecognition.ts). */
+  costRecognition: 'fitting' | 'receipt';
   version: number;
 }
 

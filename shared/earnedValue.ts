@@ -1,11 +1,14 @@
 // Earned value (DESIGN §4.2): the standard point figures and the burndown series, in integer cents.
 import { roundHalfUpCents } from './costs';
+import { addDays, daysBetween } from './dates';
 
 export interface EarnedValueInput {
   bac: number | null;
   pv: number | null;
   ev: number | null;
   ac: number | null;
+  /** The headline (bottom-up) estimate at completion, for the to-complete index against it. */
+  eac?: number | null;
 }
 
 export interface EarnedValueFigures {
@@ -17,6 +20,14 @@ export interface EarnedValueFigures {
   etc: number | null;
   vac: number | null;
   tcpi: number | null;
+  /** EAC = BAC / CPI: the cost performance so far continues. */
+  eacCpi: number | null;
+  /** EAC = AC + (BAC − EV): the variance so far was one-off; the rest goes as budgeted. */
+  eacOneOff: number | null;
+  /** EAC = AC + (BAC − EV) / (CPI × SPI): cost and schedule performance both weigh on the rest. */
+  eacComposite: number | null;
+  /** TCPI = (BAC − EV) / (EAC − AC) against the headline estimate; null without one. */
+  tcpiEac: number | null;
 }
 
 type N = number | null | undefined;
@@ -29,14 +40,23 @@ const div = (a: N, b: N) => (val(a) === null || val(b) === null || b === 0 ? nul
  * VAC = BAC − EAC, TCPI = (BAC − EV) / (BAC − AC) (the to-complete index against the budget).
  * A missing input or a division by zero gives null, and null propagates; never Infinity or NaN.
  */
-export function earnedValue({ bac, pv, ev, ac }: EarnedValueInput): EarnedValueFigures {
+export function earnedValue({ bac, pv, ev, ac, eac: headline }: EarnedValueInput): EarnedValueFigures {
   const cpi = div(ev, ac);
+  const spi = div(ev, pv);
   const eac = div(bac, cpi);
+  const workLeft = sub(bac, ev);
+  const cpiSpi = cpi === null || spi === null ? null : cpi * spi;
+  const oneOff = val(ac) === null || workLeft === null ? null : (ac as number) + workLeft;
+  const composite = div(workLeft, cpiSpi);
   return {
+    eacCpi: eac,
+    eacOneOff: oneOff,
+    eacComposite: composite === null || val(ac) === null ? null : (ac as number) + composite,
+    tcpiEac: div(workLeft, sub(headline, ac)),
     cv: sub(ev, ac),
     sv: sub(ev, pv),
     cpi,
-    spi: div(ev, pv),
+    spi,
     eac,
     etc: sub(eac, ac),
     vac: sub(bac, eac),
@@ -80,6 +100,13 @@ export interface EvSeriesInput {
   parts: { spentOn: string | null; costCents: number }[];
   /** Sales of removed parts, which reduce actual cost on the day sold. */
   recoveries?: { soldOn: string; amountCents: number }[];
+  /** Where the planned value of upgrades with no shoot date falls (the plan's end), so that PV ends at BAC. */
+  unscheduledOn?: string | null;
+  /**
+   * The forecast line: from the status date's actual cost to this estimate at completion on this
+   * finish date. Without it the line follows the current CPI (EAC = BAC / CPI).
+   */
+  forecast?: { atCompletionCents: number | null; finish: string | null };
 }
 
 export interface EvPoint {
@@ -107,9 +134,8 @@ export interface EvSeries {
   forecastFinish: string | null;
 }
 
-const DAY = 86_400_000;
-const dayAdd = (iso: string, days: number) => new Date(Date.parse(`${iso}T00:00:00Z`) + days * DAY).toISOString().slice(0, 10);
-const dayDiff = (a: string, b: string) => Math.round((Date.parse(`${b}T00:00:00Z`) - Date.parse(`${a}T00:00:00Z`)) / DAY);
+const dayAdd = addDays;
+const dayDiff = daysBetween;
 
 class Ledger {
   readonly byDate = new Map<string, number>();
@@ -150,7 +176,10 @@ export function earnedValueSeries(input: EvSeriesInput): EvSeries {
     budget.set(u.id, b);
     total += b;
     if (u.shootDate) planned.add(u.shootDate, b);
-    else unscheduled += b;
+    else {
+      unscheduled += b;
+      if (input.unscheduledOn) planned.add(input.unscheduledOn, b);
+    }
   }
   const bac = val(input.bacCents) ?? total;
 
@@ -216,7 +245,7 @@ export function earnedValueSeries(input: EvSeriesInput): EvSeries {
     }
   }
 
-  return assemble(rule, bac, asOf, unscheduled, planned, earned, actual);
+  return assemble(rule, bac, asOf, unscheduled, planned, earned, actual, input.forecast);
 }
 
 function assemble(
@@ -227,6 +256,7 @@ function assemble(
   planned: Ledger,
   earned: Ledger,
   actual: Ledger,
+  given?: EvSeriesInput['forecast'],
 ): EvSeries {
   const pastDates = new Set<string>([...earned.byDate.keys(), ...actual.byDate.keys()]);
   if (asOf) pastDates.add(asOf);
@@ -245,7 +275,7 @@ function assemble(
   const futurePlanned = asOf ? plannedDates.filter((d) => d > asOf) : [];
   const remainingWork = Math.max(0, bac - ev0);
   const dates = [...base];
-  if (asOf && cpi !== null && cpi > 0) {
+  if (!given && asOf && cpi !== null && cpi > 0) {
     if (remainingWork === 0) forecastFinish = asOf;
     else if (futurePlanned.length) forecastFinish = futurePlanned[futurePlanned.length - 1];
     else if (plannedDates.length && figures.spi) {
@@ -256,11 +286,21 @@ function assemble(
       dates.sort();
     }
   }
+  let eacExact = cpi ? ac0 + remainingWork / cpi : null;
+  if (given) {
+    // The caller's estimate and finish (the bottom-up estimate and the plan's date) replace the CPI line.
+    eacExact = asOf && val(given.atCompletionCents) !== null ? (given.atCompletionCents as number) : null;
+    forecastFinish = eacExact === null || !asOf ? null : (given.finish ?? null);
+    if (forecastFinish && asOf && forecastFinish <= asOf) forecastFinish = eacExact === ac0 ? asOf : dayAdd(asOf, 1);
+    if (forecastFinish && !dates.includes(forecastFinish)) {
+      dates.push(forecastFinish);
+      dates.sort();
+    }
+  }
   const pv = planned.cumulative(dates);
   const ev = earned.cumulative(dates);
   const ac = actual.cumulative(dates);
   const pvEnd = pv.length ? pv[pv.length - 1] : 0;
-  const eacExact = cpi ? ac0 + remainingWork / cpi : null;
 
   const points: EvPoint[] = dates.map((date, k) => {
     const past = !!asOf && date <= asOf;
@@ -269,6 +309,7 @@ function assemble(
       let share: number;
       if (date === forecastFinish) share = 1;
       else if (date === asOf) share = 0;
+      else if (given) share = forecastShare(date, asOf, forecastFinish, pv[k], pvAsOf, pvEnd);
       else share = pvEnd > pvAsOf ? (pv[k] - pvAsOf) / (pvEnd - pvAsOf) : 0;
       forecast = roundHalfUpCents(ac0 + share * (eacExact - ac0));
     }
@@ -291,4 +332,11 @@ function assemble(
     current: { pv: pvAsOf, ev: ev0, ac: ac0, ...figures },
     forecastFinish,
   };
+}
+
+/** Share of the remaining forecast spent by `date`: the plan's shape where it has work left, else time. */
+function forecastShare(date: string, asOf: string, finish: string, pv: number, pvAsOf: number, pvEnd: number): number {
+  if (pvEnd > pvAsOf) return Math.min(1, Math.max(0, (pv - pvAsOf) / (pvEnd - pvAsOf)));
+  const span = dayDiff(asOf, finish);
+  return span > 0 ? Math.min(1, dayDiff(asOf, date) / span) : 1;
 }

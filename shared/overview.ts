@@ -3,6 +3,7 @@
 import type { Area, EpisodeState, InstallState } from './domain';
 import type { CostRow } from './costs';
 import type { EarnedValueFigures, EvCreditRule } from './earnedValue';
+import type { CashView, CostRecognition } from './costRecognition';
 
 /** A cost row as the API sends it: labour is null when the build has no labour rate. */
 export type OverviewCostRow = Omit<CostRow, 'labourCents'> & {
@@ -18,6 +19,11 @@ export interface OverviewUpgradeRow extends OverviewCostRow {
   episodeId: number | null;
   installState: InstallState;
   done: boolean;
+  /** Budgeted cost: estimated hours × labour rate + its parts. */
+  budgetedCents: number;
+  /** Estimate to complete: remaining hours × rate + parts not in actual cost + money dated later. */
+  etcCents: number;
+  remainingHours: number;
 }
 
 export interface OverviewAreaRow extends OverviewCostRow {
@@ -45,6 +51,25 @@ export interface BurndownPoint {
 
 export interface OverviewHeadline {
   budgetCents: number | null;
+  /** Budget at completion: the sum of the upgrades' budgeted cost (the plan of work); null with no upgrades. */
+  bacCents: number | null;
+  /** Budget − BAC: money the plan of work does not use; negative when planned work exceeds the budget. */
+  reserveCents: number | null;
+  /** Actual cost (AC) on the status date under the build's cost recognition. */
+  actualCents: number;
+  costRecognition: CostRecognition;
+  costRecognitionLabel: string;
+  costRecognitionDescription: string;
+  /** The same money by where the cash stands: paid + committed + not ordered = net. */
+  cash: CashView;
+  /** Net − AC, by why it is not actual cost yet. */
+  pending: { receivedNotFittedCents: number; committedCents: number; notOrderedCents: number; laterDatedCents: number };
+  /** Estimate to complete (bottom-up) and its parts; null without a labour rate. */
+  etcCents: number | null;
+  remainingHours: number;
+  remainingLabourCents: number | null;
+  remainingPartsCents: number;
+  plannedCents: number;
   /** Parts + labour + other expenses, before recoveries. */
   spentCents: number;
   recoveredCents: number;
@@ -55,9 +80,9 @@ export interface OverviewHeadline {
   remainingCents: number | null;
   /** Net ÷ budget; null without a budget (or a zero budget). */
   spentShare: number | null;
-  /** Estimate at completion (EAC = BAC ÷ CPI); null when it cannot be computed. */
+  /** Bottom-up estimate at completion: AC + ETC; null when it cannot be computed (no labour rate). */
   forecastCents: number | null;
-  /** Budget − forecast (VAC); null when it cannot be computed. */
+  /** Budget − forecast; null when either is missing. */
   forecastVarianceCents: number | null;
   estimatedHours: number;
   actualHours: number;
@@ -84,8 +109,9 @@ export interface OverviewEarnedValue extends EarnedValueFigures {
 
 export interface BuildOverview {
   build: { id: number; name: string; slug: string; year: number; make: string; model: string; trim: string; budgetCents: number | null; labourRateCents: number | null; startDate: string };
-  /** The status date the figures are taken on. */
+  /** The status date the figures are taken on: today in the build's zone. */
   asOf: string;
+  timeZone: string;
   /** False when the build has no labour rate: labour cost is then not counted. */
   labourCosted: boolean;
   headline: OverviewHeadline;

@@ -93,3 +93,66 @@ export function formatCents(cents: number | null | undefined): string {
 export function formatHours(h: number | null | undefined): string {
   return h === null || h === undefined || !Number.isFinite(h) ? '—' : `${Math.round(h * 10) / 10} h`;
 }
+
+/** Whole dollars for chart axes, with a true minus sign before the dollar sign: "−$10,000". */
+export function formatDollarsTick(v: string | number): string {
+  const n = Number(v);
+  if (!Number.isFinite(n)) return '';
+  const whole = Math.abs(n).toLocaleString('en-US', { maximumFractionDigits: 0 });
+  return `${n < 0 ? '−' : ''}$${whole}`;
+}
+
+/** A line total with its unit price beside it: "4 × $185.00 = $740.00" (one piece: "$185.00"). */
+export function formatLineTotal(quantity: number, unitCents: number | null | undefined): string {
+  if (unitCents === null || unitCents === undefined || !Number.isFinite(unitCents)) return '—';
+  return quantity === 1 ? formatCents(unitCents) : `${quantity} × ${formatCents(unitCents)} = ${formatCents(Math.round(unitCents * quantity))}`;
+}
+
+/** Colours and type for charts and overview cards in each theme (text, grid, panels). */
+export interface ChartColors {
+  text: string;
+  muted: string;
+  grid: string;
+  panel: string;
+  border: string;
+  /** Table heads and quiet fills. */
+  head: string;
+  strong: string;
+  planned: string;
+  actual: string;
+  forecast: string;
+  today: string;
+  bars: [string, string, string];
+}
+export const chartFont = "'Poppins', system-ui, sans-serif";
+export function chartColors(dark: boolean): ChartColors {
+  return dark
+    ? {
+        text: palette.chalk100,
+        muted: palette.graphite300,
+        grid: 'rgba(241, 237, 228, 0.14)',
+        panel: palette.graphite800,
+        border: palette.graphite700,
+        head: palette.graphite700,
+        strong: palette.chalk50,
+        planned: palette.graphite300,
+        actual: palette.chalk50,
+        forecast: '#e38a55',
+        today: palette.steelDark,
+        bars: [palette.chalk200, palette.steelDark, palette.graphite500],
+      }
+    : {
+        text: palette.graphite900,
+        muted: palette.graphite500,
+        grid: 'rgba(29, 31, 34, 0.1)',
+        panel: '#ffffff',
+        border: palette.chalk200,
+        head: palette.chalk100,
+        strong: palette.graphite900,
+        planned: palette.graphite500,
+        actual: palette.graphite900,
+        forecast: palette.signal,
+        today: palette.steel,
+        bars: [palette.graphite800, palette.steelDark, palette.chalk200],
+      };
+}

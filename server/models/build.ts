@@ -27,6 +27,8 @@ export class Build extends Model<InferAttributes<Build>, InferCreationAttributes
   declare campaign: string | null;
   declare summary: string | null;
   declare calendarToken: CreationOptional<string>;
+  declare timeZone: CreationOptional<string>;
+  declare costRecognition: CreationOptional<'fitting' | 'receipt'>;
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -54,6 +56,8 @@ Build.init(
     campaign: { type: DataTypes.TEXT, allowNull: true },
     summary: { type: DataTypes.TEXT, allowNull: true },
     calendarToken: { type: DataTypes.TEXT, allowNull: false, defaultValue: newCalendarToken },
+    timeZone: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'UTC' },
+    costRecognition: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'fitting' },
     version: DataTypes.INTEGER,
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,

@@ -32,12 +32,14 @@ export function toBuildRecord(b: Build): Plain<BuildRecord & { vinCheckOverridde
     isPublic: b.isPublic,
     campaign: b.campaign,
     summary: b.summary,
+    timeZone: b.timeZone,
+    costRecognition: b.costRecognition,
     version: b.version,
   };
 }
 
 /** Money-bearing fields only the owner may set on a build. */
-const OWNER_ONLY = ['budgetCents', 'labourRateCents'] as const;
+const OWNER_ONLY = ['budgetCents', 'labourRateCents', 'costRecognition'] as const;
 
 function refuseOwnerOnly(actor: Person, input: Record<string, unknown>) {
   if (actor.roles.includes('owner')) return;

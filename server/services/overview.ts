@@ -1,20 +1,24 @@
 // The build overview: the database's sums (overviewQuery.ts) run through the shared roll-up and
 // earned-value functions, so the screen, the report and the backlog agree to the cent.
 import { AREA_LABELS, isUpgradeDone } from '../../shared/domain';
-import { rollUpCosts, type CostRow } from '../../shared/costs';
+import { rollUpCosts, roundHalfUpCents, type CostRow } from '../../shared/costs';
 import { earnedValue, earnedValueSeries, EV_CREDIT_RULES, type EvCreditRule } from '../../shared/earnedValue';
+import { COST_RECOGNITION_DESCRIPTIONS, COST_RECOGNITION_LABELS, recogniseCosts, type CostRecognition } from '../../shared/costRecognition';
+import { DEFAULT_TIME_ZONE, todayIn } from '../../shared/dates';
 import type { BuildOverview, BurndownPoint, OverviewCostRow } from '../../shared/overview';
 import type { Build } from '../models';
 import { loadOverviewData, type OverviewData } from './overviewQuery';
-import { cached, stamp, store } from './overviewCache';
+import { cached, singleFlight, stamp, store } from './overviewCache';
 
 /** The build fields the overview reads. */
-export type OverviewBuild = Pick<Build, 'id' | 'name' | 'slug' | 'year' | 'make' | 'model' | 'trim' | 'budgetCents' | 'labourRateCents' | 'startDate'>;
+export type OverviewBuild = Pick<Build, 'id' | 'name' | 'slug' | 'year' | 'make' | 'model' | 'trim' | 'budgetCents' | 'labourRateCents' | 'startDate'> &
+  Partial<Pick<Build, 'timeZone' | 'costRecognition'>>;
 
 /** The credit rule the overview states: an upgrade earns its whole budget the day it is done. */
 export const OVERVIEW_CREDIT_RULE: EvCreditRule = '0/100';
 
-const today = () => new Date().toISOString().slice(0, 10);
+/** Today in the build's zone: the status date of the figures and the day a cached copy is good for. */
+const today = (zone?: string | null) => todayIn(zone ?? DEFAULT_TIME_ZONE);
 const latest = (dates: (string | null | undefined)[]) => dates.reduce<string>((a, d) => (d && d > a ? d : a), '');
 
 /** Ratios are sent to six significant digits: more is noise on a screen and only adds bytes. */
@@ -29,47 +33,43 @@ function costRow(r: CostRow, labourCosted: boolean): OverviewCostRow {
   };
 }
 
-export async function buildOverview(build: OverviewBuild, now: string = today()): Promise<BuildOverview> {
+export async function buildOverview(build: OverviewBuild, now: string = today(build.timeZone)): Promise<BuildOverview> {
   return computeOverview(build, await loadOverviewData(build.id), now);
 }
 
 /** The overview's JSON bytes as cached, or null: a hit needs no database query at all. */
 export function cachedOverviewBody(buildId: number) {
-  return Number.isInteger(buildId) && buildId > 0 ? cached(buildId, today()) : null;
+  return Number.isInteger(buildId) && buildId > 0 ? cached(buildId, today) : null;
 }
 
-/** Computes the overview's JSON bytes and keeps them unless a change came in since `before` (from `overviewStamp`). */
-export async function freshOverviewBody(build: OverviewBuild, before: string) {
-  const now = today();
-  return store(build.id, now, before, await buildOverview(build, now));
+/**
+ * Computes the overview's JSON bytes and keeps them unless a change came in since `before` (from
+ * `overviewStamp`). Concurrent misses for one build with the same stamp share one computation.
+ */
+export function freshOverviewBody(build: OverviewBuild, before: string) {
+  const zone = build.timeZone ?? DEFAULT_TIME_ZONE;
+  const now = today(zone);
+  return singleFlight(build.id, `${before}|${now}|${zone}`, async () => store(build.id, now, zone, before, await buildOverview(build, now)));
 }
 
 export const overviewStamp = stamp;
 
-/** Pure: the overview from the loaded sums. `now` is today's date (YYYY-MM-DD). */
+/** Pure: the overview from the loaded sums. `now` is today's date in the build's zone (YYYY-MM-DD). */
 export function computeOverview(build: OverviewBuild, d: OverviewData, now: string): BuildOverview {
   const budget = build.budgetCents ?? null;
   const labourCosted = build.labourRateCents !== null && build.labourRateCents !== undefined;
   const rate = build.labourRateCents ?? 0;
+  const recognitionRule: CostRecognition = build.costRecognition ?? 'fitting';
 
-  // Status date: today, or later when money is already recorded on a later day, so the earned-value
-  // actual cost equals the roll-up's net cost. Parts not yet ordered and sales with no date count
-  // as committed on the status date.
+  // Status date: today in the build's zone. Money dated later is planned, not actual.
+  const asOf = now;
   const doneOn = new Map<number, string | null>();
-  const asOf = latest([
-    now,
-    ...d.labour.map((l) => l.workedOn),
-    ...d.parts.map((p) => p.spentOn),
-    ...d.expenses.map((e) => e.spentOn),
-    ...d.removed.map((r) => r.soldOn),
-    ...d.upgrades.map((u) => (isUpgradeDone(u) ? u.installedOn : null)),
-  ]);
   for (const u of d.upgrades) doneOn.set(u.id, isUpgradeDone(u) ? (u.installedOn ?? asOf) : null);
 
   const rollup = rollUpCosts({
     labourRateCents: rate,
     upgrades: d.upgrades,
-    parts: d.parts.map((p) => ({ upgradeId: p.upgradeId, quantity: 1, unitCostCents: p.cents, state: 'ordered' as const })),
+    parts: d.parts.map((p) => ({ upgradeId: p.upgradeId, quantity: 1, unitCostCents: p.cents, state: p.state })),
     labour: d.labour,
     expenses: d.expenses.map((e) => ({ upgradeId: e.upgradeId, amountCents: e.cents })),
     removedParts: d.removed.map((r) => ({
@@ -79,32 +79,51 @@ export function computeOverview(build: OverviewBuild, d: OverviewData, now: stri
       actualSaleCents: r.actualCents,
     })),
   });
+  const sold = d.removed.filter((r) => r.disposition === 'sold' && r.actualCents > 0);
+  const recognition = recogniseCosts({
+    recognition: recognitionRule,
+    asOf,
+    labourRateCents: rate,
+    upgrades: d.upgrades.map((u) => ({ id: u.id, estimatedHours: u.estimatedHours, installState: u.installState, installedOn: u.installedOn, done: isUpgradeDone(u) })),
+    parts: d.parts,
+    labour: d.labour,
+    expenses: d.expenses,
+    recoveries: sold.map((r) => ({ upgradeId: r.upgradeId, soldOn: r.soldOn, cents: r.actualCents })),
+  });
 
   const partsBudget = new Map<number, number>();
   for (const p of d.parts) partsBudget.set(p.upgradeId, (partsBudget.get(p.upgradeId) ?? 0) + p.cents);
   const shootDate = new Map(d.episodes.map((e) => [e.id, e.shootDate]));
+  const shootOf = (u: { episodeId: number | null }) => (u.episodeId !== null ? (shootDate.get(u.episodeId) ?? null) : null);
+  const forecastFinish = planForecastFinish(d, shootOf, asOf);
+  const lastShoot = latest(d.episodes.map((e) => e.shootDate));
+  const hasUpgrades = d.upgrades.length > 0;
+  const headlineForecast = labourCosted && hasUpgrades ? recognition.forecast.atCompletionCents : null;
   const series = earnedValueSeries({
-    bacCents: budget,
+    bacCents: null,
     labourRateCents: rate,
     rule: OVERVIEW_CREDIT_RULE,
     asOf,
+    unscheduledOn: lastShoot || forecastFinish || asOf,
     upgrades: d.upgrades.map((u) => ({
       id: u.id,
       estimatedHours: u.estimatedHours,
       partsBudgetCents: partsBudget.get(u.id) ?? 0,
-      shootDate: u.episodeId !== null ? (shootDate.get(u.episodeId) ?? null) : null,
+      shootDate: shootOf(u),
       doneOn: doneOn.get(u.id) ?? null,
     })),
     labour: d.labour,
     expenses: d.expenses.map((e) => ({ spentOn: e.spentOn, amountCents: e.cents })),
-    parts: d.parts.map((p) => ({ spentOn: p.spentOn ?? asOf, costCents: p.cents })),
-    recoveries: d.removed
-      .filter((r) => r.disposition === 'sold' && r.actualCents > 0)
-      .map((r) => ({ soldOn: r.soldOn ?? asOf, amountCents: r.actualCents })),
+    parts: d.parts.map((p, k) => ({ spentOn: recognition.partDates[k], costCents: p.cents })),
+    recoveries: sold.map((r) => ({ soldOn: r.soldOn ?? asOf, amountCents: r.actualCents })),
+    forecast: { atCompletionCents: headlineForecast, finish: forecastFinish },
   });
+  const bac = hasUpgrades && labourCosted ? series.bac : null;
   const { pv, ev, ac } = series.current;
-  const figures = earnedValue({ bac: budget, pv, ev, ac });
+  const figures = earnedValue({ bac, pv, ev, ac, eac: headlineForecast });
   const rule = EV_CREDIT_RULES.find((r) => r.id === OVERVIEW_CREDIT_RULE)!;
+  const etcByUpgrade = new Map(recognition.forecast.upgrades.map((u) => [u.upgradeId, u]));
+  const budgeted = new Map(d.upgrades.map((u) => [u.id, roundHalfUpCents(u.estimatedHours * rate) + (partsBudget.get(u.id) ?? 0)]));
 
   const totals = rollup.build;
   const upgradeInfo = new Map(d.upgrades.map((u) => [u.id, u]));
@@ -143,6 +162,7 @@ export function computeOverview(build: OverviewBuild, d: OverviewData, now: stri
       startDate: build.startDate,
     },
     asOf,
+    timeZone: build.timeZone ?? DEFAULT_TIME_ZONE,
     labourCosted,
     headline: {
       budgetCents: budget,
@@ -152,8 +172,21 @@ export function computeOverview(build: OverviewBuild, d: OverviewData, now: stri
       netCents: totals.netCents,
       remainingCents: budget === null ? null : budget - totals.netCents,
       spentShare: budget ? totals.netCents / budget : null,
-      forecastCents: figures.eac === null ? null : Math.round(figures.eac),
-      forecastVarianceCents: figures.vac === null ? null : Math.round(figures.vac),
+      bacCents: bac,
+      reserveCents: budget === null || bac === null ? null : budget - bac,
+      actualCents: recognition.actualCents,
+      costRecognition: recognitionRule,
+      costRecognitionLabel: COST_RECOGNITION_LABELS[recognitionRule],
+      costRecognitionDescription: COST_RECOGNITION_DESCRIPTIONS[recognitionRule],
+      cash: recognition.cash,
+      pending: recognition.pending,
+      etcCents: headlineForecast === null ? null : recognition.forecast.etcCents,
+      remainingHours: recognition.forecast.remainingHours,
+      remainingLabourCents: labourCosted ? recognition.forecast.remainingLabourCents : null,
+      remainingPartsCents: recognition.forecast.remainingPartsCents,
+      plannedCents: recognition.forecast.plannedCents,
+      forecastCents: headlineForecast,
+      forecastVarianceCents: budget === null || headlineForecast === null ? null : budget - headlineForecast,
       estimatedHours: totals.estimatedHours,
       actualHours: totals.actualHours,
       valueAddedCents: totals.valueAddedCents,
@@ -167,12 +200,16 @@ export function computeOverview(build: OverviewBuild, d: OverviewData, now: stri
       rule: rule.id,
       ruleLabel: rule.label,
       ruleDescription: rule.description,
-      bac: budget,
+      bac,
       pv,
       ev,
       ac,
       ...figures,
-      forecastFinish: budget === null ? null : series.forecastFinish,
+      cpi: ratio(figures.cpi),
+      spi: ratio(figures.spi),
+      tcpi: ratio(figures.tcpi),
+      tcpiEac: ratio(figures.tcpiEac),
+      forecastFinish: series.forecastFinish,
       unscheduledPlannedCents: series.unscheduledPlannedCents,
     },
     upgrades: rollup.upgrades.map((r) => {
@@ -184,6 +221,9 @@ export function computeOverview(build: OverviewBuild, d: OverviewData, now: stri
         episodeId: u.episodeId,
         installState: u.installState,
         done: isUpgradeDone(u),
+        budgetedCents: budgeted.get(r.upgradeId) ?? 0,
+        etcCents: etcByUpgrade.get(r.upgradeId)?.etcCents ?? 0,
+        remainingHours: etcByUpgrade.get(r.upgradeId)?.remainingHours ?? 0,
         ...costRow(r, labourCosted),
       };
     }),
@@ -195,16 +235,32 @@ export function computeOverview(build: OverviewBuild, d: OverviewData, now: stri
   };
 }
 
-/** Remaining budget over time. Without a budget there is nothing to burn down: no points. */
+/**
+ * Remaining budget over time: budget − planned value, budget − actual cost, and budget − the forecast
+ * from the status date to the forecast finish. Without a budget there is nothing to burn down: no points.
+ */
 function burndown(budget: number | null, startDate: string, points: ReturnType<typeof earnedValueSeries>['points']): BurndownPoint[] {
   if (budget === null || points.length === 0) return [];
   const out: BurndownPoint[] = points.map((p) => ({
     date: p.date,
-    planned: p.remainingPlanned,
-    actual: p.remainingActual,
+    planned: budget - p.planned,
+    actual: p.actual === null ? null : budget - p.actual,
     forecast: p.forecast === null ? null : budget - p.forecast,
   }));
-  // The line starts from the whole budget on the build's first day.
+  // The lines start from the whole budget on the build's first day.
   if (startDate < out[0].date) out.unshift({ date: startDate, planned: budget, actual: budget, forecast: null });
   return out;
+}
+
+/**
+ * The plan's forecast finish: the latest shoot date of an episode holding unfinished work, or the
+ * latest expected arrival of its parts when that is later. Nothing left: the status date. Work left
+ * with no date at all: unknown (null).
+ */
+function planForecastFinish(d: OverviewData, shootOf: (u: { episodeId: number | null }) => string | null, asOf: string): string | null {
+  const open = d.upgrades.filter((u) => !isUpgradeDone(u));
+  if (open.length === 0) return asOf;
+  const ids = new Set(open.map((u) => u.id));
+  const finish = latest([...open.map(shootOf), ...d.arrivals.filter((a) => ids.has(a.upgradeId)).map((a) => a.expectedOn)]);
+  return finish || null;
 }

@@ -9,6 +9,8 @@ import { config } from '../config';
 
 export interface Entry {
   day: string;
+  /** The build's time zone when computed: the entry serves while it is still `day` there. */
+  zone: string;
   body: Buffer;
   /** The same bytes gzipped once, for clients that accept it (a browser always does). */
   gzipped: Buffer | null;
@@ -96,21 +98,41 @@ export function stamp(buildId: number): string {
   return `${listening ? 1 : 0}:${allGeneration}:${generations.get(buildId) ?? 0}`;
 }
 
-export function cached(buildId: number, day: string): Entry | null {
+/** The entry of a build while it is still its day: `today` gives the day in the entry's zone. */
+export function cached(buildId: number, today: (zone: string) => string): Entry | null {
   if (!listening) {
     void connect();
     return null;
   }
   const e = entries.get(buildId);
-  return e && e.day === day ? e : null;
+  return e && e.day === today(e.zone) ? e : null;
+}
+
+const inFlight = new Map<number, { key: string; entry: Promise<Entry> }>();
+
+/**
+ * One computation at a time per build and key (the stamp taken before reading, the day and the
+ * zone): concurrent misses wait for it instead of each reading and serialising the same figures.
+ * A request with another key (a change came in) computes for itself. Without the listening
+ * connection no change can be seen, so nothing is shared: a reader must see a write it just made.
+ */
+export function singleFlight(buildId: number, key: string, compute: () => Promise<Entry>): Promise<Entry> {
+  if (!key.startsWith('1:')) return compute();
+  const running = inFlight.get(buildId);
+  if (running && running.key === key) return running.entry;
+  const entry = compute().finally(() => {
+    if (inFlight.get(buildId)?.entry === entry) inFlight.delete(buildId);
+  });
+  inFlight.set(buildId, { key, entry });
+  return entry;
 }
 
 /** Serialises the figures once; keeps them when no change notice came in since `before`. */
-export function store(buildId: number, day: string, before: string, value: unknown): Entry {
+export function store(buildId: number, day: string, zone: string, before: string, value: unknown): Entry {
   const body = Buffer.from(JSON.stringify(value));
   const keep = listening && before.startsWith('1:') && before === stamp(buildId);
   // Compressing pays off only for a copy that will be sent many times.
-  const entry = { day, body, gzipped: keep && body.length > 1024 ? gzipSync(body, { level: 6 }) : null, etag: `W/"${createHash('sha1').update(body).digest('base64url')}"` };
+  const entry = { day, zone, body, gzipped: keep && body.length > 1024 ? gzipSync(body, { level: 6 }) : null, etag: `W/"${createHash('sha1').update(body).digest('base64url')}"` };
   if (keep) entries.set(buildId, entry);
   return entry;
 }

@@ -2,7 +2,7 @@
 // upgrade and by date, and sent back as compact JSON arrays (one row, one column per list).
 import { QueryTypes } from 'sequelize';
 import { sequelize } from '../db/sequelize';
-import type { Area, Disposition, EpisodeState, InstallState, SegmentState } from '../../shared/domain';
+import type { Area, Disposition, EpisodeState, InstallState, PartState, SegmentState } from '../../shared/domain';
 
 export interface OverviewData {
   upgrades: {
@@ -20,8 +20,10 @@ export interface OverviewData {
   episodes: { id: number; number: number; title: string; state: EpisodeState; shootDate: string | null }[];
   /** Hours per upgrade per day worked. */
   labour: { upgradeId: number; workedOn: string; hours: number }[];
-  /** Part lines (returned ones excluded) summed per upgrade per order date (or received date). */
-  parts: { upgradeId: number; spentOn: string | null; cents: number }[];
+  /** Part lines (returned ones excluded) summed per upgrade, state and dates. */
+  parts: { upgradeId: number; state: PartState; orderedOn: string | null; receivedOn: string | null; fittedOn: string | null; cents: number }[];
+  /** Latest expected arrival of parts not yet in hand, per upgrade (only where one is set). */
+  arrivals: { upgradeId: number; expectedOn: string }[];
   expenses: { upgradeId: number | null; spentOn: string; cents: number }[];
   /** Removed parts sold or for sale, summed per upgrade, disposition and sale date. */
   removed: { upgradeId: number | null; disposition: Disposition; soldOn: string | null; expectedCents: number; actualCents: number }[];
@@ -37,10 +39,13 @@ WITH
   e AS (SELECT id, number, title, state, shoot_date FROM episodes WHERE build_id = $1),
   l AS (SELECT upgrade_id, worked_on, sum(hours) AS hours
           FROM labour_entries WHERE build_id = $1 GROUP BY upgrade_id, worked_on),
-  p AS (SELECT upgrade_id, coalesce(ordered_on, received_on) AS spent_on,
+  p AS (SELECT upgrade_id, state, ordered_on, received_on, fitted_on,
                sum(quantity::bigint * unit_cost_cents) AS cents
           FROM parts WHERE build_id = $1 AND state <> 'returned'
-         GROUP BY upgrade_id, coalesce(ordered_on, received_on)),
+         GROUP BY upgrade_id, state, ordered_on, received_on, fitted_on),
+  a AS (SELECT upgrade_id, max(expected_arrival) AS expected_on
+          FROM parts WHERE build_id = $1 AND state IN ('to_order','ordered','backordered') AND expected_arrival IS NOT NULL
+         GROUP BY upgrade_id),
   x AS (SELECT upgrade_id, spent_on, sum(amount_cents::bigint) AS cents
           FROM expenses WHERE build_id = $1 GROUP BY upgrade_id, spent_on),
   r AS (SELECT upgrade_id, disposition, sold_on,
@@ -53,7 +58,8 @@ SELECT
           install_state, install_segment, demo_segment, installed_on) ORDER BY id), '[]') FROM u) AS upgrades,
   (SELECT coalesce(json_agg(json_build_array(id, number, title, state, shoot_date) ORDER BY number), '[]') FROM e) AS episodes,
   (SELECT coalesce(json_agg(json_build_array(upgrade_id, worked_on, hours)), '[]') FROM l) AS labour,
-  (SELECT coalesce(json_agg(json_build_array(upgrade_id, spent_on, cents)), '[]') FROM p) AS parts,
+  (SELECT coalesce(json_agg(json_build_array(upgrade_id, state, ordered_on, received_on, fitted_on, cents)), '[]') FROM p) AS parts,
+  (SELECT coalesce(json_agg(json_build_array(upgrade_id, expected_on)), '[]') FROM a) AS arrivals,
   (SELECT coalesce(json_agg(json_build_array(upgrade_id, spent_on, cents)), '[]') FROM x) AS expenses,
   (SELECT coalesce(json_agg(json_build_array(upgrade_id, disposition, sold_on, expected, actual)), '[]') FROM r) AS removed
 `;
@@ -83,7 +89,15 @@ export async function loadOverviewData(buildId: number): Promise<OverviewData> {
       shootDate: shootDate as string | null,
     })),
     labour: row.labour.map(([upgradeId, workedOn, hours]) => ({ upgradeId: upgradeId as number, workedOn: workedOn as string, hours: hours as number })),
-    parts: row.parts.map(([upgradeId, spentOn, cents]) => ({ upgradeId: upgradeId as number, spentOn: spentOn as string | null, cents: Number(cents) })),
+    parts: row.parts.map(([upgradeId, state, orderedOn, receivedOn, fittedOn, cents]) => ({
+      upgradeId: upgradeId as number,
+      state: state as PartState,
+      orderedOn: orderedOn as string | null,
+      receivedOn: receivedOn as string | null,
+      fittedOn: fittedOn as string | null,
+      cents: Number(cents),
+    })),
+    arrivals: row.arrivals.map(([upgradeId, expectedOn]) => ({ upgradeId: upgradeId as number, expectedOn: expectedOn as string })),
     expenses: row.expenses.map(([upgradeId, spentOn, cents]) => ({ upgradeId: upgradeId as number | null, spentOn: spentOn as string, cents: Number(cents) })),
     removed: row.removed.map(([upgradeId, disposition, soldOn, expected, actual]) => ({
       upgradeId: upgradeId as number | null,

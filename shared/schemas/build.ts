@@ -2,6 +2,8 @@
 // with shared/vin.ts: a wrong check digit is refused unless the person overrides it on purpose.
 import { z } from 'zod';
 import { checkVin } from '../vin';
+import { isValidTimeZone } from '../dates';
+import { COST_RECOGNITIONS } from '../costRecognition';
 import { cents, isoDate, optionalText, requiredText, text } from './common';
 
 const slug = z
@@ -42,6 +44,8 @@ const fields = {
   isPublic: z.boolean(),
   campaign,
   summary: optionalText(2000),
+  timeZone: z.string().trim().refine(isValidTimeZone, 'must be an IANA time zone name such as America/Denver'),
+  costRecognition: z.enum(COST_RECOGNITIONS, 'must be at fitting or at receipt'),
 };
 
 /** Adds the VIN check: structural problems always refuse; a wrong check digit refuses unless overridden. */
@@ -70,6 +74,8 @@ export const createBuildSchema = z
     isPublic: fields.isPublic.optional(),
     campaign: fields.campaign.optional(),
     summary: fields.summary.optional(),
+    timeZone: fields.timeZone.optional(),
+    costRecognition: fields.costRecognition.optional(),
   })
   .superRefine(vinRule);
 
@@ -93,6 +99,8 @@ export const updateBuildSchema = z
     isPublic: fields.isPublic.optional(),
     campaign: fields.campaign.optional(),
     summary: fields.summary.optional(),
+    timeZone: fields.timeZone.optional(),
+    costRecognition: fields.costRecognition.optional(),
     version: z.number().int().min(0),
   })
   .superRefine(vinRule);

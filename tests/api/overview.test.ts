@@ -146,12 +146,22 @@ describe('GET /api/builds/:buildId/overview', () => {
       valueAddedCents: 165_000,
     });
     expect(o.headline.spentShare).toBeCloseTo(0.114832, 12);
-    // Earned value, 0/100: PV = U1 (4 h × 85.50 + 300) + U2 (500) by their shoot dates; U3 has none.
-    // EV = U1's budget (done); AC = the net cost so far.
-    expect(o.earnedValue).toMatchObject({ rule: '0/100', bac: 1_000_000, pv: 114_200, ev: 64_200, ac: 114_832, unscheduledPlannedCents: 17_100 });
-    const f = earnedValue({ bac: 1_000_000, pv: 114_200, ev: 64_200, ac: 114_832 });
-    for (const k of ['cv', 'sv', 'cpi', 'spi', 'eac', 'etc', 'vac', 'tcpi'] as const) expect(o.earnedValue[k]).toBeCloseTo(f[k]!, 9);
-    expect(o.headline.forecastCents).toBe(Math.round(f.eac!));
+    // BAC = the upgrades' budgeted cost: U1 4 h × 85.50 + 300 = 642; U2 0 h + 500; U3 2 h × 85.50 = 171.
+    // Reserve = 10,000 − 1,313 = 8,687.
+    expect(o.headline).toMatchObject({ bacCents: 131_300, reserveCents: 868_700, costRecognition: 'fitting' });
+    // Earned value, 0/100: all shoot dates are past, and U3 (in no episode) is planned on the last
+    // one, so PV = BAC. EV = U1's budget (done). AC at fitting: U1's parts (its upgrade is installed),
+    // all labour, expenses less the sale: 300 + 320.63 + 40.19 + 45 + 12.50 − 70 = 648.32; U2's
+    // $500 part, not ordered, is not actual cost yet.
+    expect(o.earnedValue).toMatchObject({ rule: '0/100', bac: 131_300, pv: 131_300, ev: 64_200, ac: 64_832, unscheduledPlannedCents: 17_100 });
+    expect(o.headline.actualCents).toBe(64_832);
+    expect(o.headline.pending).toEqual({ receivedNotFittedCents: 0, committedCents: 0, notOrderedCents: 50_000, laterDatedCents: 0 });
+    // Cash: paid = labour 360.82 + expenses 57.50 − sale 70; committed = U1's ordered parts; not ordered = U2's part.
+    expect(o.headline.cash).toEqual({ paidCents: 34_832, committedCents: 30_000, notOrderedCents: 50_000, netCents: 114_832 });
+    // Bottom-up: AC + U2 (0 h left, $500 of parts) + U3 (2 h × 85.50) = 648.32 + 500 + 171 = 1,319.32.
+    expect(o.headline).toMatchObject({ etcCents: 67_100, forecastCents: 131_932, forecastVarianceCents: 868_068, remainingHours: 2 });
+    const f = earnedValue({ bac: 131_300, pv: 131_300, ev: 64_200, ac: 64_832, eac: 131_932 });
+    for (const k of ['cv', 'sv', 'cpi', 'spi', 'eacCpi', 'eacOneOff', 'eacComposite', 'tcpi', 'tcpiEac'] as const) expect(o.earnedValue[k]).toBeCloseTo(f[k]!, 5);
     expect(o.earnedValue.ruleDescription).toMatch(/done/);
     // Areas in the vehicle's order; episodes by number, then the upgrades in no episode.
     expect(o.areas.map((a) => [a.area, a.upgrades])).toEqual([['front', 1], ['rear', 1], ['cabin', 1]]);
@@ -159,7 +169,9 @@ describe('GET /api/builds/:buildId/overview', () => {
     // The burndown starts from the whole budget and ends where the budget stands now.
     expect(o.burndown[0]).toMatchObject({ date: '2025-01-06', planned: 1_000_000, actual: 1_000_000 });
     const lastActual = o.burndown.filter((p) => p.actual !== null).at(-1)!;
-    expect(lastActual.actual).toBe(885_168);
+    expect(lastActual.actual).toBe(1_000_000 - 64_832);
+    expect(o.burndown.at(-1)!.planned).toBe(868_700); // the plan ends on the reserve
+    expect(o.burndown.at(-1)!.forecast).toBe(868_068); // the forecast ends on budget − the headline forecast
     await expectAgreesWithDatabase(o, handMade.id);
   });
 
@@ -207,8 +219,8 @@ describe('builds with missing inputs show nulls, never NaN or Infinity', () => {
     expect(nonFinite(o)).toEqual([]);
     expect(o.upgrades).toEqual([]);
     expect(o.headline).toMatchObject({ netCents: 0, spentCents: 0, remainingCents: 1_000_000, valuePerDollar: null, upgradesTotal: 0, episodesTotal: 0 });
-    expect(o.earnedValue).toMatchObject({ pv: 0, ev: 0, ac: 0, cpi: null, spi: null, eac: null, etc: null, vac: null });
-    expect(o.headline.forecastCents).toBeNull();
+    expect(o.earnedValue).toMatchObject({ bac: null, pv: 0, ev: 0, ac: 0, cpi: null, spi: null, eac: null, etc: null, vac: null, eacCpi: null, eacComposite: null });
+    expect(o.headline).toMatchObject({ forecastCents: null, bacCents: null, reserveCents: null, etcCents: null });
     expect((await owner.get(`/api/builds/${b.id}/overview`)).status).toBe(200);
   });
 
@@ -219,8 +231,9 @@ describe('builds with missing inputs show nulls, never NaN or Infinity', () => {
     await labour(b.id, u.id, '2025-02-02', 1);
     const o = await buildOverview(b);
     expect(nonFinite(o)).toEqual([]);
-    expect(o.headline).toMatchObject({ budgetCents: null, remainingCents: null, spentShare: null, forecastCents: null, forecastVarianceCents: null, netCents: 20_550 });
-    expect(o.earnedValue).toMatchObject({ bac: null, eac: null, vac: null, tcpi: null, forecastFinish: null });
+    // The part is ordered, not fitted: it is not actual cost; the forecast still counts it.
+    expect(o.headline).toMatchObject({ budgetCents: null, remainingCents: null, spentShare: null, forecastCents: 20_550, forecastVarianceCents: null, reserveCents: null, netCents: 20_550, bacCents: 20_550 });
+    expect(o.earnedValue).toMatchObject({ bac: 20_550, ev: 0, ac: 8_550, cpi: 0, eac: null, vac: null });
     expect(o.burndown).toEqual([]);
   });
 
@@ -235,6 +248,7 @@ describe('builds with missing inputs show nulls, never NaN or Infinity', () => {
     expect(o.upgrades[0]).toMatchObject({ labourCents: null, actualHours: 3, partsCents: 8_000, netCents: 8_000 });
     expect(o.totals.labourCents).toBeNull();
     expect(o.headline.actualHours).toBe(3);
+    expect(o.headline).toMatchObject({ forecastCents: null, etcCents: null, bacCents: null, reserveCents: null, remainingLabourCents: null });
   });
 
   it('a build whose upgrades are all estimated at zero hours', async () => {
@@ -245,7 +259,8 @@ describe('builds with missing inputs show nulls, never NaN or Infinity', () => {
     expect(nonFinite(o)).toEqual([]);
     expect(o.upgrades.every((u) => u.hoursRatio === null && u.valuePerDollar === null)).toBe(true);
     expect(o.totals.hoursRatio).toBeNull();
-    expect(o.headline).toMatchObject({ estimatedHours: 0, actualHours: 0, spentShare: null });
+    expect(o.headline).toMatchObject({ estimatedHours: 0, actualHours: 0, spentShare: null, bacCents: 0, reserveCents: 0, forecastCents: 0 });
+    expect(o.earnedValue).toMatchObject({ cpi: null, spi: null, eacCpi: null, eacComposite: null, tcpi: null, tcpiEac: null });
   });
 });
 

@@ -2,6 +2,8 @@
 import { describe, expect, it } from 'vitest';
 import { rollUpCosts, roundHalfUpCents, type CostInput, type CostRow } from '../../shared/costs';
 import type { Area, Disposition, PartState } from '../../shared/domain';
+import { recogniseCosts, type CostRecognition, type RecognitionInput } from '../../shared/costRecognition';
+import { earnedValue } from '../../shared/earnedValue';
 
 // Hand-made: rate $85.50/h. Every figure below is worked by hand from these lines.
 const input: CostInput = {
@@ -137,5 +139,79 @@ describe('totals equal the sum of rows, to the cent, on random builds', () => {
       expect(sum(r.episodes)).toEqual(money(r.build));
       expect(money(r.build).every(Number.isInteger)).toBe(true);
     }
+  });
+});
+
+// When material cost is recognised. EIA-748-D, Guideline 21 (as quoted by Humphreys & Associates,
+// "Earning Value for Material – The Correct Approach, Part 2"): material earned value is taken at the
+// point most suitable for the category of material, and no earlier than its receipt. Humphreys &
+// Associates, "Aligning BCWP with ACWP for Proper EVM" (2013): under that guideline actual cost of
+// material is not to enter the earned-value figures before its earned value does — costs held in
+// stock wait until the material is issued. Hence "at fitting" (the default: cost and earned value of
+// a part land on the same work) and "at receipt" (the earliest point the guideline allows).
+describe('cost recognition, the cash view and the bottom-up forecast (issue 12 worked check)', () => {
+  // By hand, from the issue: budget $10,000, labour $100/h. A done: 10 h estimated and logged,
+  // $1,000 of parts fitted. B not started: 10 h, $3,000 of parts received, not fitted. C not
+  // started: 5 h, $500 of parts not yet ordered. BAC = 2,000 + 4,000 + 1,000 = $7,000.
+  const check = (recognition: CostRecognition): RecognitionInput => ({
+    recognition,
+    asOf: '2026-03-10',
+    labourRateCents: 10_000,
+    upgrades: [
+      { id: 1, estimatedHours: 10, installState: 'installed', installedOn: '2026-03-05', done: true },
+      { id: 2, estimatedHours: 10, installState: 'queued', installedOn: null, done: false },
+      { id: 3, estimatedHours: 5, installState: 'queued', installedOn: null, done: false },
+    ],
+    parts: [
+      { upgradeId: 1, state: 'fitted', cents: 100_000, orderedOn: '2026-02-01', receivedOn: '2026-02-10', fittedOn: '2026-03-04' },
+      { upgradeId: 2, state: 'received', cents: 300_000, orderedOn: '2026-02-01', receivedOn: '2026-02-12', fittedOn: null },
+      { upgradeId: 3, state: 'to_order', cents: 50_000, orderedOn: null, receivedOn: null, fittedOn: null },
+    ],
+    labour: [{ upgradeId: 1, workedOn: '2026-03-03', hours: 10 }],
+    expenses: [],
+    recoveries: [],
+  });
+  const ev = (ac: number) => earnedValue({ bac: 700_000, pv: 700_000, ev: 200_000, ac });
+
+  it('at fitting: AC $2,000, CPI 1, forecast $7,000', () => {
+    const r = recogniseCosts(check('fitting'));
+    expect(r.actualCents).toBe(200_000);
+    expect(r.forecast.atCompletionCents).toBe(700_000); // 2,000 + (1,000 + 3,000) + (500 + 500)
+    expect(r.forecast.upgrades.map((u) => u.etcCents)).toEqual([0, 400_000, 100_000]);
+    expect(ev(r.actualCents).cpi).toBe(1);
+    expect(r.partDates).toEqual(['2026-03-04', null, null]);
+  });
+
+  it('at receipt: AC $5,000, CPI 0.4, BAC / CPI $17,500, and the forecast is still $7,000', () => {
+    const r = recogniseCosts(check('receipt'));
+    expect(r.actualCents).toBe(500_000);
+    expect(ev(r.actualCents).cpi).toBe(0.4);
+    expect(ev(r.actualCents).eacCpi).toBeCloseTo(1_750_000, 6);
+    expect(r.forecast.atCompletionCents).toBe(700_000);
+    expect(r.partDates).toEqual(['2026-02-10', '2026-02-12', null]);
+  });
+
+  it('the cash view and the recognised view both sum to the roll-up’s net cost, to the cent', () => {
+    for (const mode of ['fitting', 'receipt'] as const) {
+      const r = recogniseCosts(check(mode));
+      // Paid: 1,000 labour + 1,000 + 3,000 parts in hand; nothing ordered and waiting; 500 not ordered.
+      expect(r.cash).toEqual({ paidCents: 500_000, committedCents: 0, notOrderedCents: 50_000, netCents: 550_000 });
+      const p = r.pending;
+      expect(r.actualCents + p.receivedNotFittedCents + p.committedCents + p.notOrderedCents + p.laterDatedCents).toBe(550_000);
+      expect(r.netCents).toBe(550_000);
+    }
+  });
+
+  it('money dated after the status date is planned, not actual, and still in the forecast', () => {
+    const input = check('fitting');
+    input.labour.push({ upgradeId: 2, workedOn: '2026-03-11', hours: 1.5 });
+    input.expenses.push({ upgradeId: 2, spentOn: '2026-03-20', cents: 2_500 });
+    input.parts.push({ upgradeId: 2, state: 'ordered', cents: 7_000, orderedOn: '2026-03-09', receivedOn: null, fittedOn: null });
+    const r = recogniseCosts(input);
+    expect(r.actualCents).toBe(200_000);
+    // B: 8.5 h left × $100 = 850 + 1.5 h dated later 150 + expense 25 + parts 3,000 + 70.
+    expect(r.forecast.upgrades[1]).toMatchObject({ remainingHours: 8.5, labourCents: 85_000, plannedCents: 17_500, partsCents: 307_000 });
+    expect(r.forecast.atCompletionCents).toBe(200_000 + 85_000 + 17_500 + 307_000 + 100_000);
+    expect(r.cash).toEqual({ paidCents: 500_000, committedCents: 7_000 + 17_500, notOrderedCents: 50_000, netCents: 574_500 });
   });
 });

@@ -3,6 +3,57 @@ import { describe, expect, it } from 'vitest';
 import { EV_CREDIT_RULES, earnedValue, earnedValueSeries, type EvSeriesInput } from '../../shared/earnedValue';
 import { rollUpCosts } from '../../shared/costs';
 
+describe('the index-based estimates at completion and the to-complete indices', () => {
+  it('match the "EVM forecasting" poster of wikislate.com (poster 15, figures from poster 14)', () => {
+    // Published: BAC 100, EV 40, AC 45 ($k), CPI 0.89, SPI 0.80 (so PV 50) → EAC = BAC/CPI $112.5k,
+    // ETC $67.5k, VAC −$12.5k, EAC (cost × schedule) ≈ $129k, TCPI to BAC 1.09.
+    const f = earnedValue({ bac: 100, pv: 50, ev: 40, ac: 45 });
+    expect(f.cpi).toBeCloseTo(0.89, 2);
+    expect(f.spi).toBeCloseTo(0.8, 12);
+    expect(f.eacCpi).toBeCloseTo(112.5, 9);
+    expect(f.etc).toBeCloseTo(67.5, 9);
+    expect(f.vac).toBeCloseTo(-12.5, 9);
+    // 45 + 60 / (0.8889 × 0.8) = 129.375: the poster prints it as "≈ 129".
+    expect(f.eacComposite).toBeCloseTo(129.375, 9);
+    expect(Math.round(f.eacComposite!)).toBe(129);
+    expect(f.tcpi).toBeCloseTo(1.09, 2);
+    // Not on the poster; the one-off formula on its figures, by hand: 45 + (100 − 40) = 105.
+    expect(f.eacOneOff).toBe(105);
+  });
+
+  it('match the TCPI-against-EAC question discussed on pmzilla.com ("tcpi")', () => {
+    // Published: AC $200,000, CV $25,000, BAC $350,000 → EV $225,000, CPI 1.125; with the one-off
+    // EAC = AC + (BAC − EV) = $325,000 the TCPI against it is 1; with EAC = BAC / CPI (printed
+    // rounded as $311,000) the TCPI is 1.125.
+    const oneOff = earnedValue({ bac: 350_000, pv: null, ev: 225_000, ac: 200_000, eac: 325_000 });
+    expect(oneOff.cpi).toBe(1.125);
+    expect(oneOff.eacOneOff).toBe(325_000);
+    expect(oneOff.tcpiEac).toBe(1);
+    const typical = earnedValue({ bac: 350_000, pv: null, ev: 225_000, ac: 200_000 });
+    // The page rounds EAC to $311,000 (125,000 / 111,000 = 1.126); the exact EAC 311,111.11 gives 1.125.
+    expect(Math.abs(typical.eacCpi! - 311_000)).toBeLessThan(112);
+    const withTypical = earnedValue({ bac: 350_000, pv: null, ev: 225_000, ac: 200_000, eac: typical.eacCpi });
+    expect(withTypical.tcpiEac).toBeCloseTo(1.125, 9);
+    expect(typical.eacComposite).toBeNull(); // no PV, so no SPI: that estimate cannot be made
+  });
+
+  it('allows the difference of a book that rounds CPI before dividing (Heldman-style exam text on gristprojectmanagement.us, "EAC using the CPI")', () => {
+    // Published: BAC $500,000, EV $150,000, AC $162,000, "CPI is calculated as .93", EAC =
+    // 162,000 + 350,000 / .93 = $538,344. Exact CPI is 0.925926, so EAC = AC + (BAC − EV) / CPI =
+    // BAC / CPI = $540,000: the book's rounding of CPI to two places costs $1,656, which we allow.
+    const f = earnedValue({ bac: 500_000, pv: null, ev: 150_000, ac: 162_000 });
+    expect(f.cpi).toBeCloseTo(0.93, 2);
+    expect(f.eacCpi).toBeCloseTo(540_000, 6);
+    expect(Math.abs(f.eacCpi! - 538_344)).toBeLessThanOrEqual(1_656);
+    expect(Math.round(162_000 + 350_000 / 0.93)).toBe(538_344); // the book's own arithmetic
+  });
+
+  it('leaves every estimate out (null) without a CPI, and TCPI against the estimate without one', () => {
+    const f = earnedValue({ bac: 1000, pv: 0, ev: 0, ac: 0, eac: 0 });
+    expect(f).toMatchObject({ eacCpi: null, eacComposite: null, eacOneOff: 1000, tcpiEac: null });
+  });
+});
+
 describe('earnedValue point figures', () => {
   it('matches the four-sided fence exercise (Mulcahy, PMP Exam Prep, p. 210, via studylib "Earned Value Exercise")', () => {
     // Published: PV 3,000, EV 2,500, AC 2,800, BAC 4,000 → CV −300, CPI .893, SV −500, SPI .833,
@@ -38,6 +89,7 @@ describe('earnedValue point figures', () => {
   it('gives null, never Infinity or NaN, on any division by zero, and propagates null', () => {
     expect(earnedValue({ bac: 1000, pv: 0, ev: 0, ac: 0 })).toEqual({
       cv: 0, sv: 0, cpi: null, spi: null, eac: null, etc: null, vac: null, tcpi: 1,
+      eacCpi: null, eacOneOff: 1000, eacComposite: null, tcpiEac: null,
     });
     expect(earnedValue({ bac: 500, pv: 100, ev: 0, ac: 500 })).toMatchObject({ cpi: 0, eac: null, etc: null, tcpi: null });
     expect(earnedValue({ bac: null, pv: 100, ev: 50, ac: 40 })).toMatchObject({ cv: 10, sv: -50, eac: null, vac: null, tcpi: null });
@@ -128,5 +180,26 @@ describe('earnedValueSeries', () => {
     const none = earnedValueSeries({ ...build(), asOf: '2025-01-05' });
     expect(none.current.cpi).toBe(0);
     expect(none.points.every((p) => p.forecast === null)).toBe(true);
+  });
+
+  it('ends planned value at BAC, the sum of the upgrades’ budgeted cost, with unscheduled work on the plan’s end', () => {
+    // By hand: 25,000 + 30,000 + 20,000 + U4 (2 h × $100 = 20,000, no shoot date) = 95,000.
+    const input = build();
+    input.bacCents = null;
+    input.upgrades.push({ id: 4, estimatedHours: 2, partsBudgetCents: 0, shootDate: null, doneOn: null });
+    const s = earnedValueSeries({ ...input, unscheduledOn: '2025-02-07' });
+    expect(s.bac).toBe(95_000);
+    expect(s.points.at(-1)!.planned).toBe(95_000);
+    expect(s.unscheduledPlannedCents).toBe(20_000);
+  });
+
+  it('draws the forecast from the status date’s actual cost to the given estimate on the given finish', () => {
+    const s = earnedValueSeries({ ...build(), bacCents: null, forecast: { atCompletionCents: 90_000, finish: '2025-02-07' } });
+    const at = (d: string) => s.points.find((p) => p.date === d)!;
+    expect(at('2025-01-21').forecast).toBe(41_234);
+    // 60 % of the plan after the status date falls on 01-24 (30,000 of 50,000): 41,234 + 0.6 × 48,766.
+    expect(at('2025-01-24').forecast).toBe(70_494);
+    expect(at('2025-02-07').forecast).toBe(90_000);
+    expect(s.forecastFinish).toBe('2025-02-07');
   });
 });

@@ -21,6 +21,7 @@ export const TERN_BUILD = {
   shootHoursPerEpisode: 8,
   releaseCadenceDays: 7,
   startDate: '2026-09-22',
+  timeZone: 'America/Denver',
   isPublic: true,
   campaign: 'project-tern',
   summary:
