@@ -21,6 +21,7 @@ import { linkHealthRouter, campaignRouter } from './linkHealth';
 import { viewerRequestsRouter } from './viewerRequests';
 import { publicRouter } from './public';
 import { invitationsRouter } from './invitations';
+import { slipsRouter, noticesRouter } from './slips';
 
 interface Mount {
   prefix: string;
@@ -53,6 +54,8 @@ function mounts(): Mount[] {
     { prefix: '/api/builds/:buildId/viewer-requests', router: viewerRequestsRouter() },
     { prefix: '/api/public', router: publicRouter() },
     { prefix: '/api/invitations', router: invitationsRouter() },
+    { prefix: '/api/builds/:buildId/slips', router: slipsRouter() },
+    { prefix: '/api/builds/:buildId/notices', router: noticesRouter() },
   ];
 }
 
