@@ -2,7 +2,7 @@
 // back, releases at risk, notices with an unread badge, and each episode's baseline against now.
 import { describe, it, beforeAll, afterAll } from 'vitest';
 import { openBrowser, signIn, audit, visit, startAppServer, type AppServer } from '../helpers/browser';
-import { Build, Part } from '../../server/models';
+import { Build, Episode, Part } from '../../server/models';
 import { updatePart } from '../../server/services/parts';
 
 let server: AppServer;
@@ -32,8 +32,8 @@ describe('slips on the planner', () => {
       // The supplier pushes the charging pad past the shoot: the producer records it (as the parts screen does).
       const pad = (await Part.findOne({ where: { buildId, partNumber: 'HT-WCP-9510' } }))!;
       const build = (await Build.findByPk(buildId))!;
-      const [{ shoot_date }] = (await Build.sequelize!.query("SELECT to_char(shoot_date, 'YYYY-MM-DD') AS shoot_date FROM episodes WHERE build_id = :b AND title = 'Ready to tow'", { replacements: { b: buildId }, type: 'SELECT' as never })) as { shoot_date: string }[];
-      const due = new Date(Date.parse(`${shoot_date}T00:00:00Z`) + 4 * 86_400_000).toISOString().slice(0, 10);
+      const episode = (await Episode.findOne({ where: { buildId, title: 'Ready to tow' } }))!;
+      const due = new Date(Date.parse(`${episode.shootDate}T00:00:00Z`) + 4 * 86_400_000).toISOString().slice(0, 10);
       await updatePart({ id: 2, name: 'Theo Okafor', roles: ['producer'] }, build, pad.id, { expectedArrival: due, version: pad.version });
 
       await page.reload();
