@@ -22,6 +22,7 @@ import { viewerRequestsRouter } from './viewerRequests';
 import { publicRouter } from './public';
 import { invitationsRouter } from './invitations';
 import { mailRouter } from './mail';
+import { slipsRouter, noticesRouter } from './slips';
 
 interface Mount {
   prefix: string;
@@ -55,6 +56,8 @@ function mounts(): Mount[] {
     { prefix: '/api/public', router: publicRouter() },
     { prefix: '/api/invitations', router: invitationsRouter() },
     { prefix: '/api/mail', router: mailRouter() },
+    { prefix: '/api/builds/:buildId/slips', router: slipsRouter() },
+    { prefix: '/api/builds/:buildId/notices', router: noticesRouter() },
   ];
 }
 

@@ -1,10 +1,12 @@
 // Parts on a build's upgrades: list with filters and paging, create, update field by field per role
 // (marketing: product page only; installer: receive or fit), delete.
-import { type WhereOptions } from 'sequelize';
+import { type Transaction, type WhereOptions } from 'sequelize';
 import { sequelize, Build, Part } from '../models';
 import { badRequest, forbidden, notFound } from '../errors';
 import { diff, record } from './activity';
 import { forViewer } from './visibility';
+import { noticePartMovedLater, refreshSlipNotices } from './slips';
+import { toDay } from '../../shared/planner/dates';
 import { changedFields, requireUpgradeInBuild, stale, toPartRecord, type Person } from './backlogRecords';
 import { INSTALLER_PART_FIELDS, INSTALLER_PART_STATES, MARKETING_PART_FIELDS, type CreatePartInput, type UpdatePartInput } from '../../shared/schemas/part';
 
@@ -71,9 +73,30 @@ export async function updatePart(actor: Person, build: Build, id: number, input:
     await p.save({ transaction: t });
     const after = toPartRecord(p);
     const changes = diff(before, after);
-    await record(t, { actor, buildId: build.id, entity: 'part', entityId: p.id, action: 'update', summary: `Changed part ${p.partNumber}: ${changedFields(changes)}`, changes });
+    const moved = arrivalMove(before.expectedArrival, after.expectedArrival);
+    const summary = moved ? `${moved} for part ${p.partNumber}` : `Changed part ${p.partNumber}: ${changedFields(changes)}`;
+    await record(t, { actor, buildId: build.id, entity: 'part', entityId: p.id, action: 'update', summary, changes });
+    await afterPartChange(t, build, before, after);
     return after;
   });
+}
+
+/** "Expected arrival moved from A to B (n days later)" when the date changed, else null. */
+function arrivalMove(from: string | null, to: string | null): string | null {
+  if (from === to) return null;
+  if (!to) return `Expected arrival cleared (was ${from})`;
+  if (!from) return `Expected arrival set to ${to}`;
+  const days = toDay(to) - toDay(from);
+  return `Expected arrival moved from ${from} to ${to} (${Math.abs(days)} day${Math.abs(days) === 1 ? '' : 's'} ${days > 0 ? 'later' : 'earlier'})`;
+}
+
+/** A part coming later, or no longer coming, can make episodes slip: recompute and tell producers. */
+async function afterPartChange(t: Transaction, build: Build, before: ReturnType<typeof toPartRecord>, after: ReturnType<typeof toPartRecord>) {
+  const later = after.expectedArrival && (!before.expectedArrival || after.expectedArrival > before.expectedArrival);
+  const stateChanged = before.state !== after.state;
+  if (!later && !stateChanged) return;
+  if (later && !['received', 'fitted', 'returned'].includes(after.state)) await noticePartMovedLater(t, build, { id: after.id, partNumber: after.partNumber, description: after.description }, before.expectedArrival, after.expectedArrival!);
+  await refreshSlipNotices(t, build);
 }
 
 export async function deletePart(actor: Person, build: Build, id: number) {

@@ -8,6 +8,8 @@ import { LOCKED_STATES, listEpisodes, renumber } from './episodes';
 import { capacityOf, currentPlan, loadPlanData, plannerInput, today, type Capacity, type PlanData } from './planData';
 import { minimumShopDays, proposePlan, validatePlan, type PlannerInput, type PlanViolation } from '../../shared/planner/index';
 import { findCycle } from '../../shared/planner/criticalPath';
+import { bayForecast } from '../../shared/planner/forecast';
+import { toDay } from '../../shared/planner/dates';
 import { AREA_LABELS, type EpisodeRecord } from '../../shared/domain';
 import type { PlanInputBody } from '../../shared/schemas/episode';
 
@@ -19,6 +21,9 @@ function addDays(iso: string, days: number) {
   d.setUTCDate(d.getUTCDate() + days);
   return d.toISOString().slice(0, 10);
 }
+
+/** Whole days from one ISO date to another (negative when `to` is earlier). */
+const daysBetween = (from: string, to: string) => toDay(to) - toDay(from);
 
 function cycleTitles(data: PlanData, ids: number[]) {
   const title = new Map(data.upgrades.map((u) => [u.id, u.title]));
@@ -35,20 +40,51 @@ function refuseCycle(data: PlanData) {
   throw new AppError(422, 'cycle', `Prerequisites form a cycle: ${[...titles, titles[0]].join(' → ')}. Remove one of these prerequisites first.`, undefined, { cycle: titles, cycleIds: cycle });
 }
 
-/** Shortest possible remaining work (critical path over hours left) and the earliest finish it allows. */
-export function criticalSummary(data: PlanData, input: PlannerInput) {
+/**
+ * The earliest the remaining work can be done with one bay: prerequisites, the day each upgrade's
+ * parts are due (an upgrade cannot start before) and the shop's hours per week (shared/planner/forecast).
+ * Names the chain that sets the date and, when the bay has to wait for one, the late part behind it.
+ */
+export async function criticalSummary(data: PlanData, input: PlannerInput) {
   const hoursPerDay = input.shopHoursPerWeek / SHOP_DAYS_PER_WEEK;
   const r = minimumShopDays(data.upgrades, hoursPerDay);
   if (!r.ok) return null;
+  const now = today();
+  const forecast = bayForecast(
+    data.upgrades.map((u) => ({
+      id: u.id,
+      hours: u.installState === 'installed' ? 0 : u.estimatedHours,
+      release: u.partsDueDate ? Math.max(0, daysBetween(now, u.partsDueDate)) : 0,
+      prerequisiteIds: u.prerequisiteIds,
+    })),
+    input.shopHoursPerWeek,
+  );
+  if (!forecast.ok) return null;
   const title = new Map(data.upgrades.map((u) => [u.id, u.title]));
-  const weeks = r.days / SHOP_DAYS_PER_WEEK;
+  const drivingPart = forecast.drivenByRelease === null ? null : await latePart(forecast.drivenByRelease, title.get(forecast.drivenByRelease) ?? '');
+  const finishDays = Math.ceil(forecast.days - 1e-9);
   return {
     hours: r.hours,
     days: r.days,
     hoursPerDay,
-    critical: r.critical.filter((id) => (data.upgrades.find((u) => u.id === id)?.installState ?? 'installed') !== 'installed').map((id) => ({ id, title: title.get(id) ?? `#${id}` })),
-    earliestFinish: r.days === 0 ? today() : addDays(today(), Math.ceil(weeks * 7)),
+    /** What sets the earliest finish: a part the bay must wait for, or the hours of work themselves. */
+    limitedBy: drivingPart ? ('parts' as const) : ('hours' as const),
+    critical: forecast.critical.map((id) => ({ id, title: title.get(id) ?? `#${id}` })),
+    drivingPart,
+    earliestFinish: addDays(now, finishDays),
   };
+}
+
+/** The part that holds an upgrade back longest: the latest expected arrival among parts not yet in. */
+async function latePart(upgradeId: number, upgradeTitle: string) {
+  const [row] = await sequelize.query<{ id: number; part_number: string; description: string; expected: string }>(
+    `SELECT id, part_number, description, to_char(expected_arrival, 'YYYY-MM-DD') AS expected FROM parts
+      WHERE upgrade_id = :upgradeId AND state NOT IN ('received','fitted','returned') AND expected_arrival IS NOT NULL
+      ORDER BY expected_arrival DESC, id LIMIT 1`,
+    { replacements: { upgradeId }, type: QueryTypes.SELECT },
+  );
+  if (!row) return null;
+  return { upgradeId, upgradeTitle, partId: row.id, partNumber: row.part_number, description: row.description, expectedArrival: row.expected };
 }
 
 /** What the planner screen needs: the episodes, the planner input for checking drafts, violations. */
@@ -61,7 +97,7 @@ export async function planOverview(build: Build) {
     upgrades: data.upgrades,
     input,
     violations,
-    criticalPath: criticalSummary(data, input),
+    criticalPath: await criticalSummary(data, input),
     capacityHours: Math.min(build.shootHoursPerEpisode, (build.shopHoursPerWeek * build.releaseCadenceDays) / 7),
   };
 }

@@ -4,8 +4,18 @@ import { buildIndexGraph, extractCycle, kahnOrder } from './graph';
 export interface CpmTask {
   id: string;
   duration: number;
-  /** Ids of the tasks that must finish before this one starts (finish-to-start, zero lag). */
-  after: string[];
+  /**
+   * The tasks that must finish before this one starts: an id (finish-to-start, zero lag) or
+   * `{ id, lag }` (finish-to-start with a wait of `lag` after the predecessor finishes).
+   */
+  after: (string | CpmLink)[];
+  /** Earliest start allowed (a release time, "start no earlier than"); 0 when absent. */
+  release?: number;
+}
+
+export interface CpmLink {
+  id: string;
+  lag: number;
 }
 
 export interface CpmTimes {
@@ -37,8 +47,10 @@ const EPS = 1e-9;
 const snap = (x: number) => (Math.abs(x) < EPS ? 0 : x);
 
 /**
- * Forward pass: ES = max EF of predecessors (0 without any), EF = ES + duration.
- * Backward pass: LF = min LS of successors (project duration without any), LS = LF − duration.
+ * Forward pass: ES = max(release, EF + lag of each predecessor) (0 without any), EF = ES + duration.
+ * Backward pass: LF = min(LS − lag) over successors (project duration without any), LS = LF − duration.
+ * A release time only bounds the early dates, as a "start no earlier than" constraint does in the
+ * precedence diagramming method; with no releases and no lags this is the classic pure network.
  * Total float = LS − ES. A task may not list itself or an unknown id; both are reported, not thrown.
  * Negative or non-finite durations are a programming error and throw.
  */
@@ -51,6 +63,9 @@ export function criticalPath(tasks: readonly CpmTask[]): CriticalPathResult {
     if (!(Number.isFinite(t.duration) && t.duration >= 0)) {
       throw new RangeError(`criticalPath: task ${t.id} has duration ${t.duration}; durations must be finite and ≥ 0`);
     }
+    if (t.release !== undefined && !(Number.isFinite(t.release) && t.release >= 0)) {
+      throw new RangeError(`criticalPath: task ${t.id} has release ${t.release}; releases must be finite and ≥ 0`);
+    }
     if (index.has(t.id)) {
       if (!duplicate.includes(t.id)) duplicate.push(t.id);
     } else index.set(t.id, i);
@@ -60,10 +75,17 @@ export function criticalPath(tasks: readonly CpmTask[]): CriticalPathResult {
   const unknown: string[] = [];
   const seenUnknown = new Set<string>();
   const preds: number[][] = new Array(n);
+  const lags: number[][] = new Array(n);
+  let anyLag = false;
   for (let i = 0; i < n; i++) {
     const list: number[] = [];
-    const dedupe = new Set<number>();
-    for (const a of tasks[i].after) {
+    const lagList: number[] = [];
+    const dedupe = new Map<number, number>();
+    for (const link of tasks[i].after) {
+      const a = typeof link === 'string' ? link : link.id;
+      const lag = typeof link === 'string' ? 0 : link.lag;
+      if (!Number.isFinite(lag)) throw new RangeError(`criticalPath: task ${tasks[i].id} has lag ${lag} after ${a}; lags must be finite`);
+      if (lag !== 0) anyLag = true;
       const j = index.get(a);
       if (j === undefined) {
         if (!seenUnknown.has(a)) {
@@ -71,12 +93,18 @@ export function criticalPath(tasks: readonly CpmTask[]): CriticalPathResult {
           unknown.push(a);
         }
       } else if (!dedupe.has(j)) {
-        // A repeated predecessor is harmless but would double-count in Kahn's in-degrees.
-        dedupe.add(j);
+        // A repeated predecessor is harmless but would double-count in Kahn's in-degrees;
+        // the longest of its lags is the one that binds.
+        dedupe.set(j, list.length);
         list.push(j);
+        lagList.push(lag);
+      } else {
+        const k = dedupe.get(j)!;
+        lagList[k] = Math.max(lagList[k], lag);
       }
     }
     preds[i] = list;
+    lags[i] = lagList;
   }
   if (unknown.length) return { ok: false, unknown };
 
@@ -84,25 +112,32 @@ export function criticalPath(tasks: readonly CpmTask[]): CriticalPathResult {
   const { order, count, remaining } = kahnOrder(g);
   if (count < n) return { ok: false, cycle: extractCycle(g, remaining).map((i) => tasks[i].id) };
 
+  // Lags laid out like g.predIdx (buildIndexGraph keeps each list's order).
+  const lagOf = new Float64Array(g.predIdx.length);
+  if (anyLag) for (let i = 0, k = 0; i < n; i++) for (const lag of lags[i]) lagOf[k++] = lag;
+
   const es = new Float64Array(n);
   const ef = new Float64Array(n);
   let duration = 0;
   for (let k = 0; k < n; k++) {
     const u = order[k];
-    let start = 0;
-    for (let e = g.predStart[u]; e < g.predStart[u + 1]; e++) start = Math.max(start, ef[g.predIdx[e]]);
+    let start = tasks[u].release ?? 0;
+    for (let e = g.predStart[u]; e < g.predStart[u + 1]; e++) start = Math.max(start, ef[g.predIdx[e]] + lagOf[e]);
     es[u] = start;
     ef[u] = start + tasks[u].duration;
     duration = Math.max(duration, ef[u]);
   }
-  const lf = new Float64Array(n);
+  // Backward pass in reverse schedule order: a task's LF is final once every successor has been
+  // seen, and it then bounds the LF of each predecessor by LS − lag.
+  const lf = new Float64Array(n).fill(duration);
   const ls = new Float64Array(n);
   for (let k = n - 1; k >= 0; k--) {
     const u = order[k];
-    let finish = duration;
-    for (let e = g.succStart[u]; e < g.succStart[u + 1]; e++) finish = Math.min(finish, ls[g.succIdx[e]]);
-    lf[u] = finish;
-    ls[u] = finish - tasks[u].duration;
+    ls[u] = lf[u] - tasks[u].duration;
+    for (let e = g.predStart[u]; e < g.predStart[u + 1]; e++) {
+      const p = g.predIdx[e];
+      lf[p] = Math.min(lf[p], ls[u] - lagOf[e]);
+    }
   }
 
   const out: Record<string, CpmTimes> = {};

@@ -22,7 +22,11 @@ export interface CriticalSummary {
   hours: number;
   days: number;
   hoursPerDay: number;
+  /** What sets the earliest finish: a part the bay must wait for, or the hours of work themselves. */
+  limitedBy: 'parts' | 'hours';
   critical: { id: number; title: string }[];
+  /** The late part that opens the last stretch of work, when there is one. */
+  drivingPart: { upgradeId: number; upgradeTitle: string; partId: number; partNumber: string; description: string; expectedArrival: string } | null;
   earliestFinish: string;
 }
 
