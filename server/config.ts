@@ -57,6 +57,9 @@ const schema = z.object({
   PUBLIC_RATE_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
   PUBLIC_WRITE_RATE_LIMIT: z.coerce.number().int().min(1).default(30),
   PUBLIC_EMAIL_RATE_LIMIT: z.coerce.number().int().min(1).default(5),
+  // Unconfirmed votes waiting for their link: at most this many per request, and per person.
+  PENDING_VOTES_PER_REQUEST: z.coerce.number().int().min(1).default(200),
+  PENDING_VOTES_PER_ADDRESS: z.coerce.number().int().min(1).default(5),
 });
 
 export type Config = ReturnType<typeof loadConfig>;

@@ -8,8 +8,17 @@ const key = (purpose: string) => createHash('sha256').update(`bayslate:${purpose
 
 export const normaliseEmail = (email: string) => email.trim().toLowerCase();
 
-/** Keyed hash of an address (64 hex): equal for equal addresses, useless without the server key. */
-export const emailHash = (email: string) => createHmac('sha256', key('email')).update(normaliseEmail(email)).digest('hex');
+/** The person behind an address: case and spaces aside, and without a "+tag" sub-address. */
+export function personOfEmail(email: string) {
+  const address = normaliseEmail(email);
+  const at = address.lastIndexOf('@');
+  if (at < 1) return address;
+  const local = address.slice(0, at).split('+')[0] || address.slice(0, at);
+  return `${local}${address.slice(at)}`;
+}
+
+/** Keyed hash of the person an address names (64 hex): equal for name+1@ and NAME@, useless without the server key. */
+export const emailHash = (email: string) => createHmac('sha256', key('email')).update(personOfEmail(email)).digest('hex');
 
 /** A fresh single-use token (URL-safe, 256 bits) and the hash we store instead of it. */
 export function newToken() {

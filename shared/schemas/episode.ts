@@ -36,6 +36,8 @@ export const updateEpisodeSchema = z
     runtimeSeconds: runtime.nullable().optional(),
     /** A new place in the series; the episodes in between are renumbered. */
     number: z.number().int().positive('must be 1 or more').optional(),
+    /** Why an unfinished episode goes live anyway (same rule as the publishing route). */
+    overrideReason: z.string().trim().min(1, 'give a reason').max(1000, 'must be at most 1000 characters').optional(),
     version: z.number().int().min(0),
   })
   .superRefine(datesInOrder);
