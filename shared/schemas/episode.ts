@@ -56,7 +56,12 @@ const planEpisode = z
 /** The whole series in order: episode i of the list becomes number i + 1. */
 export const planSchema = z.strictObject({
   episodes: z.array(planEpisode).max(1000),
+  /** The plan version the change was made from; a newer plan on the server answers 409. */
+  basedOn: z.number().int().min(0),
+  /** Scheduled (or later) episodes whose date changes the producer saw listed and accepts. */
+  acceptDateChanges: z.array(id).max(1000).optional(),
 });
+export const undoPlanSchema = z.strictObject({ basedOn: z.number().int().min(0) });
 
 const positiveHours = z.number().positive('must be more than 0').max(1000, 'is too large');
 

@@ -6,9 +6,8 @@ import { Build, Episode } from '../../../server/models';
 export async function prepare(ctx: MatrixContext) {
   const tern = await Build.findOne({ where: { slug: 'project-tern' } });
   ctx.ids.episodeId ??= (await Episode.findOne({ where: { buildId: tern!.id }, order: [['number', 'ASC']] }))!.id;
-  ctx.other.readinessEpisodeId = (
-    await Episode.create({ buildId: Number(ctx.other.buildId), number: 90, title: 'Other readiness episode', summary: null, shootDate: null, releaseDate: null, videoUrl: null, runtimeSeconds: null, publishedAt: null })
-  ).id;
+  // An episode of the other build (the marketing rows make one; prepares run in file order).
+  ctx.other.readinessEpisodeId ??= ctx.other.episodeId ?? (await Episode.findOne({ where: { buildId: Number(ctx.other.buildId) } }))!.id;
 }
 
 export const rows: MatrixRow[] = [
@@ -18,4 +17,7 @@ export const rows: MatrixRow[] = [
     allow: ['marketing', 'producer'],
     idor: (c) => `/api/builds/${c.ids.buildId}/episodes/${c.other.readinessEpisodeId}/readiness`,
   },
+  { method: 'GET', path: '/api/builds/:buildId/plan/revisions', allow: ['producer'], idor: () => '/api/builds/999999/plan/revisions' },
+  // A body without basedOn: allowed callers get 400 and nothing is undone.
+  { method: 'POST', path: '/api/builds/:buildId/plan/undo', allow: ['producer'], body: () => ({}), idor: () => '/api/builds/999999/plan/undo' },
 ];
