@@ -10,7 +10,7 @@ import {
 } from 'sequelize';
 import { AppError } from '../errors';
 import { config } from '../config';
-import { zodFields } from './validate';
+import { fieldsSentence, labelled, zodFields } from './validate';
 
 export const notFoundHandler: RequestHandler = (_req, _res, next) => {
   next(new AppError(404, 'not_found', 'No such API route.'));
@@ -37,7 +37,10 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     e = new AppError(500, 'internal', config().isProduction ? 'Something went wrong on the server.' : String(err?.message ?? err));
   }
   if (res.headersSent) return;
+  // Field errors name the field in words; a hand-made "Check these fields: episodeId." is reworded.
+  const fields = e.fields?.length ? labelled(e.fields) : undefined;
+  const message = fields && e.status === 400 && e.message.startsWith('Check these fields:') ? fieldsSentence(fields) : e.message;
   res.status(e.status).json({
-    error: { code: e.code, message: e.message, ...(e.fields?.length ? { fields: e.fields } : {}), ...(e.details ?? {}) },
+    error: { code: e.code, message, ...(fields ? { fields } : {}), ...(e.details ?? {}) },
   });
 };
