@@ -51,7 +51,10 @@ describe('episode planner in the browser', () => {
       // The two unplanned demo upgrades show up as new in the proposal.
       await proposal.getByText('Heated front seats — new in the plan').waitFor();
       await audit(s, 'proposal beside the current plan');
+      // What accepting changes is listed first, and applying asks for confirmation.
+      await proposal.locator('[data-test="proposal-summary"]').getByText(/upgrades? move/).first().waitFor();
       await proposal.getByRole('button', { name: 'Accept proposal' }).click();
+      await page.getByRole('dialog').getByRole('button', { name: 'Apply the plan' }).click();
       await proposal.waitFor({ state: 'detached' });
       await page.getByText(/Proposal applied/).waitFor();
       await page.getByRole('heading', { name: 'No problems in this plan' }).waitFor();
