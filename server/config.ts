@@ -82,6 +82,9 @@ const schema = z.object({
   // Log level of the JSON logs (pino): fatal, error, warn, info, debug, trace or silent. Unset: info
   // (silent in tests unless LOG_REQUESTS or LOG_TEST_ERRORS is on).
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).optional(),
+  // Unconfirmed votes waiting for their link: at most this many per request, and per person.
+  PENDING_VOTES_PER_REQUEST: z.coerce.number().int().min(1).default(200),
+  PENDING_VOTES_PER_ADDRESS: z.coerce.number().int().min(1).default(5),
 });
 
 export type Config = ReturnType<typeof loadConfig>;

@@ -2,6 +2,8 @@
 export interface FieldError {
   path: string;
   message: string;
+  /** The field in words ("Area", "Chapters, row 3: title"). */
+  label?: string;
 }
 
 export class AppError extends Error {

@@ -10,7 +10,7 @@ import {
 } from 'sequelize';
 import { AppError } from '../errors';
 import { config } from '../config';
-import { zodFields } from './validate';
+import { fieldsSentence, labelled, zodFields } from './validate';
 import { isDatabaseUnavailable, UNAVAILABLE_MESSAGE } from './unavailable';
 
 export const notFoundHandler: RequestHandler = (_req, _res, next) => {
@@ -43,7 +43,10 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   if (res.headersSent) return;
   // A person can quote this id; the log line of the request has the same one.
   const requestId = e.status >= 500 ? { requestId: String(req.id ?? '') } : {};
+  // Field errors name the field in words; a hand-made "Check these fields: episodeId." is reworded.
+  const fields = e.fields?.length ? labelled(e.fields) : undefined;
+  const message = fields && e.status === 400 && e.message.startsWith('Check these fields:') ? fieldsSentence(fields) : e.message;
   res.status(e.status).json({
-    error: { code: e.code, message: e.message, ...(e.fields?.length ? { fields: e.fields } : {}), ...(e.details ?? {}), ...requestId },
+    error: { code: e.code, message, ...(fields ? { fields } : {}), ...(e.details ?? {}), ...requestId },
   });
 };

@@ -16,6 +16,7 @@ import { ViewerVote } from './viewerVote';
 import { MailOutbox } from './mailOutbox';
 import { Unsubscribe } from './unsubscribe';
 import { Media } from './media';
+import { PlanRevision } from './planRevision';
 
 Build.hasMany(Upgrade, { foreignKey: 'buildId', as: 'upgrades' });
 Upgrade.belongsTo(Build, { foreignKey: 'buildId', as: 'build' });
@@ -50,4 +51,5 @@ export {
   MailOutbox,
   Unsubscribe,
   Media,
+  PlanRevision,
 };

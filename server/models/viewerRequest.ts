@@ -13,6 +13,7 @@ export class ViewerRequest extends Model<InferAttributes<ViewerRequest>, InferCr
   declare mergedIntoId: CreationOptional<number | null>;
   declare declineReason: CreationOptional<string | null>;
   declare confirmedAt: CreationOptional<Date | null>;
+  declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -28,8 +29,9 @@ ViewerRequest.init(
     mergedIntoId: DataTypes.INTEGER,
     declineReason: DataTypes.TEXT,
     confirmedAt: DataTypes.DATE,
+    version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },
-  { sequelize, tableName: 'viewer_requests' },
+  { sequelize, tableName: 'viewer_requests', version: true },
 );

@@ -3,7 +3,8 @@ import { Router } from 'express';
 import { requireRole } from '../middleware/roles';
 import { buildOf, loadBuild } from '../middleware/build';
 import { validate } from '../middleware/validate';
-import { planSchema, proposalSchema } from '../../shared/schemas/episode';
+import { planSchema, proposalSchema, undoPlanSchema } from '../../shared/schemas/episode';
+import { listRevisions } from '../services/planRevisions';
 import * as plan from '../services/plan';
 
 export function planRouter() {
@@ -19,6 +20,12 @@ export function planRouter() {
   });
   router.put('/', requireRole('producer'), loadBuild, validate(planSchema), async (req, res) => {
     res.json(await plan.applyPlan(req.user!, buildOf(req), req.body));
+  });
+  router.get('/revisions', requireRole('producer'), loadBuild, async (req, res) => {
+    res.json({ revisions: await listRevisions(buildOf(req).id) });
+  });
+  router.post('/undo', requireRole('producer'), loadBuild, validate(undoPlanSchema), async (req, res) => {
+    res.json(await plan.undoLastPlanChange(req.user!, buildOf(req), req.body.basedOn));
   });
   return router;
 }

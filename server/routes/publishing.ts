@@ -7,6 +7,7 @@ import { validate } from '../middleware/validate';
 import { id } from '../../shared/schemas/common';
 import { publishSchema, putChaptersSchema } from '../../shared/schemas/publishing';
 import * as publishing from '../services/publishing';
+import { readiness } from '../services/goLive';
 import { Episode } from '../models';
 import { notFound } from '../errors';
 import type { RequestHandler } from 'express';
@@ -32,6 +33,10 @@ export function publishingRouter() {
   });
   router.get('/show-notes', requireRole(...PUBLISHERS), validate(params, 'params'), loadBuild, async (req, res) => {
     res.json(await publishing.showNotes(buildOf(req), episodeId(req)));
+  });
+  // What stands between the episode and going live: each unfinished upgrade and what it lacks.
+  router.get('/readiness', requireRole(...PUBLISHERS), validate(params, 'params'), loadBuild, episodeInBuild, async (req, res) => {
+    res.json(await readiness(buildOf(req).id, episodeId(req)));
   });
   router.post('/publish', requireRole(...PUBLISHERS), validate(params, 'params'), loadBuild, episodeInBuild, validate(publishSchema), async (req, res) => {
     res.json({ episode: await publishing.publish(req.user!, buildOf(req).id, episodeId(req), req.body) });

@@ -1,6 +1,7 @@
 // Writes the append-only activity record, inside the caller's transaction.
 import type { Transaction } from 'sequelize';
 import { Activity } from '../models';
+import { fieldWords, valueWords } from '../../shared/schemas/errorMap';
 
 export interface Actor {
   id: number;
@@ -49,4 +50,40 @@ export async function record(
     },
     { transaction: t ?? undefined },
   );
+}
+
+/** One change as a person reads it: "Unit cost: — → $489.00", "Install segment: Not shot → Shot". */
+export interface ReadableChange {
+  field: string;
+  from: string;
+  to: string;
+}
+
+/** Record keys nobody needs to read: ids, versions, positions and timestamps. */
+const INTERNAL = /^(id|version|createdAt|updatedAt|episodePosition|position|emailHash|confirmTokenHash|emailSealed)$|Ids?$/;
+const money = new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' });
+
+function readableValue(key: string, v: unknown): string {
+  if (v === null || v === undefined || v === '') return '—';
+  if (/Cents$/.test(key) && typeof v === 'number') return money.format(v / 100);
+  if (typeof v === 'boolean') return v ? 'Yes' : 'No';
+  if (Array.isArray(v)) return v.length ? v.map((x) => readableValue(key, x)).join(', ') : '—';
+  if (typeof v === 'string' && /^[a-z]+(_[a-z]+)*$/.test(v) && /(state|segment|Segment|State|area|kind|stage|condition|disposition|category|action)$/i.test(key)) return valueWords(v);
+  if (typeof v === 'object') return JSON.stringify(v);
+  return String(v);
+}
+
+/**
+ * The changes of one history entry in words: field labels, states in words, money formatted for
+ * those who may see it and left out for the rest, internal fields (ids, versions) left out.
+ */
+export function readableChanges(changes: Record<string, [unknown, unknown]> | null | undefined, may: { money: boolean; retail: boolean }): ReadableChange[] {
+  const out: ReadableChange[] = [];
+  for (const [key, pair] of Object.entries(changes ?? {})) {
+    if (INTERNAL.test(key)) continue;
+    if (/Cents$/.test(key) && !(key === 'retailPriceCents' ? may.retail : may.money)) continue;
+    const [a, b] = Array.isArray(pair) ? pair : [null, pair];
+    out.push({ field: fieldWords(key), from: readableValue(key, a), to: readableValue(key, b) });
+  }
+  return out;
 }

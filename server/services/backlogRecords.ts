@@ -5,6 +5,7 @@ import { Activity, Expense, LabourEntry, Part, RemovedPart, Upgrade, UpgradePrer
 import { AppError, badRequest, notFound } from '../errors';
 import { forViewer, RETAIL_FIELDS, SHOP_MONEY_FIELDS, seesMoney, seesRetail, type Viewer } from './visibility';
 import type { ExpenseRecord, LabourEntryRecord, PartRecord, RemovedPartRecord, UpgradeRecord } from '../../shared/domain';
+import { readableChanges } from './activity';
 
 export type Person = { id: number; name: string; roles: readonly string[] };
 /** An interface as a plain object type, so it fits Record<string, unknown> (forViewer, activity). */
@@ -151,6 +152,7 @@ export function activityView(rows: Activity[], viewer: Viewer) {
     userName: a.userName,
     createdAt: a.createdAt,
     changes: Object.fromEntries(Object.entries(a.changes ?? {}).filter(([k]) => !hidden.has(k))),
+    readable: readableChanges(a.changes, { money: seesMoney(viewer), retail: seesRetail(viewer) }),
   }));
 }
 

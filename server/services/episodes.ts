@@ -6,7 +6,7 @@ import { QueryTypes } from 'sequelize';
 import { sequelize, Episode, type Build } from '../models';
 import { AppError, badRequest, forbidden, notFound } from '../errors';
 import { record, type Actor } from './activity';
-import { notifyEpisodeLive } from './notifications';
+import { afterGoLive, assertMayGoLive } from './goLive';
 import { EPISODE_STATE_LABELS, type EpisodeRecord, type EpisodeState } from '../../shared/domain';
 import { stateRank, type CreateEpisodeInput, type UpdateEpisodeInput } from '../../shared/schemas/episode';
 
@@ -142,6 +142,9 @@ export async function updateEpisode(actor: EpisodeActor, build: Build, episodeId
       throw new AppError(409, 'stale', 'Someone else changed this episode since you loaded it. Their version is shown.', undefined, { current: before });
     }
     const to = input.state ?? ep.state;
+    const goesLive = to === 'live' && ep.state !== 'live';
+    // The same rule as the publishing route: who may, and only a finished episode (or a reason).
+    if (goesLive) await assertMayGoLive(t, actor, ep, input.overrideReason);
     if (stateRank(to) < stateRank(ep.state) && !producer) {
       throw new AppError(409, 'backward_move', `Episode ${ep.number} is ${label(ep.state)}; only a producer or owner may move it back to ${label(to)}.`);
     }
@@ -160,7 +163,6 @@ export async function updateEpisode(actor: EpisodeActor, build: Build, episodeId
     if (to === 'live' && !ep.videoUrl) {
       throw badRequest('An episode goes live with its video address.', [{ path: 'videoUrl', message: 'is needed to go live' }]);
     }
-    const goesLive = to === 'live' && ep.state !== 'live';
     ep.state = to;
     if (goesLive && !ep.publishedAt) ep.publishedAt = new Date();
     if (to !== 'live' && before.state === 'live') ep.publishedAt = null;
@@ -182,7 +184,7 @@ export async function updateEpisode(actor: EpisodeActor, build: Build, episodeId
     if (changes) {
       await record(t, { actor, buildId: build.id, entity: 'episode', entityId: ep.id, action: 'update', summary: `Changed episode ${ep.number}: ${ep.title}`, before: restBefore, after: rest });
     }
-    if (goesLive) await notifyEpisodeLive(t, build.id, ep.id);
+    if (goesLive) await afterGoLive(t, ep);
     return after;
   });
 }

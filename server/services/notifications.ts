@@ -1,4 +1,5 @@
-// What happens when an episode goes live: viewers whose requested upgrade is in it are told.
+// What happens when an episode goes live: viewers whose requested upgrade is in it, and done
+// (installed, both segments shot), are told; an upgrade shown unfinished tells nobody yet.
 // Episodes and publishing call this inside their transaction, so the mails are queued exactly
 // when the episode is committed live; the dedupe key makes it once per person per episode.
 import { QueryTypes, type Transaction } from 'sequelize';
@@ -20,6 +21,7 @@ export async function notifyEpisodeLive(t: Transaction, buildId: number, episode
      JOIN viewer_requests r ON r.id = v.request_id
      JOIN upgrades u ON u.id = r.upgrade_id AND u.build_id = r.build_id
      WHERE r.build_id = :buildId AND r.state = 'accepted' AND u.episode_id = :episodeId
+       AND u.install_state = 'installed' AND u.install_segment = 'shot' AND u.demo_segment = 'shot'
        AND v.confirmed_at IS NOT NULL AND v.email IS NOT NULL
        AND NOT EXISTS (SELECT 1 FROM unsubscribes s WHERE s.email_hash = v.email_hash)
      GROUP BY v.email_hash`,

@@ -7,7 +7,7 @@ import { cachedPublic, keepPublic, publicStamp, type PublicEntry } from './publi
 import { cautionsFor } from '../../shared/safety';
 import { AREAS, AREA_LABELS, isUpgradeDone, type Area } from '../../shared/domain';
 
-export type PublicStatus = 'planned' | 'in_progress' | 'done';
+export type PublicStatus = 'planned' | 'in_progress' | 'coming_soon' | 'done';
 
 /** A build by slug, only when it is marked public; otherwise the same 404 as an unknown slug. */
 export async function publicBuildBySlug(slug: string) {
@@ -16,8 +16,10 @@ export async function publicBuildBySlug(slug: string) {
   return build;
 }
 
-function statusOf(u: Upgrade): PublicStatus {
-  if (isUpgradeDone(u)) return 'done';
+/** Done only once an episode showing it is live; installed before that is "coming soon". */
+function statusOf(u: Upgrade, liveIds: ReadonlyMap<number, number>): PublicStatus {
+  if (isUpgradeDone(u) && u.episodeId && liveIds.has(u.episodeId)) return 'done';
+  if (u.installState === 'installed') return 'coming_soon';
   return u.installState === 'queued' ? 'planned' : 'in_progress';
 }
 
@@ -59,15 +61,16 @@ async function publicBuildViewOf(slug: string) {
       .map((u) => ({
         id: u.id,
         title: u.title,
-        becomes: u.becomes,
-        status: statusOf(u),
+        // No spoilers: what it becomes shows once its episode is out.
+        becomes: statusOf(u, liveIds) === 'coming_soon' ? null : u.becomes,
+        status: statusOf(u, liveIds),
         safetyFlags: [...u.safetyFlags],
         liveEpisodeNumber: u.episodeId && liveIds.has(u.episodeId) ? liveIds.get(u.episodeId)! : null,
       })),
   })).filter((a) => a.upgrades.length > 0);
 
-  const counts = { planned: 0, in_progress: 0, done: 0 } as Record<PublicStatus, number>;
-  for (const u of upgrades) counts[statusOf(u)] += 1;
+  const counts = { planned: 0, in_progress: 0, coming_soon: 0, done: 0 } as Record<PublicStatus, number>;
+  for (const u of upgrades) counts[statusOf(u, liveIds)] += 1;
 
   const cautions = cautionsFor(upgrades.flatMap((u) => u.safetyFlags)).map((c) => ({
     flag: c.flag,
@@ -83,7 +86,7 @@ async function publicBuildViewOf(slug: string) {
       vehicle: { year: build.year, make: build.make, model: build.model, trim: build.trim },
       summary: build.summary,
     },
-    counts: { planned: counts.planned, inProgress: counts.in_progress, done: counts.done },
+    counts: { planned: counts.planned, inProgress: counts.in_progress, comingSoon: counts.coming_soon, done: counts.done },
     areas,
     episodes: episodes.map((e) => ({
       number: e.number,

@@ -5,7 +5,7 @@ import { sequelize, Episode, EpisodeChapter, Part, Upgrade, type Build } from '.
 import { badRequest, notFound } from '../errors';
 import { config } from '../config';
 import { record, type Actor } from './activity';
-import { notifyEpisodeLive } from './notifications';
+import { afterGoLive, assertMayGoLive, type LiveActor } from './goLive';
 import { toRecord, upgradeIdsByEpisode } from './episodes';
 import { buildShowNotes, formatChapterTime, validateChapters } from '../../shared/showNotes';
 import type { ChapterRecord } from '../../shared/domain';
@@ -98,7 +98,7 @@ export async function showNotes(build: Build, episodeId: number) {
   });
 }
 
-export async function publish(actor: Actor, buildId: number, episodeId: number, input: PublishInput) {
+export async function publish(actor: LiveActor, buildId: number, episodeId: number, input: PublishInput) {
   return sequelize.transaction(async (t) => {
     const ep = await episodeOf(buildId, episodeId, t, true);
     const runtime = input.runtimeSeconds ?? ep.runtimeSeconds;
@@ -107,6 +107,7 @@ export async function publish(actor: Actor, buildId: number, episodeId: number, 
     const ids = (await upgradeIdsByEpisode(buildId, t)).get(ep.id) ?? [];
     const before = toRecord(ep, ids);
     const wasLive = ep.state === 'live';
+    if (!wasLive) await assertMayGoLive(t, actor, ep, input.overrideReason);
     ep.state = 'live';
     ep.videoUrl = input.videoUrl;
     ep.runtimeSeconds = runtime ?? null;
@@ -119,7 +120,7 @@ export async function publish(actor: Actor, buildId: number, episodeId: number, 
       before: before as unknown as Record<string, unknown>, after: after as unknown as Record<string, unknown>,
     });
     // Once per person per episode (the mail queue's dedupe key), so a re-publish sends nothing new.
-    await notifyEpisodeLive(t, buildId, ep.id);
+    if (!wasLive) await afterGoLive(t, ep);
     return after;
   });
 }

@@ -24,8 +24,17 @@ const legacyKey = (purpose: string) => createHash('sha256').update(`bayslate:${p
 
 export const normaliseEmail = (email: string) => email.trim().toLowerCase();
 
-/** Keyed hash of an address (64 hex): equal for equal addresses, useless without the server key. */
-export const emailHash = (email: string) => createHmac('sha256', viewerKey('email-hash')).update(normaliseEmail(email)).digest('hex');
+/** The person behind an address: case and spaces aside, and without a "+tag" sub-address. */
+export function personOfEmail(email: string) {
+  const address = normaliseEmail(email);
+  const at = address.lastIndexOf('@');
+  if (at < 1) return address;
+  const local = address.slice(0, at).split('+')[0] || address.slice(0, at);
+  return `${local}${address.slice(at)}`;
+}
+
+/** Keyed hash of the person an address names (64 hex): equal for name+1@ and NAME@, useless without the server key. */
+export const emailHash = (email: string) => createHmac('sha256', viewerKey('email-hash')).update(personOfEmail(email)).digest('hex');
 /** The hash the same address had under the session-secret key (migration 0014 and old links). */
 export const legacyEmailHash = (email: string) => createHmac('sha256', legacyKey('email')).update(normaliseEmail(email)).digest('hex');
 

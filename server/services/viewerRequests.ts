@@ -21,11 +21,12 @@ export interface StaffRequestRow {
   mergedIntoTitle: string | null;
   declineReason: string | null;
   createdAt: string;
+  version: number;
 }
 
 async function rows(buildId: number, where: string, replacements: Record<string, unknown>, t?: Transaction): Promise<StaffRequestRow[]> {
   const list = await sequelize.query<Record<string, unknown>>(
-    `SELECT r.id, r.title, r.details, r.state, r.upgrade_id, r.merged_into_id, r.decline_reason, r.created_at,
+    `SELECT r.id, r.title, r.details, r.state, r.upgrade_id, r.version, r.merged_into_id, r.decline_reason, r.created_at,
             r.confirmed_at IS NOT NULL AS confirmed, u.title AS upgrade_title, m.title AS merged_into_title,
             (SELECT count(*)::int FROM viewer_votes v WHERE v.request_id = r.id AND v.confirmed_at IS NOT NULL) AS votes,
             (SELECT count(*)::int FROM viewer_votes v WHERE v.request_id = r.id AND v.confirmed_at IS NULL AND v.expires_at > now()) AS pending
@@ -50,6 +51,7 @@ async function rows(buildId: number, where: string, replacements: Record<string,
     mergedIntoTitle: r.merged_into_title as string | null,
     declineReason: r.decline_reason as string | null,
     createdAt: new Date(r.created_at as string).toISOString(),
+    version: r.version as number,
   }));
 }
 
@@ -66,6 +68,10 @@ export async function triage(actor: Actor, buildId: number, requestId: number, i
   return sequelize.transaction(async (t) => {
     const req = await ViewerRequest.findOne({ where: { id: requestId, buildId }, transaction: t, lock: t.LOCK.UPDATE });
     if (!req || !req.confirmedAt) throw notFound('Request');
+    if (req.version !== input.version) {
+      // Someone triaged it first (two accepts at once would otherwise create two upgrades).
+      throw new AppError(409, 'stale', `"${req.title}" was changed since you loaded it; it is now ${req.state}. Nothing was written; reload and look again.`, undefined, { current: await one(buildId, req.id, t) });
+    }
     if (req.state === 'merged') throw new AppError(409, 'bad_state', `"${req.title}" was merged into another request; triage that one instead.`);
     const before = req.toJSON() as unknown as Record<string, unknown>;
     let summary = '';

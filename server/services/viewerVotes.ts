@@ -18,10 +18,31 @@ export const ACCEPTED_ANSWER = {
   message: 'Thanks! If this address can vote for it, a confirmation mail is on its way. Your vote counts once you open its link.',
 } as const;
 
+/** Unconfirmed links one person may hold for one request (a lost mail can be sent once more). */
+const PENDING_PER_PERSON_PER_REQUEST = 2;
+
+const pendingWhere = () => ({ confirmedAt: null, expiresAt: { [Op.gt]: new Date() } });
+
+/** Whether one more unconfirmed vote is allowed: per request, per person, per person on this request. */
+async function underPendingCaps(t: Transaction, requestId: number, hash: string) {
+  const [forRequest, forPerson, forBoth] = await Promise.all([
+    ViewerVote.count({ where: { requestId, ...pendingWhere() }, transaction: t }),
+    ViewerVote.count({ where: { emailHash: hash, ...pendingWhere() }, transaction: t }),
+    ViewerVote.count({ where: { requestId, emailHash: hash, ...pendingWhere() }, transaction: t }),
+  ]);
+  return forRequest < config().PENDING_VOTES_PER_REQUEST && forPerson < config().PENDING_VOTES_PER_ADDRESS && forBoth < PENDING_PER_PERSON_PER_REQUEST;
+}
+
+/** Serialises votes of one person, so two parallel votes cannot both pass the caps. */
+async function lockPerson(t: Transaction, hash: string) {
+  await sequelize.query('SELECT pg_advisory_xact_lock(hashtext(:key))', { replacements: { key: `vote:${hash}` }, transaction: t });
+}
+
 async function pendingVote(t: Transaction, build: Build, request: ViewerRequest, who: { email: string; name: string | null }, isNewRequest: boolean) {
   const hash = emailHash(who.email);
   const counted = await ViewerVote.count({ where: { requestId: request.id, emailHash: hash, confirmedAt: { [Op.ne]: null } }, transaction: t });
   if (counted) return; // already counted: nothing to send, same answer
+  if (!(await underPendingCaps(t, request.id, hash))) return; // enough links out already: same answer
   const { token, hash: confirmTokenHash } = newToken();
   const hours = config().CONFIRM_LINK_HOURS;
   await ViewerVote.create(
@@ -36,6 +57,10 @@ export async function createRequest(slug: string, input: PublicRequestInput) {
   const build = await publicBuildBySlug(slug);
   if (input.website) return ACCEPTED_ANSWER; // honeypot filled: a bot; write nothing
   await sequelize.transaction(async (t) => {
+    const hash = emailHash(input.email);
+    await lockPerson(t, hash);
+    // A person with as many unconfirmed links out as allowed adds no new unconfirmed request.
+    if (!(await underPendingCaps(t, 0, hash))) return;
     const request = await ViewerRequest.create({ buildId: build.id, title: input.title, details: input.details ?? null }, { transaction: t });
     await pendingVote(t, build, request, { email: input.email, name: input.name ?? null }, true);
   });
@@ -57,7 +82,10 @@ export async function addVote(slug: string, requestId: number, input: PublicVote
     throw new AppError(409, 'voting_closed', 'This request is closed, so it takes no more votes.');
   }
   if (input.website) return ACCEPTED_ANSWER;
-  await sequelize.transaction((t) => pendingVote(t, build, request, { email: input.email, name: input.name ?? null }, false));
+  await sequelize.transaction(async (t) => {
+    await lockPerson(t, emailHash(input.email));
+    await pendingVote(t, build, request, { email: input.email, name: input.name ?? null }, false);
+  });
   return ACCEPTED_ANSWER;
 }
 

@@ -1,6 +1,8 @@
 // Building blocks for the zod schemas that server and client share.
 import { z } from 'zod';
 import { parseUrl } from '../webUrl';
+// Every schema built from these blocks speaks in words (see errorMap.ts).
+import './errorMap';
 
 export const id = z.coerce.number().int().positive();
 export const isoDate = z

@@ -36,6 +36,8 @@ export const updateEpisodeSchema = z
     runtimeSeconds: runtime.nullable().optional(),
     /** A new place in the series; the episodes in between are renumbered. */
     number: z.number().int().positive('must be 1 or more').optional(),
+    /** Why an unfinished episode goes live anyway (same rule as the publishing route). */
+    overrideReason: z.string().trim().min(1, 'give a reason').max(1000, 'must be at most 1000 characters').optional(),
     version: z.number().int().min(0),
   })
   .superRefine(datesInOrder);
@@ -54,7 +56,12 @@ const planEpisode = z
 /** The whole series in order: episode i of the list becomes number i + 1. */
 export const planSchema = z.strictObject({
   episodes: z.array(planEpisode).max(1000),
+  /** The plan version the change was made from; a newer plan on the server answers 409. */
+  basedOn: z.number().int().min(0),
+  /** Scheduled (or later) episodes whose date changes the producer saw listed and accepts. */
+  acceptDateChanges: z.array(id).max(1000).optional(),
 });
+export const undoPlanSchema = z.strictObject({ basedOn: z.number().int().min(0) });
 
 const positiveHours = z.number().positive('must be more than 0').max(1000, 'is too large');
 

@@ -15,7 +15,9 @@ export const putChaptersSchema = z.strictObject({
   chapters: z.array(chapterSchema).max(100, 'at most 100 chapters'),
   runtimeSeconds: runtime.nullish(),
 });
-export const publishSchema = z.strictObject({ videoUrl: httpUrl, runtimeSeconds: runtime.optional() });
+/** Why an unfinished episode goes live anyway; without it, an unfinished episode is refused. */
+export const overrideReason = z.string().trim().min(1, 'give a reason').max(1000, 'must be at most 1000 characters');
+export const publishSchema = z.strictObject({ videoUrl: httpUrl, runtimeSeconds: runtime.optional(), overrideReason: overrideReason.optional() });
 export const campaignSchema = z.strictObject({
   campaign: z
     .string()

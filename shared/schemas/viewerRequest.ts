@@ -25,6 +25,8 @@ export const triageSchema = z
     newUpgrade: z.strictObject({ title: requiredText(140), area: z.enum(AREAS), estimatedHours: hours.optional() }).optional(),
     intoId: id.optional(),
     reason: requiredText(500).optional(),
+    /** The request's version when it was read; a request changed since answers 409. */
+    version: z.number().int().min(0),
   })
   .superRefine((v, ctx) => {
     const need = (path: string, message: string) => ctx.addIssue({ code: 'custom', path: [path], message });

@@ -2,6 +2,8 @@
 export interface FieldError {
   path: string;
   message: string;
+  /** The field in words, from the server ("Area", "Chapters, row 3: title"). */
+  label?: string;
 }
 
 export class ApiError extends Error {

@@ -2,6 +2,7 @@
 import { api } from './http';
 import type { Area, EpisodeRecord, EpisodeState, InstallState } from '@shared/domain';
 import type { PlannerInput, PlanViolation } from '@shared/planner/index';
+import type { PlanChangeSummary } from '@shared/planChange';
 
 export interface PlanUpgrade {
   id: number;
@@ -31,6 +32,10 @@ export interface CriticalSummary {
 }
 
 export interface PlanOverview {
+  /** The plan version changes are made from (PUT and undo send it back as basedOn). */
+  planVersion: number;
+  /** The applied change "Undo" would take back, if any. */
+  undo: { number: number; summary: string; userName: string | null; createdAt: string } | null;
   episodes: EpisodeRecord[];
   upgrades: PlanUpgrade[];
   input: PlannerInput;
@@ -62,6 +67,8 @@ export interface PlanDifference {
 }
 
 export interface ProposalAnswer {
+  planVersion: number;
+  summary: PlanChangeSummary;
   proposal: {
     episodes: ProposedEpisode[];
     forecastFinish: string | null;
@@ -89,7 +96,10 @@ export const planApi = {
   check: (buildId: number) => api.get<{ violations: PlanViolation[] }>(`${base(buildId)}/check`),
   propose: (buildId: number, capacity: { shootHoursPerEpisode?: number; shopHoursPerWeek?: number; releaseCadenceDays?: number } = {}) =>
     api.post<ProposalAnswer>(`${base(buildId)}/proposal`, capacity),
-  apply: (buildId: number, episodes: PlanBodyEpisode[]) => api.put<{ episodes: EpisodeRecord[]; violations: PlanViolation[] }>(base(buildId), { episodes }),
+  apply: (buildId: number, episodes: PlanBodyEpisode[], basedOn: number, acceptDateChanges?: number[]) =>
+    api.put<{ episodes: EpisodeRecord[]; violations: PlanViolation[]; planVersion: number }>(base(buildId), { episodes, basedOn, ...(acceptDateChanges ? { acceptDateChanges } : {}) }),
+  undo: (buildId: number, basedOn: number) =>
+    api.post<{ episodes: EpisodeRecord[]; planVersion: number; undone: { number: number; summary: string } }>(`${base(buildId)}/undo`, { basedOn }),
 };
 
 export const calendarApi = {

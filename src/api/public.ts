@@ -1,11 +1,11 @@
 // The public build page's API: no sign-in, builds marked public only.
 import { api } from './http';
 
-export type PublicStatus = 'planned' | 'in_progress' | 'done';
+export type PublicStatus = 'planned' | 'in_progress' | 'coming_soon' | 'done';
 
 export interface PublicBuild {
   build: { slug: string; title: string; vehicle: { year: number; make: string; model: string; trim: string }; summary: string | null };
-  counts: { planned: number; inProgress: number; done: number };
+  counts: { planned: number; inProgress: number; comingSoon: number; done: number };
   areas: { area: string; label: string; upgrades: { id: number; title: string; becomes: string | null; status: PublicStatus; safetyFlags: string[]; liveEpisodeNumber: number | null }[] }[];
   episodes: { number: number; title: string; summary: string | null; videoUrl: string | null; publishedOn: string | null; upgrades: string[] }[];
   cautions: { flag: string; label: string; caution: string; upgrades: string[] }[];

@@ -42,6 +42,8 @@ export interface ActivityRow {
   action: string;
   summary: string;
   changes: Record<string, [unknown, unknown]>;
+  /** The changes in words, as the server allows this person to see them. */
+  readable: { field: string; from: string; to: string }[];
   createdAt: string;
 }
 

@@ -16,13 +16,16 @@ export interface ViewerRequestRow {
   mergedIntoTitle: string | null;
   declineReason: string | null;
   createdAt: string;
+  /** Sent back with a triage: a request changed since answers 409. */
+  version: number;
 }
 
-export type TriageBody =
+export type TriageBody = (
   | { action: 'accept'; upgradeId: number }
   | { action: 'accept'; newUpgrade: { title: string; area: Area; estimatedHours?: number } }
   | { action: 'merge'; intoId: number }
-  | { action: 'decline'; reason: string };
+  | { action: 'decline'; reason: string }
+) & { version: number };
 
 const base = (buildId: number) => `/api/builds/${buildId}/viewer-requests`;
 

@@ -2,7 +2,7 @@
 import { describe, it, expect, beforeAll } from 'vitest';
 import { anonymous, signInAs } from '../helpers/api';
 import { count, counts } from '../helpers/db';
-import { Build, Episode, Activity } from '../../server/models';
+import { Build, Episode, Activity, Upgrade } from '../../server/models';
 
 let buildId: number;
 let base: string;
@@ -83,6 +83,8 @@ describe('episodes', () => {
     const draft = eps.filter((e: { state: string }) => e.state === 'draft').pop();
     const acts = await Activity.count({ where: { entity: 'episode', entityId: draft.id, action: 'state' } });
     const toShot = await producer.patch(`${base}/${draft.id}`).send({ state: 'shot', version: draft.version });
+    // Only a finished episode goes live (issue 11).
+    await Upgrade.update({ installState: 'installed', installSegment: 'shot', demoSegment: 'shot' }, { where: { episodeId: draft.id } });
     expect(toShot.status).toBe(200);
     expect(toShot.body.episode.state).toBe('shot');
     const noUrl = await producer.patch(`${base}/${draft.id}`).send({ state: 'live', version: toShot.body.episode.version });
@@ -105,6 +107,7 @@ describe('episodes', () => {
     // "Warm hands, soft light" holds the heated steering wheel, a viewer request the demo accepted.
     const ep = eps.find((e: { title: string }) => e.title === 'Warm hands, soft light');
     const before = await count('mail_outbox');
+    await Upgrade.update({ installState: 'installed', installSegment: 'shot', demoSegment: 'shot' }, { where: { episodeId: ep.id } });
     const live = await producer.patch(`${base}/${ep.id}`).send({ state: 'live', videoUrl: 'https://video.example/tern-ep8', version: ep.version });
     expect(live.status).toBe(200);
     const queued = (await count('mail_outbox')) - before;

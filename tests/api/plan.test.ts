@@ -20,7 +20,12 @@ beforeAll(async () => {
 });
 
 const upgradeTitles = async () => new Map((await Upgrade.findAll({ where: { buildId } })).map((u) => [u.id, u]));
-const asPlan = (eps: Ep[]) => ({ episodes: eps.map((e) => ({ ...(e.id ? { id: e.id } : { title: e.title }), shootDate: e.shootDate, releaseDate: e.releaseDate, upgradeIds: [...e.upgradeIds] })) });
+/** A plan body made from the plan version `basedOn`, accepting the listed date changes of scheduled episodes. */
+const asPlan = (eps: Ep[], basedOn: number, acceptDateChanges?: number[]) => ({
+  episodes: eps.map((e) => ({ ...(e.id ? { id: e.id } : { title: e.title }), shootDate: e.shootDate, releaseDate: e.releaseDate, upgradeIds: [...e.upgradeIds] })),
+  basedOn,
+  ...(acceptDateChanges ? { acceptDateChanges } : {}),
+});
 
 describe('the episode plan', () => {
   it('the demo plan has no violations, and the overview gives the planner input and critical path', async () => {
@@ -91,8 +96,8 @@ describe('the episode plan', () => {
 
   it('accepting a proposal applies it in one go; the result checks clean and is recorded', async () => {
     const producer = await signInAs('producer');
-    const { proposal } = (await producer.post(`${base}/proposal`).send({})).body;
-    const res = await producer.put(base).send(asPlan(proposal.episodes));
+    const { proposal, planVersion, summary } = (await producer.post(`${base}/proposal`).send({})).body;
+    const res = await producer.put(base).send(asPlan(proposal.episodes, planVersion, summary.dateChanges.map((d: { id: number }) => d.id)));
     expect(res.status).toBe(200);
     expect(res.body.violations).toEqual([]);
     const got = res.body.episodes as Ep[];
@@ -106,12 +111,13 @@ describe('the episode plan', () => {
 
   it('a hand-made order with a prerequisite after its dependant is saved and its violation named', async () => {
     const producer = await signInAs('producer');
-    const eps = (await producer.get(base)).body.episodes as Ep[];
+    const overview = (await producer.get(base)).body;
+    const eps = overview.episodes as Ep[];
     const ups = await upgradeTitles();
     const id = (title: string) => [...ups.values()].find((u) => u.title === title)!.id;
     const wiring = id('Trailer wiring, 7-pin');
     const brake = id('Trailer brake controller');
-    const plan = asPlan(eps);
+    const plan = asPlan(eps, overview.planVersion);
     for (const e of plan.episodes) e.upgradeIds = e.upgradeIds.filter((u) => u !== wiring && u !== brake);
     const target = plan.episodes.find((_, i) => eps[i].state === 'draft' || eps[i].state === 'scheduled')!;
     target.upgradeIds.unshift(brake, wiring);
@@ -126,12 +132,13 @@ describe('the episode plan', () => {
 
   it("400 names the field for another build's upgrade, unknown ids, duplicates and dates out of order; nothing is written", async () => {
     const producer = await signInAs('producer');
-    const eps = (await producer.get(base)).body.episodes as Ep[];
+    const overview = (await producer.get(base)).body;
+    const eps = overview.episodes as Ep[];
     const before = await counts('episodes', 'activities');
     const assignment = JSON.stringify(await sequelize.query(`SELECT id, episode_id, episode_position FROM upgrades WHERE build_id = ${buildId} ORDER BY id`, { type: 'SELECT' as never }));
     const draftIdx = eps.findIndex((e) => e.state === 'draft');
     const mk = (mutate: (p: ReturnType<typeof asPlan>) => void) => {
-      const p = asPlan(eps);
+      const p = asPlan(eps, overview.planVersion);
       mutate(p);
       return p;
     };
@@ -177,8 +184,8 @@ describe('the episode plan', () => {
     const i = cycle.indexOf('Front skid plate');
     expect(cycle[(i + 1) % 3]).toBe('400 W cargo power outlet');
     expect(res.body.error.message).toContain('→');
-    const eps = (await producer.get(base)).body.episodes as Ep[];
-    const put = await producer.put(base).send(asPlan(eps));
+    const overview = (await producer.get(base)).body;
+    const put = await producer.put(base).send(asPlan(overview.episodes as Ep[], overview.planVersion));
     expect(put.status).toBe(422);
     expect(put.body.error.cycle.length).toBe(3);
     expect(await counts('episodes', 'activities')).toEqual(before);
@@ -188,6 +195,6 @@ describe('the episode plan', () => {
   it("another build's plan routes answer 404 for an unknown build", async () => {
     const producer = await signInAs('producer');
     expect((await producer.get('/api/builds/999999/plan')).status).toBe(404);
-    expect((await producer.put('/api/builds/999999/plan').send({ episodes: [] })).status).toBe(404);
+    expect((await producer.put('/api/builds/999999/plan').send({ episodes: [], basedOn: 0 })).status).toBe(404);
   });
 });

@@ -30,6 +30,11 @@ beforeAll(async () => {
   otherEp = await Episode.create({ buildId: other.id, number: 1, title: 'Elsewhere', summary: null, shootDate: null, releaseDate: null, videoUrl: null, runtimeSeconds: 600, publishedAt: null });
 });
 
+/** Every upgrade of the episode installed with both segments shot: only then may it go live. */
+async function finishEpisode(ep: Episode) {
+  await Upgrade.update({ installState: 'installed', installSegment: 'shot', demoSegment: 'shot' }, { where: { episodeId: ep.id } });
+}
+
 const GOOD = [
   { startSeconds: 0, title: 'Intro', upgradeId: null },
   { startSeconds: 75, title: 'Cover off' },
@@ -166,6 +171,7 @@ describe('publishing', () => {
 
   it('goes live with the video and date, and tells each viewer who asked, once', async () => {
     const m = await signInAs('marketing');
+    await finishEpisode(ep8);
     const res = await m.post(epUrl(ep8, 'publish')).send({ videoUrl: 'https://video.example/tern-ep8', runtimeSeconds: 1500 });
     expect(res.status).toBe(200);
     expect(res.body.episode).toMatchObject({ state: 'live', videoUrl: 'https://video.example/tern-ep8', runtimeSeconds: 1500 });
@@ -198,6 +204,7 @@ describe('publishing', () => {
     const wheels = (await Upgrade.findOne({ where: { buildId: tern.id, episodeId: ep9.id } }))!;
     await sequelize.query(`UPDATE viewer_requests SET state = 'accepted', upgrade_id = :u WHERE build_id = :b AND title = 'Cargo management rails in the back'`, { replacements: { u: wheels.id, b: tern.id } });
     const m = await signInAs('producer');
+    await finishEpisode(ep9);
     expect((await m.post(epUrl(ep9, 'publish')).send({ videoUrl: 'https://video.example/tern-ep9' })).status).toBe(200);
     const to = (await MailOutbox.findAll({ where: { kind: 'upgrade_live', dedupeKey: { [(await import('sequelize')).Op.like]: `live:${ep9.id}:%` } } })).map((r) => r.toAddress);
     expect(to).toEqual(['sam.w@viewers.test']);

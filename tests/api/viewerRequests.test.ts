@@ -66,7 +66,7 @@ describe('PATCH /viewer-requests/:id', () => {
   it('accepts by linking an existing upgrade; its votes then feed the planner', async () => {
     const r = await requestWithVoters(tern.id, 'Parking sensors please', ['a1@viewers.test', 'a2@viewers.test']);
     const sensors = (await Upgrade.findOne({ where: { buildId: tern.id, title: 'Rear parking sensors' } }))!;
-    const res = await (await signInAs('marketing')).patch(url(r.id)).send({ action: 'accept', upgradeId: sensors.id });
+    const res = await (await signInAs('marketing')).patch(url(r.id)).send({ action: 'accept', upgradeId: sensors.id, version: r.version });
     expect(res.status).toBe(200);
     expect(res.body.request).toMatchObject({ state: 'accepted', upgradeId: sensors.id, upgradeTitle: 'Rear parking sensors', votes: 2 });
     expect((await votesByUpgrade(tern.id))[sensors.id]).toBe(2);
@@ -76,7 +76,7 @@ describe('PATCH /viewer-requests/:id', () => {
   it('accepts by creating a new upgrade in the backlog', async () => {
     const r = await requestWithVoters(tern.id, 'Puddle lamps, again', ['b1@viewers.test']);
     const before = await Upgrade.count({ where: { buildId: tern.id } });
-    const res = await (await signInAs('marketing')).patch(url(r.id)).send({ action: 'accept', newUpgrade: { title: 'Mirror puddle lamps', area: 'sides', estimatedHours: 2 } });
+    const res = await (await signInAs('marketing')).patch(url(r.id)).send({ action: 'accept', newUpgrade: { title: 'Mirror puddle lamps', area: 'sides', estimatedHours: 2 }, version: r.version });
     expect(res.status).toBe(200);
     expect(await Upgrade.count({ where: { buildId: tern.id } })).toBe(before + 1);
     const created = (await Upgrade.findByPk(res.body.request.upgradeId))!;
@@ -88,20 +88,20 @@ describe('PATCH /viewer-requests/:id', () => {
     const keep = await requestWithVoters(tern.id, 'Kick-open tailgate', ['m1@viewers.test', 'm2@viewers.test']);
     const dup = await requestWithVoters(tern.id, 'Foot-activated liftgate', ['m2@viewers.test', 'm3@viewers.test']);
     const chained = await ViewerRequest.create({ buildId: tern.id, title: 'Older dup', details: null, confirmedAt: new Date(), state: 'merged', mergedIntoId: dup.id });
-    const res = await (await signInAs('marketing')).patch(url(dup.id)).send({ action: 'merge', intoId: keep.id });
+    const res = await (await signInAs('marketing')).patch(url(dup.id)).send({ action: 'merge', intoId: keep.id, version: dup.version });
     expect(res.status).toBe(200);
     expect(res.body.request).toMatchObject({ state: 'merged', mergedIntoId: keep.id, mergedIntoTitle: 'Kick-open tailgate', votes: 0 });
     expect(await votesOf(keep.id)).toBe(3);
     expect(await ViewerVote.count({ where: { requestId: dup.id } })).toBe(0);
     expect((await chained.reload()).mergedIntoId).toBe(keep.id);
     // A merged request is not triaged again.
-    const again = await (await signInAs('marketing')).patch(url(dup.id)).send({ action: 'decline', reason: 'dup' });
+    const again = await (await signInAs('marketing')).patch(url(dup.id)).send({ action: 'decline', reason: 'dup', version: (await dup.reload()).version });
     expect(again.status).toBe(409);
   });
 
   it('declines with a reason', async () => {
     const r = await requestWithVoters(tern.id, 'Aftermarket light bar', ['d1@viewers.test']);
-    const res = await (await signInAs('producer')).patch(url(r.id)).send({ action: 'decline', reason: 'Not a factory-original part.' });
+    const res = await (await signInAs('producer')).patch(url(r.id)).send({ action: 'decline', reason: 'Not a factory-original part.', version: r.version });
     expect(res.status).toBe(200);
     expect(res.body.request).toMatchObject({ state: 'declined', declineReason: 'Not a factory-original part.' });
   });
@@ -123,7 +123,7 @@ describe('PATCH /viewer-requests/:id', () => {
       const foreignReq = await requestWithVoters(other.id, 'Foreign request', []);
       const foreignUpgrade = await Upgrade.create({ buildId: other.id, title: 'Foreign', area: 'front', replaces: null, becomes: null, installedOn: null, episodeId: null, episodePosition: null, notes: null, tireFrom: null, tireTo: null });
       const before = await counts(...TABLES);
-      const res = await (await signInAs('marketing')).patch(url(self.id)).send(body({ other: foreignReq.id, self: self.id, foreignUpgrade: foreignUpgrade.id }));
+      const res = await (await signInAs('marketing')).patch(url(self.id)).send({ ...body({ other: foreignReq.id, self: self.id, foreignUpgrade: foreignUpgrade.id }), version: self.version });
       expect(res.status).toBe(400);
       expect(res.body.error.fields.map((f: { path: string }) => f.path)).toContain(field);
       expect(await counts(...TABLES)).toEqual(before);
@@ -134,9 +134,9 @@ describe('PATCH /viewer-requests/:id', () => {
   it("answers 404 for another build's request through this build, and 403 for the installer", async () => {
     const foreign = await requestWithVoters(other.id, 'Foreign, again', []);
     const before = await counts(...TABLES);
-    expect((await (await signInAs('marketing')).patch(url(foreign.id)).send({ action: 'decline', reason: 'no' })).status).toBe(404);
+    expect((await (await signInAs('marketing')).patch(url(foreign.id)).send({ action: 'decline', reason: 'no', version: foreign.version })).status).toBe(404);
     const mine = await requestWithVoters(tern.id, 'Installer tries', []);
-    expect((await (await signInAs('installer')).patch(url(mine.id)).send({ action: 'decline', reason: 'no' })).status).toBe(403);
+    expect((await (await signInAs('installer')).patch(url(mine.id)).send({ action: 'decline', reason: 'no', version: mine.version })).status).toBe(403);
     expect((await foreign.reload()).state).toBe('new');
     expect((await counts(...TABLES)).activities).toBe(before.activities);
   });

@@ -54,7 +54,10 @@ describe('episode planner in the browser', () => {
       // The two unplanned demo upgrades show up as new in the proposal.
       await proposal.getByText('Heated front seats — new in the plan').waitFor();
       await audit(s, 'proposal beside the current plan');
-      await outcomeOf(page, () => proposal.getByRole('button', { name: 'Accept proposal' }).click(), { request: { method: 'PUT', path: `/api/builds/${buildId}/plan` } });
+      // What accepting changes is listed first, and applying asks for confirmation.
+      await proposal.locator('[data-test="proposal-summary"]').getByText(/upgrades? move/).first().waitFor();
+      await proposal.getByRole('button', { name: 'Accept proposal' }).click();
+      await outcomeOf(page, () => page.getByRole('dialog').getByRole('button', { name: 'Apply the plan' }).click(), { request: { method: 'PUT', path: `/api/builds/${buildId}/plan` } });
       await proposal.waitFor({ state: 'detached' });
       await page.getByText(/Proposal applied/).waitFor();
       await page.getByRole('heading', { name: 'No problems in this plan' }).waitFor();

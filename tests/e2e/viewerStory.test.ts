@@ -118,6 +118,10 @@ describe('viewer story', () => {
       await producer.close();
     }
 
+    // The shop finishes every upgrade of the episode (the shop floor's own journeys cover those marks);
+    // only a finished episode goes live.
+    await Upgrade.update({ installState: 'installed', installSegment: 'shot', demoSegment: 'shot' }, { where: { episodeId: episode.id } });
+
     // 5. Marketing publishes that episode on the Publish screen.
     const publisher = await openBrowser({ server: app!.server });
     try {
