@@ -23,6 +23,7 @@ import { publicRouter } from './public';
 import { invitationsRouter } from './invitations';
 import { mailRouter } from './mail';
 import { slipsRouter, noticesRouter } from './slips';
+import { eventsRouter } from './events';
 
 interface Mount {
   prefix: string;
@@ -48,6 +49,7 @@ function mounts(): Mount[] {
     { prefix: '/api/builds/:buildId/episodes', router: episodesRouter() },
     { prefix: '/api/builds/:buildId/plan', router: planRouter() },
     { prefix: '/api/builds/:buildId/shop-floor', router: shopFloorRouter() },
+    { prefix: '/api/builds/:buildId/events', router: eventsRouter() },
     { prefix: '/api/builds/:buildId/calendar', router: buildCalendarRouter() },
     { prefix: '/api/calendar', router: calendarFeedRouter() },
     { prefix: '/api/builds/:buildId/link-health', router: linkHealthRouter() },

@@ -1,16 +1,20 @@
-// The installer's view of the episode being worked: its upgrades in running order with their parts,
-// safety cautions and whether their prerequisites are installed (and if not, which ones block them).
-import { Op } from 'sequelize';
-import { Episode, Part, Upgrade, UpgradePrerequisite, type Build } from '../models';
+// The installer's view of the bay: first every upgrade in the bay now whatever its episode's state,
+// then the episode being worked in running order; each with its parts, safety cautions (and whether
+// this person has read them), hours logged, and whether its prerequisites are installed.
+import { Op, QueryTypes } from 'sequelize';
+import { sequelize, Activity, Episode, Part, Upgrade, UpgradePrerequisite, type Build } from '../models';
 import { notFound } from '../errors';
-import { forViewer, type Viewer } from './visibility';
+import { forViewer } from './visibility';
 import { toRecord, upgradeIdsByEpisode } from './episodes';
 import { cautionsFor } from '../../shared/safety';
-import { toPartRecord, toUpgradeRecord } from './backlogRecords';
+import { toPartRecord, toUpgradeRecord, type Person } from './backlogRecords';
 import type { EpisodeRecord, PartRecord, UpgradeRecord } from '../../shared/domain';
 
 /** States an installer works in: about to be shot, or shot with pick-up work left. */
 const WORKING_STATES = ['scheduled', 'shot', 'in_edit'] as const;
+
+const today = () => new Date().toISOString().slice(0, 10);
+const round2 = (h: number) => Math.round(h * 100) / 100;
 
 /**
  * The next episode to work: the scheduled one with the earliest shoot date (then lowest number);
@@ -28,21 +32,32 @@ async function pickEpisode(buildId: number, episodeId?: number) {
   return candidates[0] ?? null;
 }
 
-export async function shopFloor(build: Build, viewer: Viewer, episodeId?: number) {
-  const [ep, choices, idsByEpisode] = await Promise.all([
-    pickEpisode(build.id, episodeId),
-    Episode.findAll({ where: { buildId: build.id, state: { [Op.in]: [...WORKING_STATES] } }, order: [['number', 'ASC']] }),
-    upgradeIdsByEpisode(build.id),
-  ]);
-  const episodeOf = (e: Episode): EpisodeRecord => toRecord(e, idsByEpisode.get(e.id) ?? []);
-  const choiceList = choices.map((e) => ({ id: e.id, number: e.number, title: e.title, state: e.state, shootDate: e.shootDate }));
-  if (!ep) return { episode: null, upgrades: [], choices: choiceList };
+/** Hours per upgrade (this person's and everyone's) and today's totals, from labour entries. */
+async function hoursOf(buildId: number, ids: number[], userId: number) {
+  const rows = ids.length
+    ? await sequelize.query<{ upgrade_id: number; mine: number; everyone: number }>(
+        `SELECT upgrade_id, COALESCE(SUM(hours) FILTER (WHERE user_id = :u), 0)::float AS mine, SUM(hours)::float AS everyone
+           FROM labour_entries WHERE build_id = :b AND upgrade_id IN (:ids) GROUP BY upgrade_id`,
+        { replacements: { b: buildId, u: userId, ids }, type: QueryTypes.SELECT },
+      )
+    : [];
+  const day = today();
+  const [t] = await sequelize.query<{ mine: number; everyone: number }>(
+    `SELECT COALESCE(SUM(hours) FILTER (WHERE user_id = :u), 0)::float AS mine, COALESCE(SUM(hours), 0)::float AS everyone
+       FROM labour_entries WHERE build_id = :b AND worked_on = :day`,
+    { replacements: { b: buildId, u: userId, day }, type: QueryTypes.SELECT },
+  );
+  const byUpgrade = new Map(rows.map((r) => [r.upgrade_id, { mine: round2(r.mine), everyone: round2(r.everyone) }]));
+  return { byUpgrade, today: { date: day, mine: round2(t.mine), everyone: round2(t.everyone) } };
+}
 
-  const ids = idsByEpisode.get(ep.id) ?? [];
-  const [ups, parts, edges] = await Promise.all([
+async function items(build: Build, viewer: Person, ids: number[]) {
+  const [ups, parts, edges, reads, hours] = await Promise.all([
     Upgrade.findAll({ where: { buildId: build.id, id: { [Op.in]: ids } } }),
     Part.findAll({ where: { buildId: build.id, upgradeId: { [Op.in]: ids } }, order: [['id', 'ASC']] }),
     UpgradePrerequisite.findAll({ where: { buildId: build.id, upgradeId: { [Op.in]: ids } } }),
+    Activity.findAll({ where: { buildId: build.id, entity: 'upgrade', entityId: { [Op.in]: ids }, action: 'caution_read', userId: viewer.id }, attributes: ['entityId'] }),
+    hoursOf(build.id, ids, viewer.id),
   ]);
   const prereqIds = [...new Set(edges.map((e) => e.prerequisiteId))];
   const prereqs = prereqIds.length
@@ -50,8 +65,8 @@ export async function shopFloor(build: Build, viewer: Viewer, episodeId?: number
     : [];
   const prereqById = new Map(prereqs.map((p) => [p.id, p]));
   const byId = new Map(ups.map((u) => [u.id, u]));
-
-  const upgrades = ids.map((id) => {
+  const read = new Set(reads.map((r) => r.entityId));
+  const list = ids.map((id) => {
     const u = byId.get(id)!;
     const mine = edges.filter((e) => e.upgradeId === id).map((e) => e.prerequisiteId);
     const blocked = mine.map((p) => prereqById.get(p)).filter((p) => p && p.installState !== 'installed');
@@ -61,7 +76,29 @@ export async function shopFloor(build: Build, viewer: Viewer, episodeId?: number
       prerequisitesMet: blocked.length === 0,
       blockedBy: blocked.map((p) => p!.title),
       cautions: cautionsFor(u.safetyFlags),
+      cautionRead: read.has(id),
+      hours: hours.byUpgrade.get(id) ?? { mine: 0, everyone: 0 },
     };
   });
-  return { episode: episodeOf(ep), upgrades, choices: choiceList };
+  return { list, today: hours.today };
+}
+
+export async function shopFloor(build: Build, viewer: Person, episodeId?: number) {
+  const [ep, choices, idsByEpisode, inBayRows] = await Promise.all([
+    pickEpisode(build.id, episodeId),
+    Episode.findAll({ where: { buildId: build.id, state: { [Op.in]: [...WORKING_STATES] } }, order: [['number', 'ASC']] }),
+    upgradeIdsByEpisode(build.id),
+    Upgrade.findAll({ where: { buildId: build.id, installState: 'in_bay' }, attributes: ['id', 'episodeId'], order: [['id', 'ASC']] }),
+  ]);
+  const episodeOf = (e: Episode): EpisodeRecord => toRecord(e, idsByEpisode.get(e.id) ?? []);
+  const choiceList = choices.map((e) => ({ id: e.id, number: e.number, title: e.title, state: e.state, shootDate: e.shootDate }));
+  const ids = ep ? (idsByEpisode.get(ep.id) ?? []) : [];
+  // In the bay now: in-bay work not already listed in the episode shown, so nothing shows twice.
+  const inBayIds = inBayRows.filter((u) => !ids.includes(u.id)).map((u) => u.id);
+  const { list, today: day } = await items(build, viewer, [...inBayIds, ...ids]);
+  const episodeIds = [...new Set(inBayRows.map((u) => u.episodeId).filter((e): e is number => e !== null))];
+  const eps = episodeIds.length ? await Episode.findAll({ where: { buildId: build.id, id: { [Op.in]: episodeIds } } }) : [];
+  const epById = new Map(eps.map((e) => [e.id, { id: e.id, number: e.number, title: e.title, state: e.state }]));
+  const inBay = list.slice(0, inBayIds.length).map((item) => ({ ...item, episode: epById.get(item.upgrade.episodeId ?? -1) ?? null }));
+  return { episode: ep ? episodeOf(ep) : null, inBay, upgrades: list.slice(inBayIds.length), choices: choiceList, today: day };
 }

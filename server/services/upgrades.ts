@@ -20,6 +20,7 @@ import {
   type Person,
 } from './backlogRecords';
 import { findCycle } from '../../shared/planner/criticalPath';
+import { checkMarks, partWords } from './upgradeMarks';
 import { cautionsFor } from '../../shared/safety';
 import { INSTALLER_UPGRADE_FIELDS, type CreateUpgradeInput, type UpdateUpgradeInput, type UpgradeListQuery } from '../../shared/schemas/upgrade';
 
@@ -137,8 +138,9 @@ export async function updateUpgrade(actor: Person, build: Build, id: number, inp
   return sequelize.transaction(async (t) => {
     const u = await findUpgrade(build.id, id, t, true);
     if (u.version !== input.version) throw stale(await upgradeRecord(u, t), actor);
-    const { version: _v, ...fields } = input;
+    const { version: _v, confirmPartsNotReceived, ...fields } = input;
     await requireEpisodeInBuild(build.id, fields.episodeId, t);
+    const notReceived = await checkMarks(u, fields, confirmPartsNotReceived, t);
     const entering = fields.installState && fields.installState !== u.installState && fields.installState !== 'queued';
     if (entering && isInstallerOnly(actor)) {
       const missing = await uninstalledPrerequisites(u, t);
@@ -158,7 +160,8 @@ export async function updateUpgrade(actor: Person, build: Build, id: number, inp
     await u.save({ transaction: t });
     const after = await upgradeRecord(u, t);
     const changes = diff(before, after);
-    await record(t, { actor, buildId: build.id, entity: 'upgrade', entityId: u.id, action: 'update', summary: `Changed ${u.title}: ${changedFields(changes)}`, changes });
+    const goingAhead = notReceived.length ? ` — marked installed with parts not received: ${notReceived.map(partWords).join('; ')}` : '';
+    await record(t, { actor, buildId: build.id, entity: 'upgrade', entityId: u.id, action: 'update', summary: `Changed ${u.title}: ${changedFields(changes)}${goingAhead}`, changes });
     return after;
   });
 }

@@ -54,10 +54,15 @@ export const createUpgradeSchema = z.strictObject({
   prerequisiteIds: z.array(refId).max(500).optional(),
 });
 
-export const updateUpgradeSchema = z.strictObject({ ...optionalAll, version: z.number().int().min(0) });
+export const updateUpgradeSchema = z.strictObject({
+  ...optionalAll,
+  version: z.number().int().min(0),
+  /** Goes with installState "installed": the person was told which parts are not received and goes ahead. */
+  confirmPartsNotReceived: z.boolean().optional(),
+});
 
 /** Fields an installer may change on an upgrade (with version); anything else is refused 403. */
-export const INSTALLER_UPGRADE_FIELDS = ['installState', 'installSegment', 'demoSegment', 'version'] as const;
+export const INSTALLER_UPGRADE_FIELDS = ['installState', 'installSegment', 'demoSegment', 'version', 'confirmPartsNotReceived'] as const;
 
 export const prerequisitesSchema = z.strictObject({ prerequisiteIds: z.array(refId).max(500) });
 

@@ -51,7 +51,7 @@ export interface ActivityRow {
 export type UpgradeInput = Partial<Omit<UpgradeRecord, 'id' | 'buildId' | 'version' | 'prerequisiteIds' | 'episodePosition'>>;
 
 /** The fields an installer may change. */
-export type InstallerChange = { installState?: InstallState; installSegment?: SegmentState; demoSegment?: SegmentState };
+export type InstallerChange = { installState?: InstallState; installSegment?: SegmentState; demoSegment?: SegmentState; confirmPartsNotReceived?: boolean };
 
 /** The answer of a CSV import, dry run or not. */
 export interface ImportReport {

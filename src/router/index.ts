@@ -57,13 +57,34 @@ const routes: RouteRecordRaw[] = [
 
 export const router = createRouter({ history: createWebHistory(), routes });
 
-router.beforeEach(async (to) => {
+router.beforeEach(async (to, from) => {
   const session = useSessionStore();
   if (to.meta.public) return true;
   if (!session.checked) await session.refresh();
   if (!session.user) return { name: 'sign-in', query: to.fullPath !== '/' ? { next: to.fullPath } : {} };
   if (to.meta.roles && !session.can(...to.meta.roles)) return { name: 'builds' };
+  if (to.name === 'builds' && (from.name === 'sign-in' || !from.matched.length) && isInstallerOnly(session.user.roles)) {
+    const id = await currentBuildId();
+    if (id) return { name: 'shop-floor', params: { buildId: id }, replace: true };
+  }
   return true;
+});
+
+/** Installers land on the shop floor of their current build (the last one they opened, else the first). */
+const isInstallerOnly = (roles: readonly Role[]) => roles.includes('installer') && !roles.some((r) => r !== 'installer');
+const LAST_BUILD = 'bayslate.lastBuild';
+async function currentBuildId(): Promise<string | null> {
+  try {
+    const { buildsApi } = await import('@/api/builds');
+    const { builds } = await buildsApi.list();
+    const last = localStorage.getItem(LAST_BUILD);
+    return String(builds.find((b) => String(b.id) === last)?.id ?? builds[0]?.id ?? '') || null;
+  } catch {
+    return null;
+  }
+}
+router.afterEach((to) => {
+  if (to.params.buildId) localStorage.setItem(LAST_BUILD, String(to.params.buildId));
 });
 
 router.afterEach((to) => {

@@ -1,0 +1,60 @@
+// Live updates of one build: listens to the server's event stream (GET /api/builds/:id/events) while
+// the component is mounted and calls `onChange` with what changed ("upgrades", "parts", … or "*"
+// after a reconnect), so the screen re-fetches through its normal API. A burst of notices within a
+// short window becomes one call; EventSource reconnects by itself when the network comes back.
+import { onBeforeUnmount, onMounted, ref, watch, type Ref } from 'vue';
+
+const GATHER_MS = 200;
+
+export function useBuildEvents(buildId: Ref<number | null | undefined> | (() => number | null | undefined), onChange: (what: string[]) => void) {
+  const connected = ref(false);
+  let source: EventSource | null = null;
+  let timer: ReturnType<typeof setTimeout> | null = null;
+  let gathered = new Set<string>();
+  let opened = false;
+  const read = () => (typeof buildId === 'function' ? buildId() : buildId.value);
+
+  function fire() {
+    timer = null;
+    const what = [...gathered];
+    gathered = new Set();
+    onChange(what);
+  }
+  function queue(what: string[]) {
+    what.forEach((w) => gathered.add(w));
+    timer ??= setTimeout(fire, GATHER_MS);
+  }
+  function close() {
+    source?.close();
+    source = null;
+    connected.value = false;
+    opened = false;
+  }
+  function open(id: number | null | undefined) {
+    close();
+    if (!id || typeof EventSource === 'undefined') return;
+    source = new EventSource(`/api/builds/${id}/events`);
+    source.addEventListener('ready', () => {
+      // A reconnect may have missed changes: fetch everything once more.
+      if (opened) queue(['*']);
+      opened = true;
+      connected.value = true;
+    });
+    source.addEventListener('change', (e) => {
+      try {
+        queue((JSON.parse((e as MessageEvent<string>).data) as { what: string[] }).what);
+      } catch {
+        queue(['*']);
+      }
+    });
+    source.addEventListener('error', () => (connected.value = false));
+  }
+
+  onMounted(() => open(read()));
+  watch(read, (id) => open(id));
+  onBeforeUnmount(() => {
+    close();
+    if (timer) clearTimeout(timer);
+  });
+  return { connected };
+}
