@@ -108,6 +108,10 @@ export interface BuildRecord {
   isPublic: boolean;
   campaign: string | null;
   summary: string | null;
+  /** ISO 4217 code the build's store sells in (sales imports accept only this one). */
+  currency: string;
+  /** Days after an episode's release in which an untagged sale of a part it showed counts as assisted. */
+  attributionWindowDays: number;
   version: number;
 }
 
@@ -148,6 +152,8 @@ export interface PartRecord {
   productUrl: string | null;
   expectedArrival: string | null;
   state: PartState;
+  /** The store's code for this part when it differs from the part number. */
+  storeSku?: string | null;
 }
 
 export interface RemovedPartRecord {

@@ -27,6 +27,8 @@ export class Build extends Model<InferAttributes<Build>, InferCreationAttributes
   declare campaign: string | null;
   declare summary: string | null;
   declare calendarToken: CreationOptional<string>;
+  declare currency: CreationOptional<string>;
+  declare attributionWindowDays: CreationOptional<number>;
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -54,6 +56,8 @@ Build.init(
     campaign: { type: DataTypes.TEXT, allowNull: true },
     summary: { type: DataTypes.TEXT, allowNull: true },
     calendarToken: { type: DataTypes.TEXT, allowNull: false, defaultValue: newCalendarToken },
+    currency: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'USD' },
+    attributionWindowDays: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 30 },
     version: DataTypes.INTEGER,
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,

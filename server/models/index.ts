@@ -16,6 +16,7 @@ import { ViewerVote } from './viewerVote';
 import { MailOutbox } from './mailOutbox';
 import { Unsubscribe } from './unsubscribe';
 import { Media } from './media';
+export { SaleLine, SaleImport, SalesMapping } from './saleModels';
 
 Build.hasMany(Upgrade, { foreignKey: 'buildId', as: 'upgrades' });
 Upgrade.belongsTo(Build, { foreignKey: 'buildId', as: 'build' });

@@ -21,6 +21,7 @@ import { linkHealthRouter, campaignRouter } from './linkHealth';
 import { viewerRequestsRouter } from './viewerRequests';
 import { publicRouter } from './public';
 import { invitationsRouter } from './invitations';
+import { salesRouter } from './sales';
 
 interface Mount {
   prefix: string;
@@ -53,6 +54,7 @@ function mounts(): Mount[] {
     { prefix: '/api/builds/:buildId/viewer-requests', router: viewerRequestsRouter() },
     { prefix: '/api/public', router: publicRouter() },
     { prefix: '/api/invitations', router: invitationsRouter() },
+    { prefix: '/api/builds/:buildId/sales', router: salesRouter() },
   ];
 }
 

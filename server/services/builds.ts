@@ -32,6 +32,8 @@ export function toBuildRecord(b: Build): Plain<BuildRecord & { vinCheckOverridde
     isPublic: b.isPublic,
     campaign: b.campaign,
     summary: b.summary,
+    currency: b.currency,
+    attributionWindowDays: b.attributionWindowDays,
     version: b.version,
   };
 }

@@ -3,6 +3,7 @@
 import { z } from 'zod';
 import { checkVin } from '../vin';
 import { cents, isoDate, optionalText, requiredText, text } from './common';
+import { currencyCode } from './sales';
 
 const slug = z
   .string()
@@ -42,6 +43,8 @@ const fields = {
   isPublic: z.boolean(),
   campaign,
   summary: optionalText(2000),
+  currency: currencyCode,
+  attributionWindowDays: z.number().int('must be whole days').min(0, 'cannot be negative').max(365, 'must be at most 365'),
 };
 
 /** Adds the VIN check: structural problems always refuse; a wrong check digit refuses unless overridden. */
@@ -70,6 +73,8 @@ export const createBuildSchema = z
     isPublic: fields.isPublic.optional(),
     campaign: fields.campaign.optional(),
     summary: fields.summary.optional(),
+    currency: fields.currency.optional(),
+    attributionWindowDays: fields.attributionWindowDays.optional(),
   })
   .superRefine(vinRule);
 
@@ -93,6 +98,8 @@ export const updateBuildSchema = z
     isPublic: fields.isPublic.optional(),
     campaign: fields.campaign.optional(),
     summary: fields.summary.optional(),
+    currency: fields.currency.optional(),
+    attributionWindowDays: fields.attributionWindowDays.optional(),
     version: z.number().int().min(0),
   })
   .superRefine(vinRule);

@@ -20,6 +20,8 @@ const fields = {
   orderedOn: nullableDate,
   receivedOn: nullableDate,
   state: z.enum(PART_STATES),
+  /** The code the store sells this part under, when it is not the part number. */
+  storeSku: optionalText(60),
 };
 
 const optionalAll = Object.fromEntries(Object.entries(fields).map(([k, s]) => [k, s.optional()])) as {
