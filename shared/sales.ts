@@ -345,10 +345,18 @@ export function salesFigures(input: AttributionInput & { netCostCents: number; n
     }));
   const partUpgrade = new Map(input.parts.map((p) => [p.id, p.upgradeId]));
   const episodeById = new Map(input.episodes.map((e) => [e.id, e]));
+  const linesOfUpgrade = new Map<number, AttributedLine[]>();
+  for (const l of lines) {
+    const u = l.partId === null ? undefined : partUpgrade.get(l.partId);
+    if (u === undefined) continue;
+    const list = linesOfUpgrade.get(u);
+    if (list) list.push(l);
+    else linesOfUpgrade.set(u, [l]);
+  }
   const upgrades = input.upgrades.map((u) => {
     const ep = u.episodeId == null ? undefined : episodeById.get(u.episodeId);
     const release = ep?.releaseDate ?? null;
-    const mine = release === null ? [] : lines.filter((l) => l.partId !== null && partUpgrade.get(l.partId) === u.id && l.soldOn >= release);
+    const mine = release === null ? [] : (linesOfUpgrade.get(u.id) ?? []).filter((l) => l.soldOn >= release);
     return { upgradeId: u.id, title: u.title, episodeId: u.episodeId, episodeNumber: ep?.number ?? null, releaseDate: release, sinceRelease: figuresOf(mine) };
   });
   const direct = figuresOf(byKind('direct'));
