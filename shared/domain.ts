@@ -112,6 +112,10 @@ export interface BuildRecord {
   timeZone: string;
   /** When a part's cost becomes actual cost (shared/costRecognition.ts). */
   costRecognition: 'fitting' | 'receipt';
+  /** ISO 4217 code the build's store sells in (sales imports accept only this one). */
+  currency: string;
+  /** Days after an episode's release in which an untagged sale of a part it showed counts as assisted. */
+  attributionWindowDays: number;
   version: number;
 }
 
@@ -152,6 +156,8 @@ export interface PartRecord {
   productUrl: string | null;
   expectedArrival: string | null;
   state: PartState;
+  /** The store's code for this part when it differs from the part number. */
+  storeSku?: string | null;
 }
 
 export interface RemovedPartRecord {

@@ -24,6 +24,7 @@ export const buildNav: NavItem[] = [
   { label: 'Planner', name: 'planner', roles: ['producer'], icon: 'film' },
   { label: 'Shop floor', name: 'shop-floor', roles: ['installer', 'producer'], icon: 'wrench' },
   { label: 'Publish', name: 'publish', roles: ['marketing', 'producer'], icon: 'megaphone' },
+  { label: 'Sales', name: 'sales', roles: ['marketing', 'producer'], icon: 'chart' },
   { label: 'Viewer requests', name: 'viewer-requests', roles: ['marketing', 'producer'], icon: 'inbox' },
   { label: 'Settings', name: 'build-settings', roles: ['producer'], icon: 'settings' },
 ];

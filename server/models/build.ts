@@ -29,6 +29,8 @@ export class Build extends Model<InferAttributes<Build>, InferCreationAttributes
   declare calendarToken: CreationOptional<string>;
   declare timeZone: CreationOptional<string>;
   declare costRecognition: CreationOptional<'fitting' | 'receipt'>;
+  declare currency: CreationOptional<string>;
+  declare attributionWindowDays: CreationOptional<number>;
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -58,6 +60,8 @@ Build.init(
     calendarToken: { type: DataTypes.TEXT, allowNull: false, defaultValue: newCalendarToken },
     timeZone: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'UTC' },
     costRecognition: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'fitting' },
+    currency: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'USD' },
+    attributionWindowDays: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 30 },
     version: DataTypes.INTEGER,
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,

@@ -17,6 +17,7 @@ import { MailOutbox } from './mailOutbox';
 import { Unsubscribe } from './unsubscribe';
 import { Media } from './media';
 import { PlanRevision } from './planRevision';
+export { SaleLine, SaleImport, SalesMapping } from './saleModels';
 
 Build.hasMany(Upgrade, { foreignKey: 'buildId', as: 'upgrades' });
 Upgrade.belongsTo(Build, { foreignKey: 'buildId', as: 'build' });

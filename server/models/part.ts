@@ -19,6 +19,7 @@ export class Part extends Model<InferAttributes<Part>, InferCreationAttributes<P
   declare orderedOn: string | null;
   declare receivedOn: string | null;
   declare state: CreationOptional<PartState>;
+  declare storeSku: CreationOptional<string | null>;
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -41,6 +42,7 @@ Part.init(
     orderedOn: DataTypes.DATEONLY,
     receivedOn: DataTypes.DATEONLY,
     state: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'to_order' },
+    storeSku: { type: DataTypes.TEXT, allowNull: true },
     version: DataTypes.INTEGER,
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,

@@ -24,6 +24,7 @@ import { invitationsRouter } from './invitations';
 import { mailRouter } from './mail';
 import { slipsRouter, noticesRouter } from './slips';
 import { eventsRouter } from './events';
+import { salesRouter } from './sales';
 
 interface Mount {
   prefix: string;
@@ -60,6 +61,7 @@ function mounts(): Mount[] {
     { prefix: '/api/mail', router: mailRouter() },
     { prefix: '/api/builds/:buildId/slips', router: slipsRouter() },
     { prefix: '/api/builds/:buildId/notices', router: noticesRouter() },
+    { prefix: '/api/builds/:buildId/sales', router: salesRouter() },
   ];
 }
 

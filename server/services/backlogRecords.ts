@@ -54,6 +54,7 @@ export function toPartRecord(p: Part): Plain<PartRecord & { orderedOn: string | 
     orderedOn: p.orderedOn,
     receivedOn: p.receivedOn,
     state: p.state,
+    storeSku: p.storeSku ?? null,
     version: p.version,
   };
 }

@@ -34,6 +34,8 @@ export function toBuildRecord(b: Build): Plain<BuildRecord & { vinCheckOverridde
     summary: b.summary,
     timeZone: b.timeZone,
     costRecognition: b.costRecognition,
+    currency: b.currency,
+    attributionWindowDays: b.attributionWindowDays,
     version: b.version,
   };
 }

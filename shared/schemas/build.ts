@@ -5,6 +5,7 @@ import { checkVin } from '../vin';
 import { isValidTimeZone } from '../dates';
 import { COST_RECOGNITIONS } from '../costRecognition';
 import { cents, isoDate, optionalText, requiredText, text } from './common';
+import { currencyCode } from './sales';
 
 const slug = z
   .string()
@@ -46,6 +47,8 @@ const fields = {
   summary: optionalText(2000),
   timeZone: z.string().trim().refine(isValidTimeZone, 'must be an IANA time zone name such as America/Denver'),
   costRecognition: z.enum(COST_RECOGNITIONS, 'must be at fitting or at receipt'),
+  currency: currencyCode,
+  attributionWindowDays: z.number().int('must be whole days').min(0, 'cannot be negative').max(365, 'must be at most 365'),
 };
 
 /** Adds the VIN check: structural problems always refuse; a wrong check digit refuses unless overridden. */
@@ -76,6 +79,8 @@ export const createBuildSchema = z
     summary: fields.summary.optional(),
     timeZone: fields.timeZone.optional(),
     costRecognition: fields.costRecognition.optional(),
+    currency: fields.currency.optional(),
+    attributionWindowDays: fields.attributionWindowDays.optional(),
   })
   .superRefine(vinRule);
 
@@ -101,6 +106,8 @@ export const updateBuildSchema = z
     summary: fields.summary.optional(),
     timeZone: fields.timeZone.optional(),
     costRecognition: fields.costRecognition.optional(),
+    currency: fields.currency.optional(),
+    attributionWindowDays: fields.attributionWindowDays.optional(),
     version: z.number().int().min(0),
   })
   .superRefine(vinRule);

@@ -20,6 +20,8 @@ const fields = {
   orderedOn: nullableDate,
   receivedOn: nullableDate,
   state: z.enum(PART_STATES),
+  /** The code the store sells this part under, when it is not the part number. */
+  storeSku: optionalText(60),
 };
 
 const optionalAll = Object.fromEntries(Object.entries(fields).map(([k, s]) => [k, s.optional()])) as {
@@ -35,7 +37,7 @@ export const createPartSchema = z.strictObject({
 export const updatePartSchema = z.strictObject({ ...optionalAll, version: z.number().int().min(0).optional() });
 
 /** What marketing may change on a part (the store's product page). */
-export const MARKETING_PART_FIELDS = ['productUrl', 'version'] as const;
+export const MARKETING_PART_FIELDS = ['productUrl', 'storeSku', 'version'] as const;
 /** What an installer may change on a part: receive or fit it. */
 export const INSTALLER_PART_FIELDS = ['state', 'receivedOn', 'version'] as const;
 export const INSTALLER_PART_STATES = ['received', 'fitted'] as const;

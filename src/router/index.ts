@@ -30,6 +30,7 @@ export const buildRoutes: RouteRecordRaw[] = [
   { path: 'planner', name: 'planner', component: () => import('@/views/PlannerView.vue'), meta: { roles: ['producer'], title: 'Episode planner' } },
   { path: 'shop-floor', name: 'shop-floor', component: () => import('@/views/ShopFloorView.vue'), meta: { roles: ['installer', 'producer'], title: 'Shop floor' } },
   { path: 'publish', name: 'publish', component: () => import('@/views/PublishView.vue'), meta: { roles: ['marketing', 'producer'], title: 'Publish' } },
+  { path: 'sales', name: 'sales', component: () => import('@/views/SalesView.vue'), meta: { roles: ['marketing', 'producer'], title: 'Sales' } },
   { path: 'viewer-requests', name: 'viewer-requests', component: () => import('@/views/ViewerRequestsView.vue'), meta: { roles: ['marketing', 'producer'], title: 'Viewer requests' } },
   { path: 'settings', name: 'build-settings', component: () => import('@/views/BuildSettingsView.vue'), meta: { roles: ['producer'], title: 'Build settings' } },
 ];
