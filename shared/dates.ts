@@ -12,7 +12,7 @@ const ISO_DAY = /^(\d{4})-(\d{2})-(\d{2})$/;
 /** Whether `zone` is an IANA zone name the runtime knows ("America/Denver", "UTC"); offsets such as "+07:00" are not names. */
 export function isValidTimeZone(zone: unknown): zone is string {
   if (typeof zone !== 'string' || zone.length === 0 || zone.length > 64) return false;
-  if (!/^[A-Za-z][A-Za-z0-9_+\-]*(\/[A-Za-z0-9_+\-]+)*$/.test(zone)) return false;
+  if (!/^[A-Za-z][A-Za-z0-9_+-]*(\/[A-Za-z0-9_+-]+)*$/.test(zone)) return false;
   try {
     new Intl.DateTimeFormat('en-US', { timeZone: zone });
     return true;

@@ -10,6 +10,7 @@
 //   Corporate Treasurers, glossary "Payback period"). The build is paid for over time, so we compare
 //   cumulative margin with cumulative net cost day by day (see paybackOf).
 import { rollUpCosts, type CostInput } from './costs';
+import { parseUrl, type WebUrl } from './webUrl';
 
 export type Attribution = 'direct' | 'assisted' | 'unattributed';
 
@@ -70,17 +71,37 @@ export function episodeNumberOf(content: string | null | undefined): number | nu
   return m ? Number(m[1]) : null;
 }
 
+/** The query of an address as a map (first value of each name wins), decoded as forms encode it. */
+function queryParams(search: string): Map<string, string> {
+  const out = new Map<string, string>();
+  for (const pair of search.replace(/^\?/, '').split('&')) {
+    if (!pair) continue;
+    const eq = pair.indexOf('=');
+    const decode = (x: string) => {
+      try {
+        return decodeURIComponent(x.replace(/\+/g, ' '));
+      } catch {
+        return x;
+      }
+    };
+    const name = decode(eq < 0 ? pair : pair.slice(0, eq));
+    if (!out.has(name)) out.set(name, decode(eq < 0 ? '' : pair.slice(eq + 1)));
+  }
+  return out;
+}
+
 /** utm_campaign and utm_content of a landing page address (absolute or a path); blank when absent. */
 export function tagsOfUrl(url: string | null | undefined): { campaign: string | null; content: string | null } {
   const t = (url ?? '').trim();
   if (!t) return { campaign: null, content: null };
-  let u: URL;
+  let u: WebUrl;
   try {
-    u = new URL(t, 'https://store.invalid/');
+    u = parseUrl(/^[a-z][a-z0-9+.-]*:/i.test(t) ? t : `https://store.invalid${t.startsWith('/') ? '' : '/'}${t}`);
   } catch {
     return { campaign: null, content: null };
   }
-  const v = (k: string) => u.searchParams.get(k)?.trim() || null;
+  const params = queryParams(u.search);
+  const v = (k: string) => params.get(k)?.trim() || null;
   return { campaign: v('utm_campaign'), content: v('utm_content') };
 }
 

@@ -6,7 +6,7 @@ import { Router } from 'express';
 import { requireRole } from '../middleware/roles';
 import { validate, validQuery } from '../middleware/validate';
 import { buildOf, loadBuild } from '../middleware/build';
-import { csvBody } from '../services/csv/http';
+import { csvBody } from './csvHttp';
 import { salesForViewer } from '../services/visibility';
 import { salesLines, salesSummary } from '../services/sales';
 import { importSales, savedMapping } from '../services/salesImport';

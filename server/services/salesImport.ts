@@ -7,7 +7,7 @@ import { badRequest } from '../errors';
 import { record, type Actor } from './activity';
 import { readSalesCsv, type ParsedSaleLine, type SalesProblem } from './salesCsv';
 import { salesMappingSchema, type SalesMapping as Mapping } from '../../shared/schemas/sales';
-import { zodFields } from '../middleware/validate';
+import { ZodError } from 'zod';
 
 export interface SalesImportReport {
   ok: boolean;
@@ -44,10 +44,8 @@ export async function mappingFor(build: Build, given: unknown): Promise<Mapping>
     return saved;
   }
   const parsed = salesMappingSchema.safeParse(given);
-  if (!parsed.success) {
-    const fields = zodFields(parsed.error).map((f) => ({ ...f, path: `mapping.${f.path}` }));
-    throw badRequest(`Check these fields: ${fields.map((f) => f.path).join(', ')}.`, fields);
-  }
+  // The error middleware words each issue; the paths say they are inside the mapping.
+  if (!parsed.success) throw new ZodError(parsed.error.issues.map((i) => ({ ...i, path: ['mapping', ...i.path] })));
   return parsed.data;
 }
 

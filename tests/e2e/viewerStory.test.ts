@@ -120,7 +120,7 @@ describe('viewer story', () => {
 
     // The shop finishes every upgrade of the episode (the shop floor's own journeys cover those marks);
     // only a finished episode goes live.
-    await Upgrade.update({ installState: 'installed', installSegment: 'shot', demoSegment: 'shot' }, { where: { episodeId: episode.id } });
+    await db.sql(`UPDATE upgrades SET install_state = 'installed', install_segment = 'shot', demo_segment = 'shot' WHERE episode_id = $1`, [episode.id]);
 
     // 5. Marketing publishes that episode on the Publish screen.
     const publisher = await openBrowser({ server: app!.server });
