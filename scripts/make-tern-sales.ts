@@ -59,7 +59,7 @@ const tagged = (sku: string, n: number) => `${STORE}${sku.toLowerCase()}?utm_sou
 
 for (const ep of EPISODES) {
   // Tagged orders: many in the first days after release, fewer later.
-  const count = 30 + Math.floor(rand() * 12);
+  const count = 15 + Math.floor(rand() * 6);
   for (let i = 0; i < count; i++) {
     const day = Math.floor(-Math.log(1 - rand() * 0.97) * 9);
     const at = addDays(ep.release, day);
@@ -69,14 +69,14 @@ for (const ep of EPISODES) {
     order(at, items, tagged(first[0], ep.n));
   }
   // Untagged orders of the same kits within the window (assisted) and a few well after it.
-  for (let i = 0; i < 14; i++) {
+  for (let i = 0; i < 8; i++) {
     const at = addDays(ep.release, Math.floor(rand() * 28));
     if (at > LAST_DAY) continue;
     order(at, [pick(ep.kits)], rand() < 0.5 ? '' : `${STORE}${pick(ep.kits)[0].toLowerCase()}`);
   }
 }
 // Not the series': another campaign, products that are not parts of the build, a kit of a later episode.
-for (let i = 0; i < 18; i++) {
+for (let i = 0; i < 70; i++) {
   const at = addDays('2026-10-08', Math.floor(rand() * 53));
   const kind = i % 3;
   if (kind === 0) order(at, [pick(EPISODES[0]!.kits)], `${STORE}ht-hu-9100?utm_source=newsletter&utm_medium=email&utm_campaign=winter-letter&utm_content=issue-4`);
