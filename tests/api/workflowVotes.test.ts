@@ -89,3 +89,14 @@ describe('caps on unconfirmed votes and requests', () => {
     expect((await ViewerRequest.count({ where: { buildId: tern.id } })) - before).toBe(4);
   });
 });
+
+describe('the database holds the rule too', () => {
+  it('refuses a second confirmed vote of one person on one request', async () => {
+    const req = await openRequest('Second confirmed vote');
+    const row = { requestId: req.id, emailHash: emailHash(`twice${stamp}@example.test`), emailSealed: null, email: null, name: null, expiresAt: new Date(Date.now() + 3_600_000), confirmedAt: new Date() };
+    const { newToken } = await import('../../server/services/viewerPrivacy');
+    await ViewerVote.create({ ...row, confirmTokenHash: newToken().hash });
+    await expect(ViewerVote.create({ ...row, confirmTokenHash: newToken().hash })).rejects.toThrow();
+    expect(await confirmed(req.id)).toBe(1);
+  });
+});
