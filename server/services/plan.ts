@@ -179,6 +179,8 @@ export async function propose(build: Build, over: Partial<Capacity>) {
       episodes,
       forecastFinish: plan.forecastFinish,
       buildDoneDate: plan.buildDoneDate,
+      /** Which rule ordered it: priorities and votes, or longest chain first (only when that finishes earlier). */
+      method: plan.method,
       capacityHours: plan.capacityHours,
       unplaced: plan.unplaced.map((id) => ({ id, title: titleOf.get(id) ?? `#${id}` })),
       violations,

@@ -44,6 +44,25 @@ export class FitTree {
     return i - this.size;
   }
 
+  /** Leftmost position at or after `from` whose hours are ≤ room, or −1 (climb, then descend). */
+  nextFitting(room: number, from: number): number {
+    if (from <= 0) return this.firstFitting(room);
+    if (from >= this.size) return -1;
+    const limit = room + 1e-9;
+    let i = from + this.size;
+    if (this.min[i] <= limit) return from;
+    for (;;) {
+      if (i === 1) return -1;
+      if ((i & 1) === 0 && this.min[i + 1] <= limit) {
+        i++;
+        break;
+      }
+      i >>= 1;
+    }
+    while (i < this.size) i = this.min[2 * i] <= limit ? 2 * i : 2 * i + 1;
+    return i - this.size;
+  }
+
   /** Leftmost available position regardless of hours, or −1. */
   first(): number {
     // Hours are finite, so the largest finite number fits anything while +∞ (empty) still does not.

@@ -10,6 +10,7 @@ export type {
   FixedEpisode,
   PlanEpisode,
   Plan,
+  PlanMethod,
   PlanToValidate,
   PlanViolation,
   ViolationKind,

@@ -6,9 +6,15 @@ import { FitTree } from './fitTree';
 import { DayHeap } from './heap';
 import { describeEpisode, episodeCapacity, lockEpisodes } from './episodes';
 import { prepareUpgrades, roundHours, validHours } from './prepare';
-import type { Plan, PlanEpisode, PlannerInput, PlannerUpgrade } from './types';
+import type { Plan, PlanEpisode, PlanMethod, PlannerInput, PlannerUpgrade } from './types';
 
 export { validatePlan } from './validate';
+
+/** Builds up to this many upgrades also get the chain-order pass (keeps 2,000 upgrades fast). */
+const CHAIN_ORDER_MAX = 400;
+
+/** How many same-level candidates the best-fit fill compares per pick (keeps the planner near-linear). */
+const FIT_CANDIDATES = 6;
 export { episodeCapacity } from './episodes';
 
 /**
@@ -29,6 +35,17 @@ export { episodeCapacity } from './episodes';
  * prerequisite is in an earlier episode or earlier in this one, and parts are due by the shoot date.
  */
 export function proposePlan(input: PlannerInput): Plan {
+  const first = planWith(input, 'priority');
+  if (!first.ok || input.upgrades.length > CHAIN_ORDER_MAX) return first;
+  // A second pass that ranks by the longest chain of work still behind each upgrade (the classic
+  // list-scheduling rule for an early finish). It is kept only when it finishes strictly earlier:
+  // otherwise the producer's priorities and votes decide.
+  const second = planWith(input, 'chain');
+  if (second.ok && second.forecastFinish !== null && first.forecastFinish !== null && second.forecastFinish < first.forecastFinish) return second;
+  return first;
+}
+
+function planWith(input: PlannerInput, method: PlanMethod): Plan {
   const { capacity, shopPerSlot } = episodeCapacity(input);
   const cadence = input.releaseCadenceDays;
   const startDay = toDay(input.startDate);
@@ -53,51 +70,114 @@ export function proposePlan(input: PlannerInput): Plan {
     else free[i] = 1;
   }
 
-  // Own urgency rank, then inherited rank: the best rank among the upgrade and everything free
-  // that depends on it, computed in reverse prerequisite order (linear).
-  // A missing priority or vote count sorts as the least urgent / no votes rather than poisoning the sort.
+  // Own urgency rank: priority, then votes, then id. A missing priority or vote count sorts as the
+  // least urgent / no votes rather than poisoning the sort.
   const prio = (i: number) => (Number.isFinite(ups[i].priority) ? ups[i].priority : 5);
   const votes = (i: number) => (Number.isFinite(ups[i].votes) ? ups[i].votes : 0);
-  const byOwn = Array.from({ length: n }, (_, i) => i).sort(
-    (a, b) => prio(a) - prio(b) || votes(b) - votes(a) || ups[a].id - ups[b].id,
-  );
+  const byPriority = (a: number, b: number) => prio(a) - prio(b) || votes(b) - votes(a) || ups[a].id - ups[b].id;
+  let byOwn = Array.from({ length: n }, (_, i) => i).sort(byPriority);
+  if (method === 'chain') {
+    // Hours of the longest chain from each upgrade through everything that needs it (reverse order).
+    const tail = new Float64Array(n);
+    for (let k = n - 1; k >= 0; k--) {
+      const i = order[k];
+      let most = 0;
+      for (let e = g.succStart[i]; e < g.succStart[i + 1]; e++) most = Math.max(most, tail[g.succIdx[e]]);
+      tail[i] = hoursOf(i) + most;
+    }
+    byOwn = byOwn.slice().sort((a, b) => tail[b] - tail[a] || byPriority(a, b));
+  }
   const ownRank = new Int32Array(n);
   byOwn.forEach((i, r) => (ownRank[i] = r));
-  const effRank = Int32Array.from(ownRank);
+
+  // Ready day: the latest parts day of an upgrade and of every free prerequisite (linear, in order).
+  const partsDay = new Float64Array(n).fill(-Infinity);
+  const readyDay = new Float64Array(n).fill(-Infinity);
+  for (let k = 0; k < n; k++) {
+    const i = order[k];
+    if (!free[i]) continue;
+    partsDay[i] = ups[i].partsDueDate ? toDay(ups[i].partsDueDate!) : -Infinity;
+    let r = partsDay[i];
+    for (let e = g.predStart[i]; e < g.predStart[i + 1]; e++) if (free[g.predIdx[e]]) r = Math.max(r, readyDay[g.predIdx[e]]);
+    readyDay[i] = r;
+  }
+  // Inherited urgency: the best rank among the upgrade and everything free that depends on it, and
+  // the ready day of the dependant it comes from (reverse prerequisite order, linear). A prerequisite
+  // takes that urgency only from one cadence before its dependant can be shot: earlier, a dependant
+  // still waiting weeks for parts would take a slot from something shootable now.
+  const fullRank = Int32Array.from(ownRank);
+  const promoteDay = new Float64Array(n).fill(-Infinity);
   for (let k = n - 1; k >= 0; k--) {
     const i = order[k];
+    if (!free[i]) continue;
     for (let e = g.succStart[i]; e < g.succStart[i + 1]; e++) {
       const s = g.succIdx[e];
-      if (free[s] && effRank[s] < effRank[i]) effRank[i] = effRank[s];
+      if (!free[s]) continue;
+      const day = fullRank[s] === ownRank[s] ? readyDay[s] : promoteDay[s];
+      if (fullRank[s] < fullRank[i] || (fullRank[s] === fullRank[i] && fullRank[i] !== ownRank[i] && day < promoteDay[i])) {
+        fullRank[i] = fullRank[s];
+        promoteDay[i] = day;
+      }
     }
   }
-  const effLevel = (i: number) => prio(byOwn[effRank[i]]);
-  const items = byOwn.filter((i) => free[i]).sort((a, b) => effRank[a] - effRank[b] || ownRank[a] - ownRank[b]);
-  const pos = new Int32Array(n).fill(-1);
-  items.forEach((i, p) => (pos[i] = p));
+
+  // Rank positions: every free upgrade has its own-rank position and, when it can inherit, an
+  // inherited one; it sits in exactly one of them while available.
+  const entries: { i: number; r: number }[] = [];
+  for (const i of byOwn) {
+    if (!free[i]) continue;
+    entries.push({ i, r: ownRank[i] });
+    if (fullRank[i] < ownRank[i]) entries.push({ i, r: fullRank[i] });
+  }
+  entries.sort((a, b) => a.r - b.r || ownRank[a.i] - ownRank[b.i]);
+  const itemAt = new Int32Array(entries.length);
+  const levelAt = new Float64Array(entries.length);
+  const posOwn = new Int32Array(n).fill(-1);
+  const posInherited = new Int32Array(n).fill(-1);
+  entries.forEach((en, p) => {
+    itemAt[p] = en.i;
+    levelAt[p] = prio(byOwn[en.r]);
+    if (en.r === ownRank[en.i]) posOwn[en.i] = p;
+    else posInherited[en.i] = p;
+  });
+  let freeCount = 0;
+  for (let i = 0; i < n; i++) if (free[i]) freeCount++;
 
   // Availability: count of free prerequisites not yet placed, and the parts day.
   const need = new Int32Array(n);
-  const partsDay = new Float64Array(n);
-  for (const i of items) {
-    partsDay[i] = ups[i].partsDueDate ? toDay(ups[i].partsDueDate!) : -Infinity;
+  for (let i = 0; i < n; i++) {
+    if (!free[i]) continue;
     for (let e = g.predStart[i]; e < g.predStart[i + 1]; e++) if (free[g.predIdx[e]]) need[i]++;
   }
-  const all = new FitTree(items.length);
+  const all = new FitTree(entries.length);
   const byArea = new Map<Area, FitTree>();
   const areaTree = (a: Area) => {
     let t = byArea.get(a);
-    if (!t) byArea.set(a, (t = new FitTree(items.length)));
+    if (!t) byArea.set(a, (t = new FitTree(entries.length)));
     return t;
   };
   const waiting = new DayHeap();
-  const makeAvailable = (i: number) => {
-    all.set(pos[i], hoursOf(i));
-    areaTree(ups[i].area).set(pos[i], hoursOf(i));
-  };
+  const promotions = new DayHeap();
+  const at = new Int32Array(n).fill(-1);
   let shootDay = -Infinity;
-  const release = (i: number) => (partsDay[i] <= shootDay ? makeAvailable(i) : waiting.push(partsDay[i], pos[i]));
-  for (const i of items) if (need[i] === 0) waiting.push(partsDay[i], pos[i]);
+  const inherits = (i: number) => posInherited[i] >= 0 && promoteDay[i] - cadence <= shootDay;
+  const setAt = (i: number, p: number) => {
+    at[i] = p;
+    all.set(p, hoursOf(i));
+    areaTree(ups[i].area).set(p, hoursOf(i));
+  };
+  const clearAt = (i: number) => {
+    all.remove(at[i]);
+    areaTree(ups[i].area).remove(at[i]);
+    at[i] = -1;
+  };
+  const makeAvailable = (i: number) => setAt(i, inherits(i) ? posInherited[i] : posOwn[i]);
+  const release = (i: number) => (partsDay[i] <= shootDay ? makeAvailable(i) : waiting.push(partsDay[i], i));
+  for (let i = 0; i < n; i++) {
+    if (!free[i]) continue;
+    if (need[i] === 0) waiting.push(partsDay[i], i);
+    if (posInherited[i] >= 0 && promoteDay[i] > -Infinity) promotions.push(promoteDay[i] - cadence, i);
+  }
 
   const episodes: PlanEpisode[] = [...locks.episodes];
   let current: number[] = [];
@@ -107,8 +187,7 @@ export function proposePlan(input: PlannerInput): Plan {
     current.push(i);
     placedMark[i] = 1;
     placed++;
-    all.remove(pos[i]);
-    areaTree(ups[i].area).remove(pos[i]);
+    clearAt(i);
     for (let e = g.succStart[i]; e < g.succStart[i + 1]; e++) {
       const s = g.succIdx[e];
       if (free[s] && --need[s] === 0) release(s);
@@ -121,15 +200,22 @@ export function proposePlan(input: PlannerInput): Plan {
 
   let number = locks.lastNumber + 1;
   let slot = Math.max(number, Math.floor((locks.lastShootDay - startDay) / cadence) + 1);
-  while (placed < items.length) {
+  while (placed < freeCount) {
     shootDay = startDay + slot * cadence;
-    while (waiting.size && waiting.peekDay() <= shootDay) makeAvailable(items[waiting.pop()]);
+    while (waiting.size && waiting.peekDay() <= shootDay) makeAvailable(waiting.pop());
+    while (promotions.size && promotions.peekDay() <= shootDay) {
+      const i = promotions.pop();
+      if (at[i] >= 0 && at[i] === posOwn[i]) {
+        clearAt(i);
+        setAt(i, posInherited[i]);
+      }
+    }
     if (all.isEmpty()) {
       if (!waiting.size) break; // unreachable for an acyclic graph; kept so bad data cannot loop
       slot = Math.max(slot + 1, Math.ceil((waiting.peekDay() - startDay) / cadence));
       continue;
     }
-    const lead = items[all.first()];
+    const lead = itemAt[all.first()];
     if (hoursOf(lead) > capacity + 1e-9) {
       // Too big for one episode: alone, shot once the shop has had the hours it needs.
       const slots = Math.max(1, Math.ceil(hoursOf(lead) / shopPerSlot - 1e-9));
@@ -143,12 +229,26 @@ export function proposePlan(input: PlannerInput): Plan {
     let room = capacity - hoursOf(lead);
     place(lead);
     for (;;) {
-      const best = all.firstFitting(room);
-      if (best < 0) break;
-      let pick = items[best];
+      const first = all.firstFitting(room);
+      if (first < 0) break;
+      // Best fit within the most urgent level that still fits: the largest of its next few
+      // candidates, so small upgrades do not strand the room a larger one of the same level needed.
+      const level = levelAt[first];
+      let best = first;
+      for (let c = 0, p = first; c < FIT_CANDIDATES; c++) {
+        p = all.nextFitting(room, p + 1);
+        if (p < 0 || levelAt[p] !== level) break;
+        if (hoursOf(itemAt[p]) > hoursOf(itemAt[best]) + 1e-9) best = p;
+      }
+      let pick = itemAt[best];
       if (ups[pick].area !== area) {
+        // One area per episode where it costs nothing: a same-area upgrade of the same level is taken
+        // instead only when it is as large, or the other one still fits beside it.
         const same = byArea.get(area)?.firstFitting(room) ?? -1;
-        if (same >= 0 && effLevel(items[same]) === effLevel(pick)) pick = items[same];
+        if (same >= 0 && levelAt[same] === level) {
+          const alt = itemAt[same];
+          if (hoursOf(alt) >= hoursOf(pick) - 1e-9 || hoursOf(pick) <= room - hoursOf(alt) + 1e-9) pick = alt;
+        }
       }
       room -= hoursOf(pick);
       place(pick);
@@ -167,6 +267,7 @@ export function proposePlan(input: PlannerInput): Plan {
   }
   return {
     ok: true,
+    method,
     episodes,
     forecastFinish: finish,
     buildDoneDate: buildDone,

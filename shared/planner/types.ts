@@ -49,9 +49,16 @@ export interface PlanEpisode {
   oversize: boolean;
 }
 
+/**
+ * Which rule ordered the proposal: `priority` (priority, votes, id, with prerequisites inheriting
+ * urgency) or `chain` (longest chain of work first, chosen only when it finishes strictly earlier).
+ */
+export type PlanMethod = 'priority' | 'chain';
+
 export type Plan =
   | {
       ok: true;
+      method: PlanMethod;
       episodes: PlanEpisode[];
       /** Release date of the last episode: the day the whole series is live. Null with no episodes. */
       forecastFinish: string | null;

@@ -73,6 +73,8 @@ export interface ProposalAnswer {
     episodes: ProposedEpisode[];
     forecastFinish: string | null;
     buildDoneDate: string | null;
+    /** Which rule ordered the proposal: priorities and votes, or longest chain first (when that finishes earlier). */
+    method?: 'priority' | 'chain';
     capacityHours: number;
     unplaced: { id: number; title: string }[];
     violations: PlanViolation[];

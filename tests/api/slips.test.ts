@@ -35,7 +35,7 @@ describe('baselines', () => {
     const producer = await signInAs('producer');
     const { episodes, atRisk } = await slipsOf(producer);
     const tow = episodes.find((e) => e.title === 'Ready to tow')!;
-    // Seeder 0007: baseline is the plan of a week earlier; the pad is now due the day before the shoot.
+    // Seeder 0007: the baseline is the plan of a week earlier; the pad is now due before the shoot.
     expect(tow.baseline.shootDate).toBe(plus(tow.planned.shootDate!, -7));
     expect(tow.baseline.releaseDate).toBe(plus(tow.planned.releaseDate!, -7));
     expect(tow.slipDays).toEqual({ shoot: 7, release: 7 });
@@ -88,9 +88,11 @@ describe('slip alerts', () => {
     expect(now.cause).toMatchObject({ partNumber: 'HT-WCP-9510', upgradeTitle: 'Wireless charging pad', expectedArrival: due, overdue: false });
     expect(after.atRisk).toEqual([now.episodeId]);
 
-    // History, in words, with the number of days: the pad was due the day before the shoot.
+    // History, in words, with the number of days from the pad's seeded date.
     const [act] = await sequelize.query<{ summary: string }>("SELECT summary FROM activities WHERE entity = 'part' AND entity_id = :id ORDER BY id DESC LIMIT 1", { replacements: { id: pad.id }, type: 'SELECT' as never });
-    expect(act.summary).toBe(`Expected arrival moved from ${plus(tow.planned.shootDate!, -1)} to ${due} (6 days later) for part HT-WCP-9510`);
+    const was = pad.expectedArrival!;
+    const days = Math.round((Date.parse(due) - Date.parse(was)) / 86_400_000);
+    expect(act.summary).toBe(`Expected arrival moved from ${was} to ${due} (${days} days later) for part HT-WCP-9510`);
 
     // Notices: the part's move and the release at risk.
     const list = await producer.get(`/api/builds/${buildId}/notices`);

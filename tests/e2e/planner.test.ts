@@ -28,7 +28,7 @@ describe('episode planner in the browser', () => {
       await page.getByRole('heading', { name: /^Episode 7: Ready to tow/ }).waitFor();
       // The timeline's table alternative.
       await page.getByRole('button', { name: 'Show the dates as a table' }).click();
-      await page.getByRole('table').getByText('Ready to tow').waitFor();
+      await page.getByRole('table', { name: 'Shoot and release dates per episode' }).getByText('Ready to tow').waitFor();
       await audit(s, 'planner with timeline table');
 
       // Native drag and drop: an unplanned upgrade dragged onto an episode joins it (not saved yet).

@@ -1,4 +1,4 @@
-// A slip in the "Project Tern" demo: the wireless charging pad came a week later than first promised,
+// A slip in the "Project Tern" demo: the wireless charging pad came 8 days later than first promised,
 // so "Ready to tow" was moved back a week after it was scheduled. Its baseline keeps the first dates,
 // the history keeps the part's date changes, and the planner shows the notices. Demo mode only.
 import { QueryTypes } from 'sequelize';
@@ -20,10 +20,11 @@ export async function up({ context: { sequelize } }: { context: MigrationContext
     Part.findOne({ where: { buildId: build.id, partNumber: PART } }),
     User.findOne({ where: { email: 'producer@cedar-ridge.test' } }),
   ]);
-  if (!episode?.shootDate || !episode.releaseDate || !part || episode.state !== 'scheduled') return;
+  if (!episode?.shootDate || !episode.releaseDate || !part?.expectedArrival || episode.state !== 'scheduled') return;
   const actor = producer ? { id: producer.id, name: producer.name } : null;
-  const firstDue = addDays(episode.shootDate, -WEEK - 2);
-  const nowDue = addDays(episode.shootDate, -1);
+  // The part keeps its seeded date (other demo screens show it); the first promise was 8 days earlier.
+  const nowDue = part.expectedArrival;
+  const firstDue = addDays(nowDue, -WEEK - 1);
   const baselineShoot = addDays(episode.shootDate, -WEEK);
   const baselineRelease = addDays(episode.releaseDate, -WEEK);
 
@@ -32,8 +33,6 @@ export async function up({ context: { sequelize } }: { context: MigrationContext
       'UPDATE episodes SET baseline_shoot_date = :baselineShoot, baseline_release_date = :baselineRelease WHERE id = :id',
       { replacements: { id: episode.id, baselineShoot, baselineRelease }, transaction, type: QueryTypes.UPDATE },
     );
-    part.expectedArrival = nowDue;
-    await part.save({ transaction });
     await record(transaction, {
       actor, buildId: build.id, entity: 'part', entityId: part.id, action: 'update',
       summary: `Expected arrival moved from ${firstDue} to ${nowDue} (${WEEK + 1} days later) for part ${PART}`,
