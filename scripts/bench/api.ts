@@ -218,11 +218,11 @@ async function main() {
   const children: ChildProcess[] = [];
   try {
     // Everything below reads its settings from this environment (server/config.ts).
-    Object.assign(process.env, { DATABASE_URL: benchUrl.toString(), NODE_ENV: 'production', BAYSLATE_DEMO: '0', SERVE_CLIENT: '0', MAIL_WORKER: '0', LOG_REQUESTS: '0', DATABASE_POOL_MAX: process.env.DATABASE_POOL_MAX ?? '10' });
+    Object.assign(process.env, { DATABASE_URL: benchUrl.toString(), NODE_ENV: 'production', BAYSLATE_DEMO: '1', SERVE_CLIENT: '0', MAIL_WORKER: '0', LOG_REQUESTS: '0', DATABASE_POOL_MAX: process.env.DATABASE_POOL_MAX ?? '10' });
     const { migrate } = await import('../../server/db/migrate');
     const { sequelize, Build } = await import('../../server/models');
     await migrate();
-    // Only the demo people (to sign in with); the benchmark's build is generated below.
+    // Only the demo people (to sign in with; they sign in in demo mode only); the benchmark's build is generated below.
     const { up: seedUsers } = await import('../../server/db/seeders/0001-demo-users');
     await seedUsers({ context: { sequelize, queryInterface: sequelize.getQueryInterface() } });
     const build = await Build.create({ slug: 'bench-build', name: 'Benchmark build', year: 2019, make: 'Halvorsen', model: 'Tern', vin: null, mileage: null, budgetCents: 4_500_000_00, labourRateCents: 9_500, campaign: null, summary: null, startDate: '2025-01-02' });

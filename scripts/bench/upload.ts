@@ -121,7 +121,8 @@ async function main() {
       ...process.env,
       DATABASE_URL: dbUrl.toString(),
       NODE_ENV: 'production',
-      BAYSLATE_DEMO: '0',
+      // The demo people sign in in demo mode only (the benchmark signs in as the demo installer).
+      BAYSLATE_DEMO: '1',
       SERVE_CLIENT: '0',
       MAIL_WORKER: '0',
       S3_ENDPOINT: endpoint,

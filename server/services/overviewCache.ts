@@ -137,15 +137,32 @@ export function store(buildId: number, day: string, zone: string, before: string
   return entry;
 }
 
+let inFlight: Promise<void> | null = null;
+let next: Promise<void> | null = null;
+
 /**
  * Waits for one round trip on the listening connection: PostgreSQL sends the notices of every
  * transaction committed before it ahead of the answer, so a change made through another instance
  * has dropped its entry by the time this resolves.
  */
-export async function catchUpOverviewNotices(): Promise<void> {
+export function catchUpOverviewNotices(): Promise<void> {
   const c = client;
-  if (!listening || !c) return;
-  await c.query('SELECT 1').catch(() => undefined);
+  if (!listening || !c) return Promise.resolve();
+  const roundTrip = () =>
+    c
+      .query('SELECT 1')
+      .then(() => undefined, () => undefined)
+      .finally(() => {
+        inFlight = null;
+      });
+  if (!inFlight) return (inFlight = roundTrip());
+  // The round trip under way may have left before this caller's change committed: everyone who
+  // arrives meanwhile shares the next one (at most one in flight and one waiting, however busy).
+  next ??= inFlight.then(() => {
+    next = null;
+    return (inFlight ??= roundTrip());
+  });
+  return next;
 }
 
 /** Closes the listening connection (tests, shutdown). */

@@ -8,6 +8,7 @@ import pg from 'pg';
 import { randomBytes } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
+import { isBuiltin } from 'node:module';
 import { buildServer, Client, removeBuild, runServerToEnd, startServerProcess } from '../helpers/server-process';
 import { DEMO_PASSWORD, DEMO_USERS } from '../../server/db/seeders/0001-demo-users';
 import { DEMO_EMAILS } from '../../server/db/demoAccounts';
@@ -63,13 +64,14 @@ describe('the compiled production start on a fresh database', () => {
     }
   });
 
-  it('refuses to start with BAYSLATE_DEMO on, naming the fix', async () => {
+  // Each start only reads its settings and refuses: they run side by side.
+  it.concurrent('refuses to start with BAYSLATE_DEMO on, naming the fix', async () => {
     const r = await runServerToEnd({ ...production, BAYSLATE_DEMO: '1', DATABASE_URL: freshUrl.toString() });
     expect(r.code).toBe(1);
     expect(r.output).toMatch(/refuses to start: BAYSLATE_DEMO is on.*set BAYSLATE_DEMO=0/s);
   });
 
-  it('refuses to start on a database that holds demo accounts, naming them and the fix', async () => {
+  it.concurrent('refuses to start on a database that holds demo accounts, naming them and the fix', async () => {
     // This file's own database was seeded with the demo build.
     const r = await runServerToEnd({ ...production });
     expect(r.code).toBe(1);
@@ -77,7 +79,7 @@ describe('the compiled production start on a fresh database', () => {
     expect(r.output).toMatch(/fresh database, or deactivate them: UPDATE users SET active = false/);
   });
 
-  it('refuses to start without object storage or mail settings, saying npm start fakes them', async () => {
+  it.concurrent('refuses to start without object storage or mail settings, saying npm start fakes them', async () => {
     const r = await runServerToEnd({ ...production, DATABASE_URL: freshUrl.toString(), S3_ENDPOINT: undefined });
     expect(r.code).toBe(1);
     expect(r.output).toMatch(/S3_ENDPOINT is not set.*npm start/s);
@@ -88,6 +90,17 @@ describe('the compiled production start on a fresh database', () => {
     for (const name of ['tsx', 's3rver', 'smtp-server', 'mailparser']) expect(code).not.toMatch(new RegExp(`^import[^;]*from\\s*["']${name}["']`, 'm'));
     // The seeders' data stays out (the demo route's password literal is answered in demo mode only).
     expect(code).not.toMatch(/Project Tern|Cedar Ridge Upfitters|seeders\//);
+  });
+
+  it('runs with production dependencies only (npm ci --omit=dev): mailparser only as a demo-mode dynamic import', () => {
+    const pkg = JSON.parse(readFileSync(path.resolve(import.meta.dirname, '../../package.json'), 'utf8'));
+    const code = readFileSync(path.join(buildServer(), 'index.js'), 'utf8');
+    const statics = [...code.matchAll(/^import[^;]*?from\s*["']([^"'.][^"']*)["']/gm)].map((m) => m[1]);
+    const dynamics = [...code.matchAll(/import\(\s*["']([^"'.][^"']*)["']\s*\)/g)].map((m) => m[1]);
+    const pkgName = (n: string) => (n.startsWith('@') ? n.split('/').slice(0, 2).join('/') : n.split('/')[0]);
+    const outside = [...statics, ...dynamics].map(pkgName).filter((n) => !n.startsWith('node:') && !isBuiltin(n) && !pkg.dependencies[n]);
+    expect([...new Set(outside)]).toEqual(['mailparser']);
+    expect(statics.map(pkgName)).not.toContain('mailparser');
   });
 });
 

@@ -10,8 +10,6 @@ export async function prepare(ctx: MatrixContext) {
 export const rows: MatrixRow[] = [
   { method: 'GET', path: '/api/health', allow: 'public' },
   { method: 'GET', path: '/api/health/demo', allow: 'public' },
-  { method: 'GET', path: '/api/health/live', allow: 'public' },
-  { method: 'GET', path: '/api/health/ready', allow: 'public' },
   { method: 'POST', path: '/api/auth/login', allow: 'public', body: () => ({}) },
   { method: 'POST', path: '/api/auth/logout', allow: 'public', endsSession: true },
   { method: 'GET', path: '/api/auth/me', allow: 'signed-in' },
