@@ -137,8 +137,8 @@ export function store(buildId: number, day: string, zone: string, before: string
   return entry;
 }
 
-let inFlight: Promise<void> | null = null;
-let next: Promise<void> | null = null;
+let catchUpInFlight: Promise<void> | null = null;
+let catchUpNext: Promise<void> | null = null;
 
 /**
  * Waits for one round trip on the listening connection: PostgreSQL sends the notices of every
@@ -153,16 +153,16 @@ export function catchUpOverviewNotices(): Promise<void> {
       .query('SELECT 1')
       .then(() => undefined, () => undefined)
       .finally(() => {
-        inFlight = null;
+        catchUpInFlight = null;
       });
-  if (!inFlight) return (inFlight = roundTrip());
+  if (!catchUpInFlight) return (catchUpInFlight = roundTrip());
   // The round trip under way may have left before this caller's change committed: everyone who
   // arrives meanwhile shares the next one (at most one in flight and one waiting, however busy).
-  next ??= inFlight.then(() => {
-    next = null;
-    return (inFlight ??= roundTrip());
+  catchUpNext ??= catchUpInFlight.then(() => {
+    catchUpNext = null;
+    return (catchUpInFlight ??= roundTrip());
   });
-  return next;
+  return catchUpNext;
 }
 
 /** Closes the listening connection (tests, shutdown). */

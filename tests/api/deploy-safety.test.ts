@@ -39,7 +39,8 @@ afterAll(async () => {
   await adminQuery(`DROP DATABASE IF EXISTS ${freshName} WITH (FORCE)`);
 });
 
-const production = { NODE_ENV: 'production', BAYSLATE_DEMO: undefined, MAIL_WORKER: '0' };
+// A production start needs its own viewer-key secret (32+ characters), like every real deployment.
+const production = { NODE_ENV: 'production', BAYSLATE_DEMO: undefined, MAIL_WORKER: '0', VIEWER_KEY_SECRET: 'deploy-test-viewer-key-secret-0123456789abcdef' };
 
 describe('the compiled production start on a fresh database', () => {
   it('has no demo sign-in, no /api/health/demo and no /dev/mail', async () => {

@@ -227,7 +227,7 @@ describe('bad input: clear messages by line and column, nothing written', () => 
     const fresh = await smallBuild('sales-no-mapping');
     const none = await post('owner', fresh.buildId, `${HEAD}\nG1,1,2026-10-02,HT-A,1,199.00,USD,,`, {}, null);
     expect(none.status).toBe(400);
-    expect(none.body.error.fields).toEqual([{ path: 'mapping', message: expect.stringContaining('is required') }]);
+    expect(none.body.error.fields).toEqual([expect.objectContaining({ path: 'mapping', message: expect.stringContaining('is required') })]);
     const twice = await post('owner', fresh.buildId, HEAD, {}, { ...MAP, sku: 'Order' });
     expect(twice.status).toBe(400);
     expect(twice.body.error.fields[0].path).toBe('mapping.sku');

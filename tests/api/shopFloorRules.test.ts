@@ -62,7 +62,8 @@ describe('marking installed with parts not received', () => {
     const u = await byTitle('Remote start');
     const res = await patch(producer, u, { priority: 2, confirmPartsNotReceived: true });
     expect(res.status).toBe(400);
-    expect(res.body.error.message).toMatch(/confirmPartsNotReceived/);
+    expect(res.body.error.fields.map((f: { path: string }) => f.path)).toContain('confirmPartsNotReceived');
+    expect(res.body.error.message).toMatch(/Confirm parts not received/);
   });
 });
 
