@@ -10,15 +10,10 @@ import { minimumShopDays, proposePlan, validatePlan, type PlannerInput, type Pla
 import { findCycle } from '../../shared/planner/criticalPath';
 import { AREA_LABELS, type EpisodeRecord } from '../../shared/domain';
 import type { PlanInputBody } from '../../shared/schemas/episode';
+import { addDays } from '../../shared/dates';
 
 /** Five shop days a week (common practice), so a shop day is a fifth of the weekly hours. */
 export const SHOP_DAYS_PER_WEEK = 5;
-
-function addDays(iso: string, days: number) {
-  const d = new Date(`${iso}T00:00:00Z`);
-  d.setUTCDate(d.getUTCDate() + days);
-  return d.toISOString().slice(0, 10);
-}
 
 function cycleTitles(data: PlanData, ids: number[]) {
   const title = new Map(data.upgrades.map((u) => [u.id, u.title]));
@@ -47,7 +42,7 @@ export function criticalSummary(data: PlanData, input: PlannerInput) {
     days: r.days,
     hoursPerDay,
     critical: r.critical.filter((id) => (data.upgrades.find((u) => u.id === id)?.installState ?? 'installed') !== 'installed').map((id) => ({ id, title: title.get(id) ?? `#${id}` })),
-    earliestFinish: r.days === 0 ? today() : addDays(today(), Math.ceil(weeks * 7)),
+    earliestFinish: r.days === 0 ? today(data.build.timeZone) : addDays(today(data.build.timeZone), Math.ceil(weeks * 7)),
   };
 }
 
