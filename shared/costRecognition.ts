@@ -61,7 +61,7 @@ export interface Recognition {
   pending: { receivedNotFittedCents: number; committedCents: number; notOrderedCents: number; laterDatedCents: number };
   cash: CashView;
   netCents: number;
-  /** Bottom-up: AC + the estimate to complete of every upgrade (nothing left for a done one). */
+  /** Bottom-up: AC + the estimate to complete of every upgrade (no hours left once it is installed). */
   forecast: {
     atCompletionCents: number;
     etcCents: number;
@@ -165,7 +165,8 @@ export function recogniseCosts(input: RecognitionInput): Recognition {
   cash.netCents = cash.paidCents + cash.committedCents + cash.notOrderedCents;
 
   const perUpgrade: UpgradeEstimateToComplete[] = input.upgrades.map((u) => {
-    const remainingHours = u.done ? 0 : Math.max(0, Math.round((u.estimatedHours - (hoursAll.get(u.id) ?? 0)) * 1e6) / 1e6);
+    // An installed upgrade's shop work is done: only its filming is left, which costs no bay hours.
+    const remainingHours = u.done || u.installState === 'installed' ? 0 : Math.max(0, Math.round((u.estimatedHours - (hoursAll.get(u.id) ?? 0)) * 1e6) / 1e6);
     const labourCents = roundHalfUpCents(remainingHours * rate);
     const partsCents = partsLeft.get(u.id) ?? 0;
     const plannedCents = planned.get(u.id) ?? 0;

@@ -229,3 +229,20 @@ describe('money as the screens write it', () => {
     expect(formatLineTotal(3, null)).toBe('—');
   });
 });
+
+describe('the estimate to complete of an installed upgrade', () => {
+  it('has no bay hours left once installed, even when fewer hours were logged than estimated', () => {
+    // By hand: 6 h estimated, 4 h logged, installed (segments not shot): 0 h left; queued twin: 2 h × $100.
+    const r = recogniseCosts({
+      recognition: 'fitting', asOf: '2026-05-01', labourRateCents: 10_000,
+      upgrades: [
+        { id: 1, estimatedHours: 6, installState: 'installed', installedOn: '2026-04-20', done: false },
+        { id: 2, estimatedHours: 6, installState: 'queued', installedOn: null, done: false },
+      ],
+      parts: [], expenses: [], recoveries: [],
+      labour: [{ upgradeId: 1, workedOn: '2026-04-19', hours: 4 }, { upgradeId: 2, workedOn: '2026-04-19', hours: 4 }],
+    });
+    expect(r.forecast.upgrades.map((u) => u.remainingHours)).toEqual([0, 2]);
+    expect(r.forecast.atCompletionCents).toBe(80_000 + 20_000);
+  });
+});
