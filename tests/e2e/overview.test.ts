@@ -145,6 +145,30 @@ describe('build overview in the browser', () => {
     }
   });
 
+  it('the owner sets the shop clock and cost recognition in the build settings, and the overview follows', async () => {
+    const b = await Build.create({ slug: `overview-clock-${Date.now().toString(36)}`, name: 'Clock build', year: 2021, make: 'Halvorsen', model: 'Skua', vin: null, mileage: null, budgetCents: 1_000_000, labourRateCents: 10_000, campaign: null, summary: null });
+    const s = await openBrowser({ server });
+    try {
+      await signInQuick(s, 'owner');
+      await s.page.goto(`${server.url}/builds/${b.id}/settings`);
+      await s.page.getByText('Shop time zone').waitFor();
+      await s.page.locator('[data-test="time-zone"]').click();
+      await s.page.keyboard.type('America/Denver');
+      await s.page.locator('.n-base-select-option', { hasText: /^America\/Denver$/ }).click();
+      await s.page.locator('[data-test="recognition-receipt"]').click();
+      await audit(s, 'build settings: clock and cost recognition');
+      await s.page.getByRole('button', { name: 'Save settings' }).click();
+      await s.page.getByText('Settings saved.').waitFor();
+      const saved = (await Build.findByPk(b.id))!;
+      expect([saved.timeZone, saved.costRecognition]).toEqual(['America/Denver', 'receipt']);
+      await s.page.goto(`${server.url}/builds/${b.id}/overview`);
+      await s.page.locator('[data-test="figure-actual"]').waitFor();
+      expect(await s.page.locator('[data-test="recognised-view"] caption').textContent()).toContain('at receipt');
+    } finally {
+      await s.close();
+    }
+  });
+
   it('reads at phone width: figures and charts one above the other, nothing wider than the screen', async () => {
     const s = await openBrowser({ server, phone: true });
     try {
