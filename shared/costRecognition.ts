@@ -61,7 +61,7 @@ export interface Recognition {
   pending: { receivedNotFittedCents: number; committedCents: number; notOrderedCents: number; laterDatedCents: number };
   cash: CashView;
   netCents: number;
-  /** Bottom-up: AC + the estimate to complete of every upgrade (nothing left for a done one). */
+  /** Bottom-up: AC + the estimate to complete of every upgrade (no hours left once it is installed). */
   forecast: {
     atCompletionCents: number;
     etcCents: number;
@@ -73,8 +73,8 @@ export interface Recognition {
   };
 }
 
-const RECEIVED: readonly PartState[] = ['received', 'fitted'];
-const earliest = (ds: (string | null | undefined)[]) => ds.reduce<string | null>((a, d) => (d && (!a || d < a) ? d : a), null);
+const inHand = (s: PartState) => s === 'received' || s === 'fitted';
+const earlier = (a: string | null, b: string | null) => (a === null ? b : b === null || a <= b ? a : b);
 
 /** The day a part line enters actual cost under the rule, or null when it has not. */
 export function partRecognisedOn(
@@ -86,10 +86,10 @@ export function partRecognisedOn(
   const installed = upgrade?.installState === 'installed' ? (upgrade.installedOn ?? asOf) : null;
   if (recognition === 'fitting') {
     const fitted = p.state === 'fitted' ? (p.fittedOn ?? p.receivedOn ?? p.orderedOn ?? asOf) : null;
-    return earliest([fitted, installed]);
+    return earlier(fitted, installed);
   }
-  const received = RECEIVED.includes(p.state) ? (p.receivedOn ?? p.fittedOn ?? p.orderedOn ?? asOf) : null;
-  return earliest([received, installed]);
+  const received = inHand(p.state) ? (p.receivedOn ?? p.fittedOn ?? p.orderedOn ?? asOf) : null;
+  return earlier(received, installed);
 }
 
 /**
@@ -106,8 +106,9 @@ export function recogniseCosts(input: RecognitionInput): Recognition {
   const hoursAll = new Map<number | null, number>();
   const hoursNow = new Map<number | null, number>();
   for (const l of input.labour) {
-    hoursAll.set(key(l.upgradeId), (hoursAll.get(key(l.upgradeId)) ?? 0) + l.hours);
-    if (l.workedOn <= asOf) hoursNow.set(key(l.upgradeId), (hoursNow.get(key(l.upgradeId)) ?? 0) + l.hours);
+    const k = key(l.upgradeId);
+    hoursAll.set(k, (hoursAll.get(k) ?? 0) + l.hours);
+    if (l.workedOn <= asOf) hoursNow.set(k, (hoursNow.get(k) ?? 0) + l.hours);
   }
   let labourNow = 0;
   let labourAll = 0;
@@ -144,7 +145,7 @@ export function recogniseCosts(input: RecognitionInput): Recognition {
     partsAll += p.cents;
     const on = partRecognisedOn(input.recognition, p, upgrades.get(p.upgradeId), asOf);
     partDates.push(on);
-    if (RECEIVED.includes(p.state)) cash.paidCents += p.cents;
+    if (inHand(p.state)) cash.paidCents += p.cents;
     else if (p.state === 'to_order') cash.notOrderedCents += p.cents;
     else cash.committedCents += p.cents;
     if (on !== null && on <= asOf) {
@@ -152,7 +153,7 @@ export function recogniseCosts(input: RecognitionInput): Recognition {
       continue;
     }
     partsLeft.set(p.upgradeId, (partsLeft.get(p.upgradeId) ?? 0) + p.cents);
-    if (RECEIVED.includes(p.state)) pending.receivedNotFittedCents += p.cents;
+    if (inHand(p.state)) pending.receivedNotFittedCents += p.cents;
     else if (p.state === 'to_order') pending.notOrderedCents += p.cents;
     else pending.committedCents += p.cents;
   }
@@ -165,7 +166,8 @@ export function recogniseCosts(input: RecognitionInput): Recognition {
   cash.netCents = cash.paidCents + cash.committedCents + cash.notOrderedCents;
 
   const perUpgrade: UpgradeEstimateToComplete[] = input.upgrades.map((u) => {
-    const remainingHours = u.done ? 0 : Math.max(0, Math.round((u.estimatedHours - (hoursAll.get(u.id) ?? 0)) * 1e6) / 1e6);
+    // An installed upgrade's shop work is done: only its filming is left, which costs no bay hours.
+    const remainingHours = u.done || u.installState === 'installed' ? 0 : Math.max(0, Math.round((u.estimatedHours - (hoursAll.get(u.id) ?? 0)) * 1e6) / 1e6);
     const labourCents = roundHalfUpCents(remainingHours * rate);
     const partsCents = partsLeft.get(u.id) ?? 0;
     const plannedCents = planned.get(u.id) ?? 0;

@@ -2,7 +2,7 @@
 // IANA time zone. Zone arithmetic comes from date-fns-tz (the zone database of Intl), never from
 // hand-written offsets; day arithmetic works on calendar days, so no zone or DST can shift it.
 import { addDays as addCalendarDays, differenceInCalendarDays } from 'date-fns';
-import { formatInTimeZone } from 'date-fns-tz';
+import { toZonedTime } from 'date-fns-tz';
 
 /** A new build's zone until the owner picks the shop's own. */
 export const DEFAULT_TIME_ZONE = 'UTC';
@@ -13,17 +13,39 @@ const ISO_DAY = /^(\d{4})-(\d{2})-(\d{2})$/;
 export function isValidTimeZone(zone: unknown): zone is string {
   if (typeof zone !== 'string' || zone.length === 0 || zone.length > 64) return false;
   if (!/^[A-Za-z][A-Za-z0-9_+-]*(\/[A-Za-z0-9_+-]+)*$/.test(zone)) return false;
+  const known = zoneChecks.get(zone);
+  if (known !== undefined) return known;
+  let ok: boolean;
   try {
     new Intl.DateTimeFormat('en-US', { timeZone: zone });
-    return true;
+    ok = true;
   } catch {
-    return false;
+    ok = false;
   }
+  if (zoneChecks.size > 1000) zoneChecks.clear(); // names come from people: keep the memo small
+  zoneChecks.set(zone, ok);
+  return ok;
 }
+/** Building an Intl formatter costs far more than a request should: each answer is kept. */
+const zoneChecks = new Map<string, boolean>();
 
-/** The calendar day at instant `now` in `zone` (an invalid zone falls back to UTC rather than throw). */
+/** Per zone: the day, and the span of instants [from, until) it is known to hold for. */
+const days = new Map<string, { day: string; from: number; until: number }>();
+
+/**
+ * The calendar day at instant `now` in `zone` (an invalid zone falls back to UTC rather than throw).
+ * The answer is reused for at most a second and never past the zone's next midnight.
+ */
 export function todayIn(zone: string | null | undefined, now: Date = new Date()): string {
-  return formatInTimeZone(now, isValidTimeZone(zone) ? zone : DEFAULT_TIME_ZONE, 'yyyy-MM-dd');
+  const z = isValidTimeZone(zone) ? zone : DEFAULT_TIME_ZONE;
+  const t = now.getTime();
+  const known = days.get(z);
+  if (known && t >= known.from && t < known.until) return known.day;
+  const wall = toZonedTime(now, z); // the zone's wall clock, in a Date's local fields
+  const day = isoOf(wall);
+  const toMidnight = 86_400_000 - (((wall.getHours() * 60 + wall.getMinutes()) * 60 + wall.getSeconds()) * 1000 + wall.getMilliseconds());
+  days.set(z, { day, from: t, until: t + Math.min(1000, toMidnight) });
+  return day;
 }
 
 /** The calendar day of an instant (a timestamp) in `zone`. */

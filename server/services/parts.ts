@@ -9,6 +9,7 @@ import { noticePartMovedLater, refreshSlipNotices } from './slips';
 import { toDay } from '../../shared/planner/dates';
 import { changedFields, requireUpgradeInBuild, stale, toPartRecord, type Person } from './backlogRecords';
 import { INSTALLER_PART_FIELDS, INSTALLER_PART_STATES, MARKETING_PART_FIELDS, type CreatePartInput, type UpdatePartInput } from '../../shared/schemas/part';
+import { todayIn } from '../../shared/dates';
 
 const has = (p: Person, ...roles: string[]) => p.roles.some((r) => r === 'owner' || roles.includes(r));
 
@@ -64,7 +65,7 @@ export async function updatePart(actor: Person, build: Build, id: number, input:
     const { version: _v, ...fields } = input;
     if (fields.upgradeId !== undefined) await requireUpgradeInBuild(build.id, fields.upgradeId, 'upgradeId', t);
     // Receiving a part records the day, unless the person gave one.
-    if (fields.state === 'received' && p.state !== 'received' && fields.receivedOn === undefined && !p.receivedOn) fields.receivedOn = new Date().toISOString().slice(0, 10);
+    if (fields.state === 'received' && p.state !== 'received' && fields.receivedOn === undefined && !p.receivedOn) fields.receivedOn = todayIn(build.timeZone);
     const before = toPartRecord(p);
     p.set(fields as Partial<Part>);
     if (p.receivedOn && p.orderedOn && p.receivedOn < p.orderedOn) {

@@ -13,15 +13,10 @@ import { toDay } from '../../shared/planner/dates';
 import { AREA_LABELS, type EpisodeRecord } from '../../shared/domain';
 import type { PlanInputBody } from '../../shared/schemas/episode';
 import { assertPlanVersion, planVersion, recordRevision, refuseUnlistedDateChanges, lastUndoable, changeSummary, undoLastChange } from './planRevisions';
+import { addDays } from '../../shared/dates';
 
 /** Five shop days a week (common practice), so a shop day is a fifth of the weekly hours. */
 export const SHOP_DAYS_PER_WEEK = 5;
-
-function addDays(iso: string, days: number) {
-  const d = new Date(`${iso}T00:00:00Z`);
-  d.setUTCDate(d.getUTCDate() + days);
-  return d.toISOString().slice(0, 10);
-}
 
 /** Whole days from one ISO date to another (negative when `to` is earlier). */
 const daysBetween = (from: string, to: string) => toDay(to) - toDay(from);
@@ -50,7 +45,7 @@ export async function criticalSummary(data: PlanData, input: PlannerInput) {
   const hoursPerDay = input.shopHoursPerWeek / SHOP_DAYS_PER_WEEK;
   const r = minimumShopDays(data.upgrades, hoursPerDay);
   if (!r.ok) return null;
-  const now = today();
+  const now = today(data.build.timeZone);
   const forecast = bayForecast(
     data.upgrades.map((u) => ({
       id: u.id,

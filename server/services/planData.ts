@@ -6,6 +6,7 @@ import { votesByUpgrade } from './votes';
 import { LOCKED_STATES, toRecord, upgradeIdsByEpisode } from './episodes';
 import type { Area, EpisodeRecord, InstallState } from '../../shared/domain';
 import type { PlannerInput, PlannerUpgrade, PlanToValidate } from '../../shared/planner/index';
+import { addDays, todayIn } from '../../shared/dates';
 
 export interface UpgradeRow {
   id: number;
@@ -29,8 +30,8 @@ export interface PlanData {
   votes: Record<number, number>;
 }
 
-/** Today as an ISO date (UTC), the earliest day a new shoot can be planned for. */
-export const today = () => new Date().toISOString().slice(0, 10);
+/** Today as an ISO date in the build's zone (UTC when none is given), the earliest day a new shoot can be planned for. */
+export const today = (zone?: string | null) => todayIn(zone);
 
 export async function loadPlanData(build: Build, t?: Transaction): Promise<PlanData> {
   const replacements = { buildId: build.id };
@@ -137,7 +138,7 @@ export function plannerInput(data: PlanData, cap: Capacity, forProposal: boolean
   // New episodes are shot on the grid startDate + k × cadence. Never plan a shoot in the past:
   // move the grid so the first free slot after the locked episodes falls one cadence from today.
   const lastNumber = Math.max(0, ...fixedEpisodes.map((e) => e.number), ...upgrades.map((u) => u.fixedEpisode ?? 0));
-  const shifted = addDays(today(), -lastNumber * cap.releaseCadenceDays);
+  const shifted = addDays(today(data.build.timeZone), -lastNumber * cap.releaseCadenceDays);
   const startDate = shifted > cap.startDate ? shifted : cap.startDate;
   return { ...cap, startDate, upgrades, fixedEpisodes };
 }
@@ -147,8 +148,3 @@ export function currentPlan(data: PlanData): PlanToValidate {
   return { episodes: data.episodes.map((e) => ({ number: e.number, shootDate: e.shootDate, upgradeIds: e.upgradeIds })) };
 }
 
-function addDays(iso: string, days: number): string {
-  const d = new Date(`${iso}T00:00:00Z`);
-  d.setUTCDate(d.getUTCDate() + days);
-  return d.toISOString().slice(0, 10);
-}

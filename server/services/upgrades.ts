@@ -23,6 +23,7 @@ import { findCycle } from '../../shared/planner/criticalPath';
 import { checkMarks, partWords } from './upgradeMarks';
 import { cautionsFor } from '../../shared/safety';
 import { INSTALLER_UPGRADE_FIELDS, type CreateUpgradeInput, type UpdateUpgradeInput, type UpgradeListQuery } from '../../shared/schemas/upgrade';
+import { todayIn } from '../../shared/dates';
 
 const isInstallerOnly = (p: Person) => !p.roles.some((r) => r === 'owner' || r === 'producer');
 
@@ -107,7 +108,7 @@ export async function createUpgrade(actor: Person, build: Build, input: CreateUp
     const { prerequisiteIds = [], ...fields } = input;
     await requireEpisodeInBuild(build.id, fields.episodeId, t);
     const prereqs = await requirePrerequisitesInBuild(build.id, prerequisiteIds, t);
-    if (fields.installState === 'installed' && !fields.installedOn) fields.installedOn = today();
+    if (fields.installState === 'installed' && !fields.installedOn) fields.installedOn = todayIn(build.timeZone);
     const u = await Upgrade.create({ ...(fields as Required<typeof fields>), buildId: build.id }, { transaction: t });
     await u.reload({ transaction: t }); // version and database defaults
     // A new upgrade has no dependants yet, so its prerequisites cannot close a cycle.
@@ -118,7 +119,6 @@ export async function createUpgrade(actor: Person, build: Build, input: CreateUp
   });
 }
 
-const today = () => new Date().toISOString().slice(0, 10);
 
 /** Titles of the prerequisites of `u` that are not installed yet. */
 async function uninstalledPrerequisites(u: Upgrade, t: Transaction) {
@@ -150,7 +150,7 @@ export async function updateUpgrade(actor: Person, build: Build, id: number, inp
     }
     if (fields.installedOn === undefined && fields.installState && fields.installState !== u.installState) {
       // The install date follows the state unless the person gives one: set on install, cleared on the way back.
-      if (fields.installState === 'installed' && !u.installedOn) fields.installedOn = today();
+      if (fields.installState === 'installed' && !u.installedOn) fields.installedOn = todayIn(build.timeZone);
       if (fields.installState !== 'installed') fields.installedOn = null;
     }
     const before = await upgradeRecord(u, t);

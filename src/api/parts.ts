@@ -2,6 +2,8 @@
 import { api, qs, request } from './http';
 import type { PartRecord, PartState } from '@shared/domain';
 import type { ImportReport } from './upgrades';
+import { todayIn } from '@shared/dates';
+import { useBuildStore } from '@/stores/build';
 
 /** A part as the API sends it; order and arrival dates and the version come along when present. */
 export type PartRow = PartRecord & { orderedOn?: string | null; receivedOn?: string | null; version?: number };
@@ -31,10 +33,15 @@ export async function allParts(buildId: number): Promise<PartRow[]> {
   return out;
 }
 
-/** Today as YYYY-MM-DD in the person's own time zone (the day the part came in at this shop). */
+/** Today as YYYY-MM-DD in the open build's time zone (the shop's clock), as the server counts it. */
 export function today(): string {
-  const d = new Date();
-  return `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, '0')}-${String(d.getDate()).padStart(2, '0')}`;
+  let zone: string | undefined;
+  try {
+    zone = useBuildStore().build?.timeZone;
+  } catch {
+    zone = undefined; // no store yet (outside the app): UTC
+  }
+  return todayIn(zone);
 }
 
 /** Marks a part received today: the one part change an installer makes from the bay. */

@@ -6,6 +6,7 @@ import { anonymous, signInAs } from '../helpers/api';
 import { Build, Upgrade, Episode, sequelize } from '../../server/models';
 import { queryCounter } from '../../server/db/sequelize';
 import { buildOverview } from '../../server/services/overview';
+import { singleFlight } from '../../server/services/overviewCache';
 import { earnedValue, roundHalfUpCents } from '../../shared/index';
 import type { BuildOverview, OverviewCostRow } from '../../shared/overview';
 
@@ -343,5 +344,36 @@ describe('the cached overview', () => {
     expect(first.headers.etag).toBeTruthy();
     const again = await owner.get(url).set('If-None-Match', first.headers.etag);
     expect(again.status).toBe(304);
+  });
+
+  it('computes once for concurrent misses of one build (single flight), and again after a change', async () => {
+    let runs = 0;
+    const compute = async () => {
+      runs += 1;
+      await new Promise((r) => setTimeout(r, 30));
+      return { day: '2026-01-01', zone: 'UTC', body: Buffer.from('{}'), gzipped: null, etag: 'W/"x"' };
+    };
+    const same = await Promise.all(Array.from({ length: 8 }, () => singleFlight(424242, '1:0:0|2026-01-01|UTC', compute)));
+    expect(runs).toBe(1);
+    expect(new Set(same).size).toBe(1);
+    await singleFlight(424242, '1:0:1|2026-01-01|UTC', compute); // a change came in: a new stamp
+    expect(runs).toBe(2);
+    // Without the listening connection nothing is shared: a reader must see its own write.
+    await Promise.all([singleFlight(424242, '0:0:0|x', compute), singleFlight(424242, '0:0:0|x', compute)]);
+    expect(runs).toBe(4);
+  });
+
+  it('answers ten concurrent requests after a change with one overview query', async () => {
+    const b = await makeBuild();
+    const u = await upgrade(b.id, { title: 'Tonneau cover', area: 'rear', estimatedHours: 2 });
+    const url = `/api/builds/${b.id}/overview`;
+    await owner.get(url); // opens the listening connection and caches
+    await part(b.id, u.id, 1, 4_000);
+    await new Promise((r) => setTimeout(r, 200)); // the change's notice drops the cached copy
+    const before = queryCounter.count;
+    const answers = await Promise.all(Array.from({ length: 10 }, () => owner.get(url)));
+    expect(answers.every((a) => a.status === 200 && a.body.totals.partsCents === 4_000)).toBe(true);
+    // Each request reads its person and (on a miss) the build; the overview's own query runs once.
+    expect(queryCounter.count - before).toBeLessThanOrEqual(10 * 2 + 1);
   });
 });

@@ -42,6 +42,17 @@ describe('build overview in the browser', () => {
       expect(await s.page.locator('[data-test="figure-upgrades"]').textContent()).toBe(`${expected.headline.upgradesDone} / ${expected.headline.upgradesTotal}`);
       expect(await s.page.locator('[data-test="figure-episodes"]').textContent()).toBe(`${expected.headline.episodesLive} / ${expected.headline.episodesTotal}`);
       expect(await s.page.locator('[data-test="credit-rule"]').textContent()).toContain('0/100');
+      // The plan of work, its reserve, actual cost as recognised, and the forecast's own formula.
+      expect(await s.page.locator('[data-test="figure-reserve"]').textContent()).toBe(formatCents(expected.headline.reserveCents));
+      expect(await s.page.locator('[data-test="figure-actual"]').textContent()).toBe(formatCents(expected.headline.actualCents));
+      const formula = (await s.page.locator('[data-test="formula-forecast"]').textContent()) ?? '';
+      expect(formula).toContain(formatCents(expected.headline.actualCents));
+      expect(formula).toContain(formatCents(expected.headline.etcCents));
+      expect(formula).toContain('$95.00/h');
+      const cash = (await s.page.locator('[data-test="cash-view"]').textContent()) ?? '';
+      for (const c of [expected.headline.cash.paidCents, expected.headline.cash.committedCents, expected.headline.cash.notOrderedCents, expected.headline.netCents]) expect(cash).toContain(formatCents(c));
+      const estimates = (await s.page.locator('[data-test="index-estimates"]').textContent()) ?? '';
+      for (const f of ['BAC ÷ CPI', 'AC + (BAC − EV)', 'AC + (BAC − EV) ÷ (CPI × SPI)', '(BAC − EV) ÷ (BAC − AC)', '(BAC − EV) ÷ (forecast − AC)']) expect(estimates).toContain(f);
       const text = (await s.page.locator('main').textContent()) ?? '';
       expect(text).not.toMatch(/NaN|Infinity|undefined/);
       expect(await s.page.locator('canvas').count()).toBeGreaterThanOrEqual(4);
@@ -82,6 +93,9 @@ describe('build overview in the browser', () => {
       await s.page.getByRole('link', { name: 'Build report' }).click();
       await s.page.getByRole('heading', { name: `Build report: ${tern.name}` }).waitFor();
       await s.page.getByRole('table', { name: 'By upgrade' }).waitFor();
+      // The burndown and the cost per upgrade are on paper too.
+      await s.page.getByRole('region', { name: 'Cost burndown' }).locator('canvas').waitFor();
+      await s.page.getByRole('region', { name: 'Cost per upgrade' }).locator('canvas').waitFor();
       await audit(s, 'build report');
       await s.page.evaluate(() => {
         (window as unknown as { printed: number }).printed = 0;
@@ -109,6 +123,47 @@ describe('build overview in the browser', () => {
       const text = (await s.page.locator('main').textContent()) ?? '';
       expect(text).not.toMatch(/NaN|Infinity|undefined/);
       await audit(s, 'overview of an empty build');
+    } finally {
+      await s.close();
+    }
+  });
+
+  it('follows dark mode: cards and chart panels take the dark surface, and the page still passes the audit', async () => {
+    const s = await openBrowser({ server });
+    try {
+      await s.page.addInitScript(() => localStorage.setItem('bayslate.mode', 'dark'));
+      await signInQuick(s, 'owner');
+      await s.page.goto(`${server.url}/builds/${tern.id}/overview`);
+      await s.page.locator('[data-test="figure-forecast"]').waitFor();
+      const bg = (sel: string) => s.page.locator(sel).first().evaluate((el) => getComputedStyle(el).backgroundColor);
+      // theme.ts palette.graphite800 (#25272b) is the dark panel colour; white would be rgb(255, 255, 255).
+      expect(await bg('.card')).toBe('rgb(37, 39, 43)');
+      expect(await bg('#chart-burndown-title >> xpath=ancestor::section[1]')).toBe('rgb(37, 39, 43)');
+      await audit(s, 'overview in dark mode');
+    } finally {
+      await s.close();
+    }
+  });
+
+  it('the owner sets the shop clock and cost recognition in the build settings, and the overview follows', async () => {
+    const b = await Build.create({ slug: `overview-clock-${Date.now().toString(36)}`, name: 'Clock build', year: 2021, make: 'Halvorsen', model: 'Skua', vin: null, mileage: null, budgetCents: 1_000_000, labourRateCents: 10_000, campaign: null, summary: null });
+    const s = await openBrowser({ server });
+    try {
+      await signInQuick(s, 'owner');
+      await s.page.goto(`${server.url}/builds/${b.id}/settings`);
+      await s.page.getByText('Shop time zone').waitFor();
+      await s.page.locator('[data-test="time-zone"]').click();
+      await s.page.keyboard.type('America/Denver');
+      await s.page.locator('.n-base-select-option', { hasText: /^America\/Denver$/ }).click();
+      await s.page.locator('[data-test="recognition-receipt"]').click();
+      await audit(s, 'build settings: clock and cost recognition');
+      await s.page.getByRole('button', { name: 'Save settings' }).click();
+      await s.page.getByText('Settings saved.').waitFor();
+      const saved = (await Build.findByPk(b.id))!;
+      expect([saved.timeZone, saved.costRecognition]).toEqual(['America/Denver', 'receipt']);
+      await s.page.goto(`${server.url}/builds/${b.id}/overview`);
+      await s.page.locator('[data-test="figure-actual"]').waitFor();
+      expect(await s.page.locator('[data-test="recognised-view"] caption').textContent()).toContain('at receipt');
     } finally {
       await s.close();
     }

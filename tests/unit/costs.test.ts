@@ -2,6 +2,7 @@
 import { describe, expect, it } from 'vitest';
 import { rollUpCosts, roundHalfUpCents, type CostInput, type CostRow } from '../../shared/costs';
 import type { Area, Disposition, PartState } from '../../shared/domain';
+import { formatDollarsTick, formatLineTotal } from '../../src/theme';
 import { recogniseCosts, type CostRecognition, type RecognitionInput } from '../../shared/costRecognition';
 import { earnedValue } from '../../shared/earnedValue';
 
@@ -213,5 +214,35 @@ describe('cost recognition, the cash view and the bottom-up forecast (issue 12 w
     expect(r.forecast.upgrades[1]).toMatchObject({ remainingHours: 8.5, labourCents: 85_000, plannedCents: 17_500, partsCents: 307_000 });
     expect(r.forecast.atCompletionCents).toBe(200_000 + 85_000 + 17_500 + 307_000 + 100_000);
     expect(r.cash).toEqual({ paidCents: 500_000, committedCents: 7_000 + 17_500, notOrderedCents: 50_000, netCents: 574_500 });
+  });
+});
+
+describe('money as the screens write it', () => {
+  it('writes axis ticks with a true minus sign before the dollar sign', () => {
+    expect(formatDollarsTick(-1_000_000 / 100)).toBe('−$10,000');
+    expect(formatDollarsTick(25_000)).toBe('$25,000');
+    expect(formatDollarsTick(0)).toBe('$0');
+  });
+  it('writes a parts line as quantity × unit price = line total', () => {
+    expect(formatLineTotal(4, 18_500)).toBe('4 × $185.00 = $740.00');
+    expect(formatLineTotal(1, 18_500)).toBe('$185.00');
+    expect(formatLineTotal(3, null)).toBe('—');
+  });
+});
+
+describe('the estimate to complete of an installed upgrade', () => {
+  it('has no bay hours left once installed, even when fewer hours were logged than estimated', () => {
+    // By hand: 6 h estimated, 4 h logged, installed (segments not shot): 0 h left; queued twin: 2 h × $100.
+    const r = recogniseCosts({
+      recognition: 'fitting', asOf: '2026-05-01', labourRateCents: 10_000,
+      upgrades: [
+        { id: 1, estimatedHours: 6, installState: 'installed', installedOn: '2026-04-20', done: false },
+        { id: 2, estimatedHours: 6, installState: 'queued', installedOn: null, done: false },
+      ],
+      parts: [], expenses: [], recoveries: [],
+      labour: [{ upgradeId: 1, workedOn: '2026-04-19', hours: 4 }, { upgradeId: 2, workedOn: '2026-04-19', hours: 4 }],
+    });
+    expect(r.forecast.upgrades.map((u) => u.remainingHours)).toEqual([0, 2]);
+    expect(r.forecast.atCompletionCents).toBe(80_000 + 20_000);
   });
 });
