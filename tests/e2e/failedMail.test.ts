@@ -39,6 +39,7 @@ describe('failed mail panel', () => {
       await s.page.getByText('Mail to new.hire@cedar-ridge.test is queued again.').waitFor();
       await row.waitFor({ state: 'detached' });
       await s.page.getByText('No failed mail').waitFor();
+      await audit(s, 'users without failed mail (dark)');
     } finally {
       await s.close();
     }
