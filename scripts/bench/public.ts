@@ -7,7 +7,7 @@
 // from a child process, and drops the database. Knobs: BENCH_SECONDS (10), BENCH_ROUNDS (5).
 import { fork, execFileSync, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
-import { existsSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
 import { createServer, type AddressInfo } from 'node:net';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -32,6 +32,8 @@ async function serve() {
 
 // ---------- the load ----------
 interface Figures {
+  /** Server CPU per request (µs): what the route costs, whatever else the machine is doing. */
+  cpuUs: number;
   rps: number;
   p50: number;
   p95: number;
@@ -39,10 +41,22 @@ interface Figures {
   failed: number;
 }
 
+/** CPU time the server process has used so far, in ms (Linux /proc; 0 elsewhere). */
+function serverCpuMs(pid: number | undefined): number {
+  try {
+    const f = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1]!.split(' ');
+    return ((Number(f[11]) + Number(f[12])) * 1000) / 100; // utime + stime, in ticks of 1/100 s
+  } catch {
+    return 0;
+  }
+}
+let serverPid: number | undefined;
+
 async function round(url: string, headers: Record<string, string>, seconds: number) {
   const run = (await import('autocannon')).default;
+  const cpu0 = serverCpuMs(serverPid);
   const r = (await run({ url, connections: CONNECTIONS, duration: seconds, headers, timeout: 10 })) as autocannon.Result;
-  return { requests: r.requests.total, p50: r.latency.p50, p95: r.latency.p97_5 ?? r.latency.p99, failed: r.non2xx + r.errors + r.timeouts };
+  return { cpuMs: serverCpuMs(serverPid) - cpu0, requests: r.requests.total, p50: r.latency.p50, p95: r.latency.p97_5 ?? r.latency.p99, failed: r.non2xx + r.errors + r.timeouts };
 }
 
 /** Routes take turns in short rounds, so the machine's other load falls on all of them alike. */
@@ -56,7 +70,8 @@ async function compare(targets: { name: string; url: string }[], headers: Record
     const requests = rs.reduce((s, r) => s + r.requests, 0);
     // Median of the rounds' percentiles: autocannon gives no raw latencies to merge.
     const mid = (xs: number[]) => xs.sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
-    out.set(t.name, { rps: requests / SECONDS, requests, p50: mid(rs.map((r) => r.p50)), p95: mid(rs.map((r) => r.p95)), failed: rs.reduce((s, r) => s + r.failed, 0) });
+    const cpuMs = rs.reduce((s, r) => s + r.cpuMs, 0);
+    out.set(t.name, { cpuUs: requests ? (cpuMs * 1000) / requests : NaN, rps: requests / SECONDS, requests, p50: mid(rs.map((r) => r.p50)), p95: mid(rs.map((r) => r.p95)), failed: rs.reduce((s, r) => s + r.failed, 0) });
   }
   return out;
 }
@@ -121,6 +136,7 @@ async function main() {
       child!.once('message', (m: { port: number }) => resolve(m.port));
       child!.once('exit', (code) => reject(new Error(`the server exited with ${code}`)));
     });
+    serverPid = child.pid;
     const base = `http://127.0.0.1:${port}`;
     const headers = { 'accept-encoding': 'gzip, deflate, br' };
     const targets = [
@@ -139,11 +155,13 @@ async function main() {
     const results = await compare(targets, headers);
     const [pub, live, stat] = targets.map((t) => results.get(t.name)!) as [Figures, Figures, Figures];
     console.log(`\n${CONNECTIONS} connections, ${SECONDS} s per route (${ROUNDS} alternating rounds), loopback, gzip accepted`);
-    console.log(`${'route'.padEnd(20)} ${'req/s'.padStart(8)} ${'p50 ms'.padStart(7)} ${'p97.5 ms'.padStart(9)} ${'failed'.padStart(7)}`);
+    console.log(`${'route'.padEnd(20)} ${'req/s'.padStart(8)} ${'p50 ms'.padStart(7)} ${'p97.5 ms'.padStart(9)} ${'cpu µs/r'.padStart(9)} ${'failed'.padStart(7)}`);
     for (const t of targets) {
       const f = results.get(t.name)!;
-      console.log(`${t.name.padEnd(20)} ${f.rps.toFixed(0).padStart(8)} ${f.p50.toFixed(1).padStart(7)} ${f.p95.toFixed(1).padStart(9)} ${String(f.failed).padStart(7)}`);
+      console.log(`${t.name.padEnd(20)} ${f.rps.toFixed(0).padStart(8)} ${f.p50.toFixed(1).padStart(7)} ${f.p95.toFixed(1).padStart(9)} ${f.cpuUs.toFixed(0).padStart(9)} ${String(f.failed).padStart(7)}`);
     }
+    // On a busy machine throughput follows the other load; the server's CPU per request does not.
+    console.log(`by server CPU per request (capacity on an idle core): public ${((stat.cpuUs / pub.cpuUs) * 100).toFixed(1)} %, live ${((stat.cpuUs / live.cpuUs) * 100).toFixed(1)} % of static`);
     const rPublic = pub.rps / stat.rps;
     const rLive = live.rps / stat.rps;
     console.log(`public JSON / static: ${(rPublic * 100).toFixed(1)} % (target ≥ ${TARGET_PUBLIC * 100} %)`);

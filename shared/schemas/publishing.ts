@@ -1,6 +1,6 @@
 // Chapters, publishing and campaign payloads for an episode's show notes.
 import { z } from 'zod';
-import { httpUrl, id } from './common';
+import { httpUrl, id, safeString } from './common';
 
 // Two days is far past any episode; it only keeps numbers sane before validateChapters speaks.
 const seconds = z.number().int('must be whole seconds').min(0, 'cannot be negative').max(172_800, 'is too long');
@@ -8,7 +8,7 @@ const runtime = z.number().int('must be whole seconds').positive('must be more t
 
 export const chapterSchema = z.strictObject({
   startSeconds: seconds,
-  title: z.string().max(200, 'must be at most 200 characters'),
+  title: safeString().max(200, 'must be at most 200 characters'),
   upgradeId: id.nullish().transform((v) => v ?? null),
 });
 export const putChaptersSchema = z.strictObject({

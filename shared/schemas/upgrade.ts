@@ -3,7 +3,7 @@
 import { z } from 'zod';
 import { AREAS, INSTALL_STATES, SAFETY_FLAGS, SEGMENT_STATES } from '../domain';
 import { parseTireSize } from '../tires';
-import { cents, hours, isoDate, optionalText, pageQuery, requiredText } from './common';
+import { cents, hours, isoDate, optionalText, pageQuery, requiredText, safeString } from './common';
 
 export const refId = z.number().int('must be a whole number').positive('must be a positive id');
 
@@ -73,7 +73,7 @@ export const upgradeListQuery = pageQuery.extend({
   installState: z.enum(INSTALL_STATES).optional(),
   episodeId: z.union([z.literal('none'), z.coerce.number().int().positive()]).optional(),
   safetyFlag: z.enum(SAFETY_FLAGS).optional(),
-  q: z.string().trim().max(100).optional(),
+  q: safeString().trim().max(100).optional(),
   sort: z.enum(UPGRADE_SORTS).default('priority'),
   dir: z.enum(['asc', 'desc']).default('asc'),
 });

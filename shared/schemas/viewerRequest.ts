@@ -1,10 +1,10 @@
 // Viewer requests and votes from the public page, and marketing's triage of them.
 import { z } from 'zod';
 import { AREAS, REQUEST_STATES } from '../domain';
-import { email, hours, id, optionalText, requiredText } from './common';
+import { email, hours, id, optionalText, requiredText, safeString } from './common';
 
 /** Left empty by people; bots that fill every field fill it. */
-const website = z.string().max(500, 'must be at most 500 characters').optional();
+const website = safeString().max(500, 'must be at most 500 characters').optional();
 const name = optionalText(80);
 
 export const publicRequestSchema = z.strictObject({

@@ -27,7 +27,7 @@ export function setUnauthorizedHandler(fn: () => void) {
   onUnauthorized = fn;
 }
 
-export async function request<T>(method: string, url: string, body?: unknown, opts: { raw?: boolean; contentType?: string } = {}): Promise<T> {
+export async function request<T>(method: string, url: string, body?: unknown, opts: { raw?: boolean; contentType?: string; cache?: RequestCache } = {}): Promise<T> {
   const headers: Record<string, string> = { 'X-Requested-With': 'Bayslate', Accept: 'application/json' };
   let payload: BodyInit | undefined;
   if (body !== undefined) {
@@ -36,7 +36,7 @@ export async function request<T>(method: string, url: string, body?: unknown, op
   }
   let res: Response;
   try {
-    res = await fetch(url, { method, headers, body: payload, credentials: 'same-origin' });
+    res = await fetch(url, { method, headers, body: payload, credentials: 'same-origin', ...(opts.cache ? { cache: opts.cache } : {}) });
   } catch {
     throw new ApiError(0, 'network', 'The server cannot be reached. Check the connection and try again.');
   }

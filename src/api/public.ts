@@ -1,5 +1,5 @@
 // The public build page's API: no sign-in, builds marked public only.
-import { api } from './http';
+import { api, request } from './http';
 
 export type PublicStatus = 'planned' | 'in_progress' | 'coming_soon' | 'done';
 
@@ -20,7 +20,9 @@ export interface Accepted {
 const b = (slug: string) => `/api/public/builds/${encodeURIComponent(slug)}`;
 
 export const publicApi = {
-  build: (slug: string) => api.get<PublicBuild>(b(slug)),
+  // The answer may be kept by caches for other viewers (public, short max-age); this browser always
+  // asks again with its ETag (a cheap 304), so a viewer sees their own confirmed vote at once.
+  build: (slug: string) => request<PublicBuild>('GET', b(slug), undefined, { cache: 'no-cache' }),
   request: (slug: string, body: { title: string; details?: string | null; name?: string | null; email: string; website?: string }) =>
     api.post<Accepted>(`${b(slug)}/requests`, body),
   vote: (slug: string, requestId: number, body: { name?: string | null; email: string; website?: string }) =>

@@ -10,6 +10,13 @@ import { counts } from '../helpers/db';
 import { Build, Media } from '../../server/models';
 import { config } from '../../server/config';
 import { listKeys, putBuffer } from '../../server/storage';
+import http from 'node:http';
+import type { AddressInfo } from 'node:net';
+import request from 'supertest';
+import { testApp } from '../helpers/api';
+
+const testAppServer = () => http.createServer(testApp());
+
 import { startMediaSweeper, stopMediaSweeper } from '../../server/services/mediaSweep';
 
 type Agent = Awaited<ReturnType<typeof signInAs>>;
@@ -50,6 +57,36 @@ describe('uploads', () => {
     expect(await counts('media', 'activities')).toEqual(before);
     expect(await keysUnder(`builds/${build.id}/`)).toEqual(keysBefore);
     expect(readdirSync(uploadDir)).toEqual([]);
+  });
+
+  it('an upload the client breaks off mid-way leaves no object, no row and no temp file', async () => {
+    const keysBefore = await keysUnder(`builds/${build.id}/`);
+    const before = await counts('media');
+    const server = testAppServer();
+    await new Promise<void>((r) => server.listen(0, '127.0.0.1', () => r()));
+    const port = (server.address() as AddressInfo).port;
+    const login = await request(testApp()).post('/api/auth/login').set('X-Requested-With', 'Bayslate').send({ email: 'installer@cedar-ridge.test', password: 'bayslate-demo' });
+    const cookie = String(login.headers['set-cookie']?.[0] ?? '').split(';')[0]!;
+    const boundary = 'bayslate-broken-upload';
+    const head = Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="broken.mp4"\r\nContent-Type: video/mp4\r\n\r\n`);
+    const req = http.request({ host: '127.0.0.1', port, method: 'POST', path: `/api/builds/${build.id}/media`, headers: { 'Content-Type': `multipart/form-data; boundary=${boundary}`, 'Content-Length': String(head.length + 40 * 1024 * 1024), 'X-Requested-With': 'Bayslate', Cookie: cookie } });
+    req.on('error', () => undefined);
+    req.write(head);
+    // 20 MB of a 40 MB body: past the first 8 MB part of the multipart upload, then the line drops.
+    const chunk = mp4(1024 * 1024);
+    for (let i = 0; i < 20; i++) await new Promise<void>((r) => (req.write(chunk) ? r() : req.once('drain', () => r())));
+    await new Promise((r) => setTimeout(r, 500));
+    req.destroy();
+    // The server notices the broken line, aborts the multipart upload and removes the temp file.
+    let left: string[] = readdirSync(uploadDir);
+    for (let i = 0; i < 40 && left.length; i++) {
+      await new Promise((r) => setTimeout(r, 100));
+      left = readdirSync(uploadDir);
+    }
+    await new Promise<void>((r) => server.close(() => r()));
+    expect(left).toEqual([]);
+    expect(await keysUnder(`builds/${build.id}/`)).toEqual(keysBefore);
+    expect(await counts('media')).toEqual(before);
   });
 
   it('the sweeper runs on its own timer: old leftovers go, young ones and referenced ones stay', async () => {

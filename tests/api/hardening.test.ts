@@ -44,6 +44,20 @@ describe('NUL characters', () => {
   });
 });
 
+describe('NUL characters in fields outside the text helpers', () => {
+  it('a chapter title and a backlog search answer 400 naming the field, not 500', async () => {
+    const { Episode } = await import('../../server/models');
+    const ep = (await Episode.findOne({ where: { buildId: tern, number: 3 } }))!;
+    const marketing = await signInAs('marketing');
+    const put = await marketing.put(`/api/builds/${tern}/episodes/${ep.id}/chapters`).send({ chapters: [{ startSeconds: 0, title: 'Intro\u0000' }] });
+    expect(put.status).toBe(400);
+    expect(put.body.error.fields[0].path).toBe('chapters.0.title');
+    const search = await (await signInAs('producer')).get(`/api/builds/${tern}/upgrades?q=${encodeURIComponent('winch\u0000')}`);
+    expect(search.status).toBe(400);
+    expect(search.body.error.fields[0].path).toBe('q');
+  });
+});
+
 describe('Host header', () => {
   it('a request for another host is refused with a clear JSON answer', async () => {
     const res = await request(testApp()).get('/api/auth/me').set('Host', 'bayslate.attacker.example');

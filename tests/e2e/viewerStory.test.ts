@@ -64,8 +64,10 @@ describe('viewer story', () => {
       // 2. The confirmation mail, read in the development inbox; its link confirms the vote.
       await waitForMails(email, 1);
       await visit(viewer, '/dev/mail');
-      await viewer.page.getByRole('link', { name: `Confirm your vote: ${wish}` }).click();
-      await viewer.page.getByRole('heading', { name: `Confirm your vote: ${wish}` }).waitFor();
+      // The subject is fixed (no viewer text in it): this viewer's mail is the row with their address.
+      await viewer.page.getByRole('row', { name: new RegExp(email.replace(/[.+]/g, '\\$&')) }).getByRole('link', { name: 'Confirm your vote on the Project Tern build' }).click();
+      await viewer.page.getByRole('heading', { name: 'Confirm your vote on the Project Tern build' }).waitFor();
+      await viewer.page.getByText(`“${wish}”`).waitFor();
       await audit(viewer, 'development inbox message');
       await viewer.page.getByRole('link', { name: /\/confirm\// }).click();
       await viewer.page.getByRole('heading', { name: 'Your vote is counted' }).waitFor();
