@@ -36,7 +36,7 @@ async function choose(page: Page, scope: ReturnType<Page['locator']>, option: st
   await page.locator('.n-base-select-option:visible', { hasText: option }).first().click();
 }
 // A whole journey drives many screens; the shared two-core machine makes some of them slow.
-const JOURNEY_TIMEOUT = 180_000;
+const JOURNEY_TIMEOUT = 300_000;
 const drawer = (page: Page) => page.locator('.n-drawer');
 
 describe('backlog in the browser', () => {
