@@ -42,7 +42,8 @@ export default defineConfig({
           environment: 'node',
           globalSetup: ['tests/helpers/global-services.ts'],
           setupFiles: ['tests/helpers/per-file-db.ts'],
-          testTimeout: 120_000,
+          // Generous: a journey on a shared two-core machine under heavy load is slow, not wrong.
+          testTimeout: 300_000,
           // No retries: a journey starts from its own database and waits for what it caused.
           retry: 0,
           // Each browser test starts its own server on its own database (tests/helpers/fresh-db.ts).

@@ -1,23 +1,16 @@
 // The backlog in the browser, one journey per role: the producer plans (create, edit, link a
 // prerequisite, see a loop refused, import parts from CSV), the installer works from a phone
 // (log hours, receive a part), the owner sees spend, marketing sees retail but never cost.
-import { describe, it, expect, beforeEach, afterEach } from 'vitest';
+import { describe, it, expect } from 'vitest';
 import type { Page } from 'playwright-core';
 import { openBrowser, signIn, audit, visit, type BrowserSession } from '../helpers/browser';
-import { freshApp, type FreshApp } from '../helpers/fresh-db';
+import { freshAppPerTest } from '../helpers/fresh-db';
 import { outcomeOf } from '../helpers/outcome';
 import { compareTires } from '../../shared/tires';
 import { SAFETY_CAUTIONS } from '../../shared/safety';
 
-// Each journey runs on a database of its own, cloned from the template as it starts.
-let app: FreshApp | undefined;
-beforeEach(async () => {
-  app = await freshApp();
-});
-afterEach(async () => {
-  await app?.stop();
-  app = undefined;
-});
+// Each test runs on a database of its own, cloned from the template as it starts.
+const app = freshAppPerTest();
 
 /** Reads the API with the page's own session, as the client does. */
 async function apiGet<T>(s: BrowserSession, path: string): Promise<T> {
@@ -43,12 +36,12 @@ async function choose(page: Page, scope: ReturnType<Page['locator']>, option: st
   await page.locator('.n-base-select-option:visible', { hasText: option }).first().click();
 }
 // A whole journey drives many screens; the shared two-core machine makes some of them slow.
-const JOURNEY_TIMEOUT = 180_000;
+const JOURNEY_TIMEOUT = 300_000;
 const drawer = (page: Page) => page.locator('.n-drawer');
 
 describe('backlog in the browser', () => {
   it('producer creates an upgrade, edits it, links a prerequisite, sees a loop refused and imports parts', async () => {
-    const s = await openBrowser({ server: app!.server });
+    const s = await openBrowser({ server: app().server });
     const { page } = s;
     try {
       await signIn(s, 'producer');
@@ -196,7 +189,7 @@ describe('backlog in the browser', () => {
   }, JOURNEY_TIMEOUT);
 
   it('installer at phone width logs hours and marks a part received', async () => {
-    const s = await openBrowser({ server: app!.server, phone: true });
+    const s = await openBrowser({ server: app().server, phone: true });
     const { page } = s;
     try {
       await signIn(s, 'installer');
@@ -250,7 +243,7 @@ describe('backlog in the browser', () => {
   }, JOURNEY_TIMEOUT);
 
   it('owner sees spend against budget on the builds list', async () => {
-    const s = await openBrowser({ server: app!.server });
+    const s = await openBrowser({ server: app().server });
     const { page } = s;
     try {
       await signIn(s, 'owner');
@@ -308,7 +301,7 @@ describe('backlog in the browser', () => {
   }, JOURNEY_TIMEOUT);
 
   it('marketing sees retail prices but no shop cost', async () => {
-    const s = await openBrowser({ server: app!.server });
+    const s = await openBrowser({ server: app().server });
     const { page } = s;
     try {
       await signIn(s, 'marketing');

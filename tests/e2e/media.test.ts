@@ -1,14 +1,14 @@
 // Media in the browser: an installer on a phone uploads photos to an upgrade with a progress bar
 // per file and sees them; the producer browses the demo photos, previews, edits and deletes;
 // marketing reads without an upload button. axe-core audits each screen and dialog.
-import { describe, it, expect, beforeAll, afterAll, beforeEach, afterEach } from 'vitest';
+import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import { mkdtempSync, rmSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import sharp from 'sharp';
 import { openBrowser, audit, visit, type BrowserSession } from '../helpers/browser';
 import { DEMO_EMAIL, DEMO_PASSWORD, type DemoRole } from '../helpers/api';
-import { freshApp, ternId as ternIdIn, type FreshApp } from '../helpers/fresh-db';
+import { freshAppPerTest, ternId as ternIdIn } from '../helpers/fresh-db';
 import { outcomeOf } from '../helpers/outcome';
 
 let dir: string;
@@ -19,21 +19,14 @@ afterAll(async () => {
   rmSync(dir, { recursive: true, force: true });
 });
 // Each test runs on a database of its own, cloned from the template as it starts.
-let app: FreshApp | undefined;
-beforeEach(async () => {
-  app = await freshApp();
-});
-afterEach(async () => {
-  await app?.stop();
-  app = undefined;
-});
+const app = freshAppPerTest();
 
 async function apiGet<T>(s: BrowserSession, p: string): Promise<T> {
   const res = await s.page.request.get(s.server.url + p, { headers: { 'X-Requested-With': 'Bayslate', Accept: 'application/json' } });
   expect(res.status(), `${p} answered ${res.status()}`).toBe(200);
   return (await res.json()) as T;
 }
-const ternId = () => ternIdIn(app!.db);
+const ternId = () => ternIdIn(app().db);
 /** Signs in through the form from a deep link, as a person following a link would. */
 async function signInTo(s: BrowserSession, role: DemoRole, next: string) {
   await visit(s, `/sign-in?next=${encodeURIComponent(next)}`);
@@ -61,7 +54,7 @@ async function imagesLoaded(s: BrowserSession, selector: string) {
 
 describe('media in the browser', () => {
   it('an installer at 390 px uploads photos to an upgrade with progress and sees them', async () => {
-    const s = await openBrowser({ server: app!.server, phone: true });
+    const s = await openBrowser({ server: app().server, phone: true });
     try {
       const buildId = await ternId();
       await signInTo(s, 'installer', `/builds/${buildId}/media`);
@@ -122,7 +115,7 @@ describe('media in the browser', () => {
   });
 
   it('the producer sees the demo photos, previews one, edits its caption and deletes an upload', async () => {
-    const s = await openBrowser({ server: app!.server });
+    const s = await openBrowser({ server: app().server });
     try {
       const buildId = await ternId();
       await signInTo(s, 'producer', `/builds/${buildId}/media`);
@@ -169,7 +162,7 @@ describe('media in the browser', () => {
   });
 
   it('marketing browses the library but has no upload button', async () => {
-    const s = await openBrowser({ server: app!.server });
+    const s = await openBrowser({ server: app().server });
     try {
       const buildId = await ternId();
       await signInTo(s, 'marketing', `/builds/${buildId}/media`);

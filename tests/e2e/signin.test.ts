@@ -1,19 +1,12 @@
 // Each demo role signs in through the form, sees its own navigation, and signs out.
-import { describe, it, expect, beforeEach, afterEach } from 'vitest';
+import { describe, it, expect } from 'vitest';
 import { openBrowser, signIn, audit, type BrowserSession } from '../helpers/browser';
-import { freshApp, type FreshApp } from '../helpers/fresh-db';
+import { freshAppPerTest } from '../helpers/fresh-db';
 import { outcomeOf } from '../helpers/outcome';
 import type { DemoRole } from '../helpers/api';
 
 // Each test runs on a database of its own, cloned from the template as it starts.
-let app: FreshApp | undefined;
-beforeEach(async () => {
-  app = await freshApp();
-});
-afterEach(async () => {
-  await app?.stop();
-  app = undefined;
-});
+const app = freshAppPerTest();
 
 const expectations: Record<DemoRole, { sees: string[]; hidden: string[] }> = {
   owner: { sees: ['Builds', 'Users & roles', 'My account'], hidden: [] },
@@ -25,7 +18,7 @@ const expectations: Record<DemoRole, { sees: string[]; hidden: string[] }> = {
 describe('sign-in in the browser', () => {
   for (const role of Object.keys(expectations) as DemoRole[]) {
     it(`${role} signs in, sees their navigation and signs out`, async () => {
-      const s: BrowserSession = await openBrowser({ server: app!.server });
+      const s: BrowserSession = await openBrowser({ server: app().server });
       try {
         await signIn(s, role);
         const nav = s.page.getByRole('navigation', { name: 'Main navigation' });
@@ -50,7 +43,7 @@ describe('sign-in in the browser', () => {
   }
 
   it('the owner adds a person with roles, then deactivates them after confirming', async () => {
-    const s = await openBrowser({ server: app!.server });
+    const s = await openBrowser({ server: app().server });
     try {
       await signIn(s, 'owner');
       await s.page.getByRole('link', { name: 'Users & roles' }).click();
@@ -82,7 +75,7 @@ describe('sign-in in the browser', () => {
   });
 
   it('a wrong password shows a message and stays on sign-in', async () => {
-    const s = await openBrowser({ server: app!.server });
+    const s = await openBrowser({ server: app().server });
     try {
       await s.page.goto(`${s.server.url}/sign-in`);
       await s.page.getByLabel('E-mail').fill('owner@cedar-ridge.test');
@@ -97,7 +90,7 @@ describe('sign-in in the browser', () => {
   });
 
   it('works at phone width: the menu opens and offers sign-out', async () => {
-    const s = await openBrowser({ server: app!.server, phone: true });
+    const s = await openBrowser({ server: app().server, phone: true });
     try {
       await signIn(s, 'installer');
       await s.page.getByRole('button', { name: 'Open the menu' }).click();

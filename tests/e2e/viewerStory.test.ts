@@ -2,21 +2,14 @@
 // confirms it by the link in the development inbox (/dev/mail), marketing accepts it into the
 // backlog, the producer plans it into an episode, marketing publishes that episode, and the
 // viewer's "it is live" mail arrives. The server runs its mail worker, as `npm start` does.
-import { describe, it, expect, beforeEach, afterEach } from 'vitest';
+import { describe, it, expect } from 'vitest';
 import { openBrowser, signIn, audit, visit, type BrowserSession } from '../helpers/browser';
 import { waitForMails, uniqueAddress } from '../helpers/mailbox';
-import { freshApp, ternId, type FreshApp } from '../helpers/fresh-db';
+import { freshAppPerTest, ternId } from '../helpers/fresh-db';
 import { outcomeOf } from '../helpers/outcome';
 
-// The story runs on a database of its own, cloned from the template as it starts.
-let app: FreshApp | undefined;
-beforeEach(async () => {
-  app = await freshApp({ MAIL_WORKER: '1', MAIL_POLL_MS: '150' });
-});
-afterEach(async () => {
-  await app?.stop();
-  app = undefined;
-});
+// Each test runs on a database of its own, cloned from the template as it starts.
+const app = freshAppPerTest({ MAIL_WORKER: '1', MAIL_POLL_MS: '150' });
 
 /** A call to our API from inside the signed-in page (its cookies, our cross-site header). */
 async function apiFromPage<T>(s: BrowserSession, method: string, url: string, body?: unknown): Promise<{ status: number; body: T }> {
@@ -31,7 +24,7 @@ async function apiFromPage<T>(s: BrowserSession, method: string, url: string, bo
 
 describe('viewer story', () => {
   it('a viewer request becomes an upgrade, goes into an episode, and the viewer hears when it is live', async () => {
-    const db = app!.db;
+    const db = app().db;
     const tern = { id: await ternId(db) };
     const episodeRow = async () =>
       (await db.sql<{ id: number; title: string; state: string; videoUrl: string | null }>(`SELECT id, title, state, video_url AS "videoUrl" FROM episodes WHERE build_id = $1 AND number = 10`, [tern.id]))[0];
@@ -42,7 +35,7 @@ describe('viewer story', () => {
 
     // 1. The viewer, not signed in, asks on the public page.
     // The viewer is on a phone.
-    const viewer = await openBrowser({ server: app!.server, phone: true });
+    const viewer = await openBrowser({ server: app().server, phone: true });
     try {
       await visit(viewer, '/b/project-tern');
       await viewer.page.getByRole('heading', { name: 'Project Tern' }).waitFor();
@@ -83,7 +76,7 @@ describe('viewer story', () => {
     }
 
     // 3. Marketing accepts it into the backlog as a new upgrade.
-    const marketing = await openBrowser({ server: app!.server });
+    const marketing = await openBrowser({ server: app().server });
     try {
       await signIn(marketing, 'marketing');
       await visit(marketing, `/builds/${tern.id}/viewer-requests`);
@@ -110,7 +103,7 @@ describe('viewer story', () => {
     expect(upgrade).toMatchObject({ area: 'rear', episodeId: null });
 
     // 4. The producer plans it into an episode (through the API, signed in in the browser).
-    const producer = await openBrowser({ server: app!.server });
+    const producer = await openBrowser({ server: app().server });
     try {
       await signIn(producer, 'producer');
       const r = await apiFromPage<{ upgrade: { episodeId: number } }>(producer, 'PATCH', `/api/builds/${tern.id}/upgrades/${upgrade.id}`, { episodeId: episode.id, version: upgrade.version });
@@ -125,7 +118,7 @@ describe('viewer story', () => {
     await db.sql(`UPDATE upgrades SET install_state = 'installed', install_segment = 'shot', demo_segment = 'shot' WHERE episode_id = $1`, [episode.id]);
 
     // 5. Marketing publishes that episode on the Publish screen.
-    const publisher = await openBrowser({ server: app!.server });
+    const publisher = await openBrowser({ server: app().server });
     try {
       await signIn(publisher, 'marketing');
       await visit(publisher, `/builds/${tern.id}/publish?episode=${episode.id}`);

@@ -1,7 +1,7 @@
 // A database of a browser test's own: each journey clones the migrated, demo-seeded template into
 // a new database and starts the app server on it, so a journey never sees rows another journey (or
 // an earlier run of itself) wrote. Builds on the harness of tests/helpers/browser.ts.
-import { inject } from 'vitest';
+import { inject, beforeEach, afterEach } from 'vitest';
 import pg from 'pg';
 import { randomBytes } from 'node:crypto';
 import { startAppServer, type AppServer } from './browser';
@@ -78,6 +78,25 @@ export async function freshApp(env: Record<string, string> = {}): Promise<FreshA
       await server.stop();
       await db.drop();
     },
+  };
+}
+
+/**
+ * Gives every test of the file calling it a fresh app (database and server): started before each
+ * test, stopped and dropped after it. Returns the current test's app.
+ */
+export function freshAppPerTest(env: Record<string, string> = {}): () => FreshApp {
+  let app: FreshApp | undefined;
+  beforeEach(async () => {
+    app = await freshApp(env);
+  });
+  afterEach(async () => {
+    await app?.stop();
+    app = undefined;
+  });
+  return () => {
+    if (!app) throw new Error('freshAppPerTest: no app outside a test');
+    return app;
   };
 }
 

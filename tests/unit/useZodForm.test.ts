@@ -40,12 +40,18 @@ function expenseForm(send: (data: CreateExpenseInput) => Promise<{ id: number }>
   return { wrapper: mount(Form), sent, saved };
 }
 
+/** Types a description and an amount, then submits. */
+async function fillAndSubmit(wrapper: ReturnType<typeof mount>, description: string, amount: string) {
+  await wrapper.find('#d').setValue(description);
+  await wrapper.find('#a').setValue(amount);
+  await wrapper.find('form').trigger('submit');
+  await flushPromises();
+}
+
 describe('useZodForm', () => {
   it('refuses a body the shared schema refuses, names the field, and sends nothing', async () => {
     const { wrapper, sent } = expenseForm(async () => ({ id: 1 }));
-    await wrapper.find('#a').setValue('-5');
-    await wrapper.find('form').trigger('submit');
-    await flushPromises();
+    await fillAndSubmit(wrapper, '', '-5');
     expect(sent).toEqual([]);
     expect(wrapper.find('[data-test="err-amountCents"]').text()).toBe('cannot be negative');
     expect(wrapper.find('[data-test="err-description"]').exists()).toBe(true);
@@ -56,10 +62,7 @@ describe('useZodForm', () => {
     await wrapper.find('form').trigger('submit');
     await flushPromises();
     expect(wrapper.find('[data-test="err-description"]').exists()).toBe(true);
-    await wrapper.find('#d').setValue('  Trim clips  ');
-    await wrapper.find('#a').setValue('18.40');
-    await wrapper.find('form').trigger('submit');
-    await flushPromises();
+    await fillAndSubmit(wrapper, '  Trim clips  ', '18.40');
     // The schema trims text; 18.40 dollars are 1840 cents.
     expect(sent).toEqual([{ description: 'Trim clips', amountCents: 1840, spentOn: '2027-02-01' }]);
     expect(saved).toEqual([42]);
@@ -70,10 +73,7 @@ describe('useZodForm', () => {
     const { wrapper, saved } = expenseForm(async () => {
       throw new ApiError(400, 'bad_request', 'Check these fields: amountCents.', [{ path: 'amountCents', message: 'is more than the budget allows' }]);
     });
-    await wrapper.find('#d').setValue('Wheels');
-    await wrapper.find('#a').setValue('9000');
-    await wrapper.find('form').trigger('submit');
-    await flushPromises();
+    await fillAndSubmit(wrapper, 'Wheels', '9000');
     expect(saved).toEqual([]);
     expect(wrapper.find('[data-test="err-amountCents"]').text()).toBe('is more than the budget allows');
     expect(wrapper.find('[role="alert"]').exists()).toBe(false);
@@ -83,19 +83,13 @@ describe('useZodForm', () => {
     const refused = expenseForm(async () => {
       throw new ApiError(409, 'stale', 'Someone else changed this first.');
     });
-    await refused.wrapper.find('#d').setValue('Wheels');
-    await refused.wrapper.find('#a').setValue('10');
-    await refused.wrapper.find('form').trigger('submit');
-    await flushPromises();
+    await fillAndSubmit(refused.wrapper, 'Wheels', '10');
     expect(refused.wrapper.find('[role="alert"]').text()).toBe('Someone else changed this first.');
 
     const offline = expenseForm(async () => {
       throw new TypeError('Failed to fetch');
     });
-    await offline.wrapper.find('#d').setValue('Wheels');
-    await offline.wrapper.find('#a').setValue('10');
-    await offline.wrapper.find('form').trigger('submit');
-    await flushPromises();
+    await fillAndSubmit(offline.wrapper, 'Wheels', '10');
     expect(offline.wrapper.find('[role="alert"]').text()).toBe('That did not go through. Try again in a moment.');
     expect(offline.wrapper.find('button').attributes('disabled')).toBeUndefined();
   });
