@@ -34,7 +34,7 @@ export function authRouter() {
       next(new AppError(429, 'too_many_attempts', 'Too many sign-in attempts. Wait a few minutes and try again.')),
   });
 
-  const accountLimiter = accountSignInLimiter();
+  const accountLimiter = accountSignInLimiter(pgRateLimitStore('login-account'));
   router.post('/login', addressLimiter, validate(loginSchema), loginLimiter, accountLimiter, async (req, res) => {
     const user = await verifyPassword(req.body.email, req.body.password);
     // One answer for an unknown e-mail and a wrong password.

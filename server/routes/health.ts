@@ -5,6 +5,7 @@ import { Router } from 'express';
 import { sequelize } from '../models';
 import { config } from '../config';
 import { DEMO_EMAILS } from '../db/demoAccounts';
+import { countFailedMails } from '../mail/outbox';
 
 type Check = () => Promise<boolean>;
 const checks = new Map<string, Check>();
@@ -31,17 +32,21 @@ export function markDraining() {
   draining = true;
 }
 
-type Readiness = { ok: boolean; db: boolean; checkedAt: string; checks: Record<string, boolean> };
+/** failedMails: mail that used up its attempts (the owner resends it); counted, not a reason to stop traffic. */
+type Readiness = { ok: boolean; db: boolean; checkedAt: string; checks: Record<string, boolean>; failedMails: number | null };
 const REUSE_MS = 1000;
 let last: { at: number; result: Promise<Readiness> } | null = null;
 
 async function runChecks(): Promise<Readiness> {
   const ms = config().READY_CHECK_TIMEOUT_MS;
   const names = ['db', ...checks.keys()];
-  const results = await Promise.all([safe(async () => (await sequelize.query('SELECT 1')) !== null, ms), ...[...checks.values()].map((c) => safe(c, ms))]);
+  const [results, failedMails] = await Promise.all([
+    Promise.all([safe(async () => (await sequelize.query('SELECT 1')) !== null, ms), ...[...checks.values()].map((c) => safe(c, ms))]),
+    countFailedMails().catch(() => null),
+  ]);
   const each: Record<string, boolean> = {};
   names.forEach((n, i) => (each[n] = results[i]));
-  return { ok: results.every(Boolean), db: results[0], checkedAt: new Date().toISOString(), checks: each };
+  return { ok: results.every(Boolean), db: results[0], checkedAt: new Date().toISOString(), checks: each, failedMails };
 }
 
 /** The checks' result, computed at most once a second however many callers ask. */

@@ -110,6 +110,10 @@ describe('failed mails', () => {
     // Port 9 on loopback: nothing listens, the connection is refused.
     expect(await processDueMail({ transport: fakeTransport(9) })).toMatchObject({ failed: 1 });
     expect(await countFailedMails()).toBe(failedBefore + 1);
+    // The ready check counts it (its answer is reused for about a second, so ask after that).
+    await new Promise((r) => setTimeout(r, 1100));
+    const ready = await anonymous().get('/api/health/ready');
+    expect(ready.body.failedMails).toBe(failedBefore + 1);
 
     const owner = await signInAs('owner');
     const list = await owner.get('/api/mail/failed');

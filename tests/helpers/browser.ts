@@ -44,7 +44,8 @@ export async function startAppServer(extraEnv: Record<string, string> = {}): Pro
   child.stdout!.on('data', (c) => (out += c));
   child.stderr!.on('data', (c) => (out += c));
   await new Promise<void>((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error(`server did not start:\n${out}`)), 30_000);
+    // Generous: loading the server's sources takes tens of seconds on a busy 2-core machine; a slow start is not a failure.
+    const timer = setTimeout(() => reject(new Error(`server did not start:\n${out}`)), 150_000);
     child.stdout!.on('data', () => out.includes('server listening') && (clearTimeout(timer), resolve()));
     child.once('exit', (code) => (clearTimeout(timer), reject(new Error(`server exited ${code}:\n${out}`))));
   });
