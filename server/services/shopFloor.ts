@@ -7,13 +7,13 @@ import { notFound } from '../errors';
 import { forViewer } from './visibility';
 import { toRecord, upgradeIdsByEpisode } from './episodes';
 import { cautionsFor } from '../../shared/safety';
+import { todayIn } from '../../shared/dates';
 import { toPartRecord, toUpgradeRecord, type Person } from './backlogRecords';
 import type { EpisodeRecord, PartRecord, UpgradeRecord } from '../../shared/domain';
 
 /** States an installer works in: about to be shot, or shot with pick-up work left. */
 const WORKING_STATES = ['scheduled', 'shot', 'in_edit'] as const;
 
-const today = () => new Date().toISOString().slice(0, 10);
 const round2 = (h: number) => Math.round(h * 100) / 100;
 
 /**
@@ -33,7 +33,7 @@ async function pickEpisode(buildId: number, episodeId?: number) {
 }
 
 /** Hours per upgrade (this person's and everyone's) and today's totals, from labour entries. */
-async function hoursOf(buildId: number, ids: number[], userId: number) {
+async function hoursOf(buildId: number, ids: number[], userId: number, zone: string) {
   const rows = ids.length
     ? await sequelize.query<{ upgrade_id: number; mine: number; everyone: number }>(
         `SELECT upgrade_id, COALESCE(SUM(hours) FILTER (WHERE user_id = :u), 0)::float AS mine, SUM(hours)::float AS everyone
@@ -41,7 +41,8 @@ async function hoursOf(buildId: number, ids: number[], userId: number) {
         { replacements: { b: buildId, u: userId, ids }, type: QueryTypes.SELECT },
       )
     : [];
-  const day = today();
+  // Today on the shop's own clock (the build's time zone).
+  const day = todayIn(zone);
   const [t] = await sequelize.query<{ mine: number; everyone: number }>(
     `SELECT COALESCE(SUM(hours) FILTER (WHERE user_id = :u), 0)::float AS mine, COALESCE(SUM(hours), 0)::float AS everyone
        FROM labour_entries WHERE build_id = :b AND worked_on = :day`,
@@ -57,7 +58,7 @@ async function items(build: Build, viewer: Person, ids: number[]) {
     Part.findAll({ where: { buildId: build.id, upgradeId: { [Op.in]: ids } }, order: [['id', 'ASC']] }),
     UpgradePrerequisite.findAll({ where: { buildId: build.id, upgradeId: { [Op.in]: ids } } }),
     Activity.findAll({ where: { buildId: build.id, entity: 'upgrade', entityId: { [Op.in]: ids }, action: 'caution_read', userId: viewer.id }, attributes: ['entityId'] }),
-    hoursOf(build.id, ids, viewer.id),
+    hoursOf(build.id, ids, viewer.id, build.timeZone),
   ]);
   const prereqIds = [...new Set(edges.map((e) => e.prerequisiteId))];
   const prereqs = prereqIds.length

@@ -5,7 +5,9 @@ import { sequelize, Build } from '../../server/models';
 
 let buildId: number;
 let base: string;
-const todayIso = () => new Date().toISOString().slice(0, 10);
+// "Today" in the demo build's own zone (America/Denver), read with the runtime's Intl, not our date module:
+// between midnight UTC and midnight in Denver the two calendars differ by a day.
+const todayIso = () => new Intl.DateTimeFormat('en-CA', { timeZone: 'America/Denver', year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date());
 const later = (a: string, b: string) => (a > b ? a : b);
 
 beforeAll(async () => {

@@ -176,7 +176,8 @@ describe('hours on the shop floor', () => {
   it('each upgrade shows hours logged by me and by everyone, and today has a total', async () => {
     const installer = await signInAs('installer');
     const wheel = await byTitle('Heated steering wheel');
-    const today = new Date().toISOString().slice(0, 10);
+    // Today on the demo shop's clock (America/Denver), read with the runtime's Intl.
+    const today = new Intl.DateTimeFormat('en-CA', { timeZone: 'America/Denver', year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date());
     await installer.post(`/api/builds/${buildId}/labour`).send({ upgradeId: wheel.id, hours: 1.25, kind: 'install', workedOn: today });
     await (await signInAs('producer')).post(`/api/builds/${buildId}/labour`).send({ upgradeId: wheel.id, hours: 0.5, kind: 'filming', workedOn: today });
     const body = (await installer.get(base)).body;
