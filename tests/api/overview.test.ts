@@ -288,8 +288,10 @@ describe('one round trip, whatever the size of the build', () => {
     await countFor(warmUp); // the first request also opens the cache's listening connection
     const a = await countFor(small);
     const c = await countFor(big);
-    expect(c).toBe(a);
-    expect(a).toBeLessThanOrEqual(3); // the signed-in person, the build, the overview's one query
+    // At most: the signed-in person (unless the 2-second person cache still holds them), the build,
+    // the overview's one query — for 1 upgrade and for 40 alike (no query per upgrade).
+    expect(a).toBeLessThanOrEqual(3);
+    expect(c).toBeLessThanOrEqual(3);
     const before = queryCounter.count;
     await buildOverview(big);
     expect(queryCounter.count - before).toBe(1);
