@@ -43,7 +43,11 @@ export function bayForecast(tasks: readonly ForecastTask[], shopHoursPerWeek: nu
   const known = new Set(tasks.map((t) => t.id));
   const seen = new Set<number>();
   const list: ForecastTask[] = [];
-  for (const t of tasks) if (!seen.has(t.id)) (seen.add(t.id), list.push(t));
+  for (const t of tasks) {
+    if (seen.has(t.id)) continue;
+    seen.add(t.id);
+    list.push(t);
+  }
   const daysOf = (h: number) => (Number.isFinite(h) && h > 0 ? (h * 7) / shopHoursPerWeek : 0);
   const cpm = criticalPath(
     list.map((t) => ({

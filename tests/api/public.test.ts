@@ -59,7 +59,11 @@ describe('GET /api/public/builds/:slug', () => {
     const keys = new Set<string>();
     const walk = (v: unknown) => {
       if (Array.isArray(v)) v.forEach(walk);
-      else if (v && typeof v === 'object') for (const [k, x] of Object.entries(v)) (keys.add(k), walk(x));
+      else if (v && typeof v === 'object')
+        for (const [k, x] of Object.entries(v)) {
+          keys.add(k);
+          walk(x);
+        }
     };
     walk(res.body);
     const forbidden = [...keys].filter(

@@ -101,7 +101,7 @@ export class Client {
     const set = res.headers.getSetCookie().find((c) => c.startsWith('bayslate.sid='));
     if (set) this.cookie = set.split(';')[0];
     const text = await res.text();
-    let json: any = null; // eslint-disable-line @typescript-eslint/no-explicit-any
+    let json: any = null;
     try {
       json = JSON.parse(text);
     } catch {
