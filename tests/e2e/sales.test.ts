@@ -47,6 +47,8 @@ describe('sales in the browser', () => {
       await s.page.getByRole('radio', { name: 'Campaign and content columns' }).check({ force: true });
       await s.page.locator('[data-test="map-date"]').click();
       await s.page.locator('.n-base-select-option', { hasText: 'Placed' }).click();
+      // The pick closes the list: audit the mapping step once its menu has gone, not mid-fade.
+      await s.page.locator('.n-base-select-menu').waitFor({ state: 'hidden' });
       await audit(s, 'sales, mapping');
       await s.page.locator('[data-test="sales-check"]').click();
       const report = s.page.locator('[data-test="sales-report"]');
