@@ -10,7 +10,10 @@
 //   Corporate Treasurers, glossary "Payback period"). The build is paid for over time, so we compare
 //   cumulative margin with cumulative net cost day by day (see paybackOf).
 import { rollUpCosts, type CostInput } from './costs';
-import { parseUrl, type WebUrl } from './webUrl';
+import { addDays } from './dates';
+import { episodeNumberOf } from './salesTags';
+
+export { episodeNumberOf, tagsOfUrl } from './salesTags';
 
 export type Attribution = 'direct' | 'assisted' | 'unattributed';
 
@@ -64,53 +67,6 @@ export const isRefund = (quantity: number, revenueCents: number) => quantity < 0
 
 /** Matching is on the trimmed, upper-cased code: "ht-fog-5120 " sells part HT-FOG-5120. */
 export const skuKey = (s: string) => s.trim().toUpperCase();
-
-/** 'episode-12' → 12 (the utm_content that shared/showNotes.ts writes); anything else → null. */
-export function episodeNumberOf(content: string | null | undefined): number | null {
-  const m = /^episode-(\d{1,6})$/i.exec((content ?? '').trim());
-  return m ? Number(m[1]) : null;
-}
-
-/** The query of an address as a map (first value of each name wins), decoded as forms encode it. */
-function queryParams(search: string): Map<string, string> {
-  const out = new Map<string, string>();
-  for (const pair of search.replace(/^\?/, '').split('&')) {
-    if (!pair) continue;
-    const eq = pair.indexOf('=');
-    const decode = (x: string) => {
-      try {
-        return decodeURIComponent(x.replace(/\+/g, ' '));
-      } catch {
-        return x;
-      }
-    };
-    const name = decode(eq < 0 ? pair : pair.slice(0, eq));
-    if (!out.has(name)) out.set(name, decode(eq < 0 ? '' : pair.slice(eq + 1)));
-  }
-  return out;
-}
-
-/** utm_campaign and utm_content of a landing page address (absolute or a path); blank when absent. */
-export function tagsOfUrl(url: string | null | undefined): { campaign: string | null; content: string | null } {
-  const t = (url ?? '').trim();
-  if (!t) return { campaign: null, content: null };
-  let u: WebUrl;
-  try {
-    u = parseUrl(/^[a-z][a-z0-9+.-]*:/i.test(t) ? t : `https://store.invalid${t.startsWith('/') ? '' : '/'}${t}`);
-  } catch {
-    return { campaign: null, content: null };
-  }
-  const params = queryParams(u.search);
-  const v = (k: string) => params.get(k)?.trim() || null;
-  return { campaign: v('utm_campaign'), content: v('utm_content') };
-}
-
-/** Adds whole days to YYYY-MM-DD. */
-export function addDays(date: string, days: number): string {
-  const d = new Date(`${date}T00:00:00Z`);
-  d.setUTCDate(d.getUTCDate() + days);
-  return d.toISOString().slice(0, 10);
-}
 
 export interface AttributionInput {
   /** The tag this build's links carry as utm_campaign (compared without regard to case). */

@@ -1,5 +1,5 @@
 // The local fake S3 and SMTP for `npm start`, each in a process of its own on loopback
-// (server/dev/fakeService.ts). A fake that stops is started again on the same port, and the
+// (scripts/fake-service.ts). A fake that stops is started again on the same port, and the
 // start says so; the server never goes down with it.
 import { spawn } from 'node:child_process';
 import { freePort } from './pg-cluster.mjs';
@@ -18,7 +18,7 @@ export async function keepFakeRunning(root, kind, env, port = 0) {
 
   const launch = () =>
     new Promise((resolve, reject) => {
-      const c = spawn(process.execPath, ['--import', 'tsx', 'server/dev/fakeService.ts', kind], {
+      const c = spawn(process.execPath, ['--import', 'tsx', 'scripts/fake-service.ts', kind], {
         cwd: root,
         env: { ...env, [portVar]: String(port) },
         stdio: ['ignore', 'pipe', 'inherit'],

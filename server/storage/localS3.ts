@@ -1,5 +1,5 @@
 // The local fake S3 (s3rver) on loopback: `npm start` runs it in a process of its own
-// (server/dev/fakeService.ts); the tests and scripts start it with startFakeS3. Never in the server.
+// (scripts/fake-service.ts); the tests and scripts start it with startFakeS3. Never in the server.
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import S3rver from 's3rver';

@@ -1,12 +1,12 @@
 // Runs one local fake in a process of its own, for `npm start` (scripts/start.mjs):
-//   node --import tsx server/dev/fakeService.ts s3   (LOCAL_S3_DIR, LOCAL_S3_PORT, S3_BUCKET)
-//   node --import tsx server/dev/fakeService.ts smtp (LOCAL_MAIL_DIR, LOCAL_SMTP_PORT)
+//   node --import tsx scripts/fake-service.ts s3   (LOCAL_S3_DIR, LOCAL_S3_PORT, S3_BUCKET)
+//   node --import tsx scripts/fake-service.ts smtp (LOCAL_MAIL_DIR, LOCAL_SMTP_PORT)
 // It listens on 127.0.0.1 only, prints "fake <kind> ready on <port>" once it listens, and exits on
 // SIGTERM. A crash here never reaches the server: the local start restarts this process.
 // Development only: nothing in the server imports this file.
 import path from 'node:path';
-import { startFakeS3 } from '../storage/localS3';
-import { startFakeSmtp } from '../mail/fakeSmtp';
+import { startFakeS3 } from '../server/storage/localS3';
+import { startFakeSmtp } from '../server/mail/fakeSmtp';
 
 const kind = process.argv[2];
 const env = process.env;
