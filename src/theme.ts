@@ -122,7 +122,11 @@ export interface ChartColors {
   actual: string;
   forecast: string;
   today: string;
+  /** Dark, middle and light fills that stay apart in greyscale. */
   bars: [string, string, string];
+  /** Points of a scatter, and a line that means "good" (margin earned). */
+  point: string;
+  good: string;
 }
 export const chartFont = "'Poppins', system-ui, sans-serif";
 export function chartColors(dark: boolean): ChartColors {
@@ -140,6 +144,8 @@ export function chartColors(dark: boolean): ChartColors {
         forecast: '#e38a55',
         today: palette.steelDark,
         bars: [palette.chalk200, palette.steelDark, palette.graphite500],
+        point: palette.steelDark,
+        good: '#8fc497',
       }
     : {
         text: palette.graphite900,
@@ -154,5 +160,158 @@ export function chartColors(dark: boolean): ChartColors {
         forecast: palette.signal,
         today: palette.steel,
         bars: [palette.graphite800, palette.steelDark, palette.chalk200],
+        point: palette.steel,
+        good: palette.moss,
       };
+}
+
+/**
+ * The theme as CSS custom properties (`--bs-*`), set on the document root by App.vue for the current
+ * mode, so every component's <style> (and teleported drawers and dialogs) colours itself from them.
+ * Components never write a colour code of their own (tests/unit/noHexColours.test.ts checks).
+ * Every text/background pair here keeps WCAG AA contrast (4.5:1) in its mode.
+ */
+export interface ThemeVars {
+  /** Page background, panels (cards, tables), quiet fills (table heads, chips). */
+  body: string;
+  panel: string;
+  head: string;
+  /** Text: normal, strongest, secondary (AA on body, panel and head). */
+  text: string;
+  strong: string;
+  muted: string;
+  /** Borders: hairlines between panels, and edges that must be seen (inputs, drop zones: 3:1). */
+  border: string;
+  edge: string;
+  /** Primary action fill and the text on it; a link-coloured text of the same hue. */
+  primary: string;
+  onPrimary: string;
+  primaryText: string;
+  /** Attention (overdue, caution): text/edge colour, a soft fill, and text on that fill. */
+  signal: string;
+  signalSoft: string;
+  onSignalSoft: string;
+  /** Done / good: text/edge, soft fill, text on the fill. */
+  good: string;
+  goodSoft: string;
+  onGoodSoft: string;
+  /** Problems and refusals: text/edge, soft fill, text on the fill. */
+  danger: string;
+  dangerSoft: string;
+  onDangerSoft: string;
+  /** In progress. */
+  progress: string;
+  /** The navigation rail (graphite in both modes): fill, text, quiet text, hover, the current place. */
+  rail: string;
+  onRail: string;
+  railMuted: string;
+  railHover: string;
+  railActive: string;
+  /** The phone's top bar. */
+  bar: string;
+  /** Keyboard focus ring. */
+  focus: string;
+  /** A toast or notice drawn against the page's grain (dark on light, light on dark) and its text. */
+  inverse: string;
+  onInverse: string;
+  /** The dark stage behind photos and videos (both modes) and the text on it. */
+  stage: string;
+  onStage: string;
+  /** Drop shadows. */
+  shadow: string;
+  /** Printed paper: white in both modes. */
+  paper: string;
+  /** The Bayslate mark: tile, ink and accent (the same in both modes). */
+  markTile: string;
+  markInk: string;
+  markAccent: string;
+}
+
+export function themeVars(dark: boolean): ThemeVars {
+  return dark
+    ? {
+        body: palette.graphite900,
+        panel: palette.graphite800,
+        head: palette.graphite700,
+        text: palette.chalk100,
+        strong: palette.chalk50,
+        muted: '#c9c4b8',
+        border: palette.graphite700,
+        edge: '#8a8f98',
+        primary: '#8fb0cc',
+        onPrimary: '#15171a',
+        primaryText: '#a9c3da',
+        signal: '#f0a06e',
+        signalSoft: '#3a2a20',
+        onSignalSoft: palette.signalSoft,
+        good: '#8fc497',
+        goodSoft: '#22362a',
+        onGoodSoft: '#cfe6d3',
+        danger: '#f2a39b',
+        dangerSoft: '#3d2220',
+        onDangerSoft: '#f6d5d1',
+        progress: '#e0b65a',
+        rail: palette.graphite800,
+        onRail: palette.chalk100,
+        railMuted: '#c9c4b8',
+        railHover: palette.graphite700,
+        railActive: '#3b3f46',
+        bar: palette.graphite800,
+        focus: '#e8772e',
+        inverse: palette.chalk100,
+        onInverse: palette.graphite900,
+        stage: palette.graphite700,
+        onStage: palette.chalk50,
+        shadow: 'rgba(0, 0, 0, 0.3)',
+        paper: '#ffffff',
+        markTile: palette.graphite800,
+        markInk: palette.chalk100,
+        markAccent: '#e8772e',
+      }
+    : {
+        body: palette.chalk50,
+        panel: '#ffffff',
+        head: palette.chalk100,
+        text: palette.graphite900,
+        strong: palette.graphite900,
+        muted: palette.graphite500,
+        border: palette.chalk200,
+        edge: palette.graphite500,
+        primary: palette.steel,
+        onPrimary: '#ffffff',
+        primaryText: '#30485c',
+        signal: '#9c3f0f', // the accent, a step darker: text on its soft fill too
+        signalSoft: palette.signalSoft,
+        onSignalSoft: palette.graphite900,
+        good: '#2f5234',
+        goodSoft: '#e3efe4',
+        onGoodSoft: '#2f5234',
+        danger: '#8f1f17',
+        dangerSoft: '#fbeae8',
+        onDangerSoft: '#8c1d16',
+        progress: '#6e500f',
+        rail: palette.graphite800,
+        onRail: palette.chalk100,
+        railMuted: '#c9c4b8',
+        railHover: palette.graphite700,
+        railActive: '#3b3f46',
+        bar: palette.chalk100,
+        focus: '#c8561c',
+        inverse: palette.graphite800,
+        onInverse: palette.chalk100,
+        stage: palette.graphite700,
+        onStage: palette.chalk50,
+        shadow: 'rgba(0, 0, 0, 0.3)',
+        paper: '#ffffff',
+        markTile: palette.graphite800,
+        markInk: palette.chalk100,
+        markAccent: '#e8772e',
+      };
+}
+
+/** `themeVars` as CSS custom properties: `{ '--bs-on-primary': '#fff', … }`. */
+export function themeCssVars(dark: boolean): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const [k, v] of Object.entries(themeVars(dark))) out[`--bs-${k.replace(/[A-Z]/g, (c) => `-${c.toLowerCase()}`)}`] = v;
+  return out;
 }
