@@ -16,6 +16,8 @@ import { tokenHash } from '../../server/services/viewerPrivacy';
 import type { ColourMode } from '../helpers/theme';
 
 const screens = process.env.THEMES_SCREENS;
+// THEMES_ALL_SCREENS=<folder>: a screenshot of every screen in each mode, for a look by eye.
+const allScreens = process.env.THEMES_ALL_SCREENS;
 
 describe('every screen in both themes', () => {
   it('axe finds no serious violation on any screen, drawer, dialog or picker, in light and in dark mode', async () => {
@@ -45,6 +47,7 @@ describe('every screen in both themes', () => {
           failures.push((e as Error).message);
         }
         (modes[label] ??= []).push(m);
+        if (allScreens) await page.screenshot({ path: path.join(allScreens, `${label.replace(/\W+/g, '-')}-${m}.png`) });
       };
       /** Switches mode as a person would where the menu rail is on screen, else as a returning visitor. */
       const flip = async (withToggle: boolean) => {
@@ -78,6 +81,8 @@ describe('every screen in both themes', () => {
       await both('public build page', () => page.getByRole('heading', { name: 'Episodes you can watch' }), false);
       await go(`/welcome/${token}`);
       await both('welcome', () => page.getByText('choose the password you will sign in with'), false);
+      await go('/confirm/not-a-real-token');
+      await both('vote link that did not work', () => h1('This link did not work'), false);
       await go('/no-such-page');
       await both('not found', () => h1('Nothing here'), false);
 
@@ -96,14 +101,14 @@ describe('every screen in both themes', () => {
         ['overview', `${b}/overview`, () => page.locator('[data-test="figure-net"]')],
         ['build report', `${b}/report`, () => page.getByRole('heading', { name: 'Earned value' })],
         ['backlog', `${b}/backlog`, () => page.locator('[data-test^="open-"]', { hasText: 'Projector LED headlamps' }).first()],
-        ['parts', `${b}/parts`, () => h1('Parts')],
-        ['media', `${b}/media`, () => h1('Media')],
-        ['planner', `${b}/planner`, () => h1('Episode planner')],
+        ['parts', `${b}/parts`, () => page.locator('[data-test^="part-"]').first()],
+        ['media', `${b}/media`, () => page.locator('[data-test="media-thumb"]').first()],
+        ['planner', `${b}/planner`, () => page.locator('[data-test="episode-1"]')],
         ['shop floor', `${b}/shop-floor`, () => page.getByRole('heading', { level: 2, name: /^Episode \d+:/ })],
         ['publish', `${b}/publish`, () => page.locator('[data-test="episode-picker"]')],
-        ['sales', `${b}/sales`, () => h1('Sales')],
-        ['viewer requests', `${b}/viewer-requests`, () => h1('Viewer requests')],
-        ['build settings', `${b}/settings`, () => h1('Build settings')],
+        ['sales', `${b}/sales`, () => page.locator('[data-test="sales-margin"]')],
+        ['viewer requests', `${b}/viewer-requests`, () => page.locator('[data-test="requests-table"] tbody tr').first()],
+        ['build settings', `${b}/settings`, () => page.locator('[data-test="time-zone"]')],
       ];
       for (const [label, p, ready] of signedIn) {
         await go(p);
