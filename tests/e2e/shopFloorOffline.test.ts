@@ -64,8 +64,11 @@ describe('shop floor offline', () => {
       // The Wi-Fi drops; a reload opens from the service worker's shell and the phone's copy.
       await context.setOffline(true);
       await page.reload();
-      await page.locator('[data-test="offline-note"]', { hasText: 'Showing what this phone kept' }).waitFor();
+      await page.locator('[data-test="offline-note"]', { hasText: "Offline: this phone's copy from" }).waitFor();
       await page.getByRole('heading', { name: 'Episode 7: Ready to tow' }).waitFor();
+      // The build's own "cannot be reached" (its header could not load) gives way to the note above.
+      await page.locator('.load-error').waitFor({ state: 'attached' });
+      expect(await page.locator('.load-error').isVisible()).toBe(false);
 
       // A double tap on Start, offline: one change waits, the job is started and nothing more.
       const c = card(s, 'Wireless charging pad');
@@ -115,6 +118,13 @@ describe('shop floor offline', () => {
       await waitingCount(s, 6);
       await audit(s, 'shop floor offline, six changes waiting (dark)');
       if (screens) await screenshot(s, 'offline-dark.png');
+
+      // Another screen, offline: the shell opens from the service worker and says the screen needs the network.
+      await page.goto(`${server.url}/builds/${buildId}/backlog`);
+      await page.locator('[data-test="app-offline"]', { hasText: 'This screen needs the network' }).waitFor();
+      await audit(s, 'backlog offline (dark)');
+      await page.goto(`${server.url}/builds/${buildId}/shop-floor`);
+      await waitingCount(s, 6);
 
       // Meanwhile the producer changes the trailer wiring: the installer's queued mark is now stale.
       const producer = await request.newContext({ baseURL: server.url, extraHTTPHeaders: { 'X-Requested-With': 'Bayslate', Accept: 'application/json' } });
