@@ -8,10 +8,12 @@ import App from './App.vue';
 import { router } from './router';
 import { setUnauthorizedHandler } from './api/http';
 import { useSessionStore } from './stores/session';
+import { registerOfflineApp } from './offline/registerApp';
 
 const app = createApp(App);
 app.use(createPinia());
 app.use(router);
+registerOfflineApp(router);
 setUnauthorizedHandler(() => {
   const session = useSessionStore();
   if (session.user) {

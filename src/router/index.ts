@@ -81,7 +81,8 @@ async function currentBuildId(): Promise<string | null> {
     const last = localStorage.getItem(LAST_BUILD);
     return String(builds.find((b) => String(b.id) === last)?.id ?? builds[0]?.id ?? '') || null;
   } catch {
-    return null;
+    // Offline: the build opened last (its shop floor works from what the phone kept).
+    return localStorage.getItem(LAST_BUILD);
   }
 }
 router.afterEach((to) => {

@@ -5,6 +5,8 @@ import { authApi } from '@/api/auth';
 import type { SessionUser } from '@shared/schemas/auth';
 import type { Role } from '@shared/domain';
 import { canSeeMoney, canSeeRetail } from '@shared/domain';
+import { ApiError } from '@/api/http';
+import { forgetUser, rememberedUser } from '@/offline/session';
 
 export const useSessionStore = defineStore('session', () => {
   const user = ref<SessionUser | null>(null);
@@ -13,8 +15,9 @@ export const useSessionStore = defineStore('session', () => {
   async function refresh() {
     try {
       user.value = (await authApi.me()).user;
-    } catch {
-      user.value = null;
+    } catch (e) {
+      // Offline (no answer at all): the person last seen here, so the shop floor opens; the server still decides.
+      user.value = e instanceof ApiError && e.status === 0 ? rememberedUser() : null;
     }
     checked.value = true;
   }
@@ -27,10 +30,12 @@ export const useSessionStore = defineStore('session', () => {
       await authApi.logout();
     } finally {
       user.value = null;
+      forgetUser();
     }
   }
   function forget() {
     user.value = null;
+    forgetUser();
   }
   /** True when the person holds any of the roles (owners hold every right). */
   function can(...roles: Role[]) {
