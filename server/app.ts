@@ -13,6 +13,7 @@ import { installMail } from './mail';
 import { sharedPool } from './db/pool';
 import { healthProbesRouter } from './routes/health';
 import { catchUpOverviewNotices } from './services/overviewCache';
+import { idempotentChanges } from './middleware/idempotency';
 import { ownHostOnly } from './middleware/host';
 import compression from 'compression';
 import { requestLogger } from './logger';
@@ -61,6 +62,8 @@ export function createApp(): Express {
   // Several instances (deploy): before answering from its overview cache, an instance reads the
   // change notices PostgreSQL already has for it, so a write made through another instance shows at once.
   app.use('/api/builds/:buildId/overview', (_req, _res, next) => void catchUpOverviewNotices().then(() => next(), next));
+  // A change sent again with the same Idempotency-Key happens once (the phone's waiting changes).
+  app.use('/api', idempotentChanges);
   mountRoutes(app);
   app.use('/api', notFoundHandler);
   installMail();
