@@ -4,10 +4,14 @@ import { requireRole } from '../middleware/roles';
 import { buildOf, loadBuild } from '../middleware/build';
 import { cachedOverviewBody, freshOverviewBody, overviewStamp } from '../services/overview';
 import type { Entry } from '../services/overviewCache';
+import { seesMoney } from '../services/visibility';
+import { overviewAnswerWithoutMoney } from '../../shared/contracts/overview';
 
 function send(req: Request, res: Response, entry: Entry, hit: boolean) {
   // Says whether the figures came from the cache, for anyone measuring the route.
   res.set('X-Overview-Cache', hit ? 'hit' : 'miss');
+  // The cached bytes are the money roles' answer; anyone else gets only what the allow-list names.
+  if (!seesMoney(req.user)) return res.json(overviewAnswerWithoutMoney.parse(JSON.parse(entry.body.toString('utf8'))));
   res.set('ETag', entry.etag);
   res.set('Cache-Control', 'private, no-cache');
   res.set('Vary', 'Accept-Encoding');

@@ -131,8 +131,8 @@ export function singleFlight(buildId: number, key: string, compute: () => Promis
 export function store(buildId: number, day: string, zone: string, before: string, value: unknown): Entry {
   const body = Buffer.from(JSON.stringify(value));
   const keep = listening && before.startsWith('1:') && before === stamp(buildId);
-  // Compressing pays off only for a copy that will be sent many times.
-  const entry = { day, zone, body, gzipped: keep && body.length > 1024 ? gzipSync(body, { level: 6 }) : null, etag: `W/"${createHash('sha1').update(body).digest('base64url')}"` };
+  // A copy sent many times is worth compressing harder; one sent once goes out at the fastest level.
+  const entry = { day, zone, body, gzipped: body.length > 1024 ? gzipSync(body, { level: keep ? 6 : 1 }) : null, etag: `W/"${createHash('sha1').update(body).digest('base64url')}"` };
   if (keep) entries.set(buildId, entry);
   return entry;
 }

@@ -31,7 +31,7 @@ export interface OverviewData {
 
 // Arrays instead of objects keep the JSON small and quick to parse; the positions are mapped below.
 // Sums of cents are cast to bigint so no integer overflow can occur inside the database.
-const SQL = `
+export const OVERVIEW_SQL = `
 WITH
   u AS (SELECT id, title, area, episode_id, estimated_hours, value_added_cents, install_state,
                install_segment, demo_segment, installed_on
@@ -67,7 +67,7 @@ SELECT
 type Row = Record<keyof OverviewData, unknown[][]>;
 
 export async function loadOverviewData(buildId: number): Promise<OverviewData> {
-  const [row] = await sequelize.query<Row>(SQL, { bind: [buildId], type: QueryTypes.SELECT });
+  const [row] = await sequelize.query<Row>(OVERVIEW_SQL, { bind: [buildId], type: QueryTypes.SELECT });
   return {
     upgrades: row.upgrades.map(([id, title, area, episodeId, estimatedHours, valueAddedCents, installState, installSegment, demoSegment, installedOn]) => ({
       id: id as number,

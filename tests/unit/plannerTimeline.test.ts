@@ -43,7 +43,7 @@ describe('the planner timeline’s today marker', () => {
     expect(lastMarker()).toMatchObject({ value: 20_526, label: 'Today 2026-03-14' });
     expect(drawn.at(-1)!.plugins.map((p) => p.id)).toContain('bayslateToday');
     expect(w.get('[data-test="timeline-today"]').text()).toContain('2026-03-14');
-    expect(w.get('canvas').exists()).toBe(true);
+    expect(w.find('canvas').exists()).toBe(true);
   });
 
   it('takes today in the open build’s zone: 23:30 in Denver is still the 14th while UTC is on the 15th', () => {
