@@ -54,6 +54,10 @@ async function main() {
       size = body.length;
     }
     const [plan] = (await sequelize.query(`EXPLAIN (ANALYZE, FORMAT JSON) ${OVERVIEW_SQL}`, { bind: [build.id] })) as [Array<{ 'QUERY PLAN': Array<{ 'Execution Time': number }> }>, unknown];
+    if (process.env.BENCH_PLAN) {
+      const [text] = (await sequelize.query(`EXPLAIN (ANALYZE) ${OVERVIEW_SQL}`, { bind: [build.id] })) as [Array<{ 'QUERY PLAN': string }>, unknown];
+      console.log(text.map((r) => r['QUERY PLAN']).join('\n'));
+    }
     const med = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
     console.log(`answer ${(size / 1024).toFixed(1)} KiB; medians over ${RUNS} runs (ms):`);
     for (const [k, xs] of Object.entries(spans)) console.log(`  ${k.padEnd(10)} ${med(xs).toFixed(2)}`);

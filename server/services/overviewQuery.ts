@@ -30,15 +30,16 @@ export interface OverviewData {
 }
 
 // Arrays instead of objects keep the JSON small and quick to parse; the positions are mapped below.
-// Sums of cents are cast to bigint so no integer overflow can occur inside the database.
+// Sums of cents are cast to bigint so no integer overflow can occur inside the database. Labour
+// comes already summed per upgrade and day (labour_day_totals, kept by triggers: migration 0033).
 export const OVERVIEW_SQL = `
 WITH
   u AS (SELECT id, title, area, episode_id, estimated_hours, value_added_cents, install_state,
                install_segment, demo_segment, installed_on
           FROM upgrades WHERE build_id = $1),
   e AS (SELECT id, number, title, state, shoot_date FROM episodes WHERE build_id = $1),
-  l AS (SELECT upgrade_id, worked_on, sum(hours) AS hours
-          FROM labour_entries WHERE build_id = $1 GROUP BY upgrade_id, worked_on),
+  l AS (SELECT upgrade_id, worked_on, hours::float8 AS hours
+          FROM labour_day_totals WHERE build_id = $1),
   p AS (SELECT upgrade_id, state, ordered_on, received_on, fitted_on,
                sum(quantity::bigint * unit_cost_cents) AS cents
           FROM parts WHERE build_id = $1 AND state <> 'returned'
