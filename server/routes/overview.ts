@@ -2,7 +2,8 @@
 import { Router, type Request, type Response } from 'express';
 import { requireRole } from '../middleware/roles';
 import { buildOf, loadBuild } from '../middleware/build';
-import { cachedOverviewBody, freshOverviewBody, overviewStamp } from '../services/overview';
+import { cachedOverviewBody, freshOverviewBody, overviewStamp, runningOverviewBody } from '../services/overview';
+import { todayIn } from '../../shared/dates';
 import type { Entry } from '../services/overviewCache';
 import { seesMoney } from '../services/visibility';
 import { overviewAnswerWithoutMoney } from '../../shared/contracts/overview';
@@ -31,9 +32,19 @@ export function overviewRouter() {
     requireRole('producer'),
     // A cached overview exists only for a build that exists: deleting the build drops it.
     (req, res, next) => {
-      const hit = cachedOverviewBody(Number(req.params.buildId));
+      const id = Number(req.params.buildId);
+      const hit = cachedOverviewBody(id);
       if (hit) return send(req, res, hit, true);
-      res.locals.overviewStamp = overviewStamp(Number(req.params.buildId));
+      const before = overviewStamp(id);
+      // While a change is being computed for this build, later readers wait for that answer.
+      const running = runningOverviewBody(id, before);
+      if (running)
+        return void running.then((entry) => {
+          if (entry.day === todayIn(entry.zone)) return send(req, res, entry, false);
+          res.locals.overviewStamp = overviewStamp(id); // the day turned meanwhile: compute afresh
+          next();
+        }, next);
+      res.locals.overviewStamp = before;
       next();
     },
     loadBuild,

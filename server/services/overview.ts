@@ -8,7 +8,7 @@ import { DEFAULT_TIME_ZONE, todayIn } from '../../shared/dates';
 import { compactOverview, costRowOf, ratio6, type BuildOverview, type BurndownPoint, type OverviewCostRow } from '../../shared/overview';
 import type { Build } from '../models';
 import { loadOverviewData, type OverviewData } from './overviewQuery';
-import { cached, singleFlight, stamp, store } from './overviewCache';
+import { cached, runningFor, singleFlight, stamp, store } from './overviewCache';
 
 /** The build fields the overview reads. */
 export type OverviewBuild = Pick<Build, 'id' | 'name' | 'slug' | 'year' | 'make' | 'model' | 'trim' | 'budgetCents' | 'labourRateCents' | 'startDate'> &
@@ -46,6 +46,8 @@ export function freshOverviewBody(build: OverviewBuild, before: string) {
 }
 
 export const overviewStamp = stamp;
+/** The answer being computed for this build since the same stamp, if any (see overviewCache.runningFor). */
+export const runningOverviewBody = runningFor;
 
 /** Pure: the overview from the loaded sums. `now` is today's date in the build's zone (YYYY-MM-DD). */
 export function computeOverview(build: OverviewBuild, d: OverviewData, now: string): BuildOverview {

@@ -127,6 +127,17 @@ export function singleFlight(buildId: number, key: string, compute: () => Promis
   return entry;
 }
 
+/**
+ * The computation already running for this build from the same stamp (no change since it started),
+ * or null. A request joining it needs neither the build's row nor a query of its own: the running
+ * computation loaded them after the same last change.
+ */
+export function runningFor(buildId: number, before: string): Promise<Entry> | null {
+  if (!before.startsWith('1:')) return null;
+  const running = inFlight.get(buildId);
+  return running && running.key.startsWith(`${before}|`) ? running.entry : null;
+}
+
 /** Serialises the figures once; keeps them when no change notice came in since `before`. */
 export function store(buildId: number, day: string, zone: string, before: string, value: unknown): Entry {
   const body = Buffer.from(JSON.stringify(value));

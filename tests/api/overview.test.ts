@@ -6,7 +6,7 @@ import { anonymous, signInAs } from '../helpers/api';
 import { Build, Upgrade, Episode, sequelize } from '../../server/models';
 import { queryCounter } from '../../server/db/sequelize';
 import { buildOverview } from '../../server/services/overview';
-import { singleFlight } from '../../server/services/overviewCache';
+import { runningFor, singleFlight } from '../../server/services/overviewCache';
 import { earnedValue, roundHalfUpCents } from '../../shared/index';
 import { expandOverview, type BuildOverview, type OverviewCostRow } from '../../shared/overview';
 import { overviewAnswer, overviewAnswerWithoutMoney } from '../../shared/contracts/overview';
@@ -375,6 +375,13 @@ describe('the cached overview', () => {
     // Without the listening connection nothing is shared: a reader must see its own write.
     await Promise.all([singleFlight(424242, '0:0:0|x', compute), singleFlight(424242, '0:0:0|x', compute)]);
     expect(runs).toBe(4);
+    // A reader arriving while a computation runs joins it only when no change came in since it started.
+    const running = singleFlight(515151, '1:0:3|2026-01-01|UTC', compute);
+    expect(runningFor(515151, '1:0:3')).toBe(running);
+    expect(runningFor(515151, '1:0:4')).toBeNull();
+    expect(runningFor(515151, '0:0:3')).toBeNull();
+    await running;
+    expect(runningFor(515151, '1:0:3')).toBeNull();
   });
 
   it('answers ten concurrent requests after a change with one overview query', async () => {
