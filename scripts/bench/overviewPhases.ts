@@ -30,7 +30,8 @@ async function main() {
     const build = await Build.create({ slug: 'phases', name: 'Phases', year: 2019, make: 'Halvorsen', model: 'Tern', vin: null, mileage: null, budgetCents: 4_500_000_00, labourRateCents: 9_500, campaign: null, summary: null, startDate: '2025-01-02' });
     await generate(build.id, (sql) => sequelize.query(sql));
     await sequelize.query('ANALYZE');
-    const spans: Record<string, number[]> = { sql: [], compute: [], compact: [], stringify: [], gzip1: [], gzip6: [] };
+    const spans: Record<string, number[]> = { sql: [], compute: [], compact: [], stringify: [], gzip1: [], gzip6: [], 'full JSON': [], 'full gzip6': [] };
+    let fullSize = 0;
     let size = 0;
     for (let i = 0; i < RUNS; i++) {
       let t = performance.now();
@@ -52,6 +53,12 @@ async function main() {
       gzipSync(body, { level: 6 });
       lap('gzip6');
       size = body.length;
+      // For comparison: the expanded rows as the answer was sent before it travelled compact.
+      const full = Buffer.from(JSON.stringify(o));
+      lap('full JSON');
+      gzipSync(full, { level: 6 });
+      lap('full gzip6');
+      fullSize = full.length;
     }
     const [plan] = (await sequelize.query(`EXPLAIN (ANALYZE, FORMAT JSON) ${OVERVIEW_SQL}`, { bind: [build.id] })) as [Array<{ 'QUERY PLAN': Array<{ 'Execution Time': number }> }>, unknown];
     if (process.env.BENCH_PLAN) {
@@ -59,7 +66,7 @@ async function main() {
       console.log(text.map((r) => r['QUERY PLAN']).join('\n'));
     }
     const med = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
-    console.log(`answer ${(size / 1024).toFixed(1)} KiB; medians over ${RUNS} runs (ms):`);
+    console.log(`answer ${(size / 1024).toFixed(1)} KiB (expanded rows: ${(fullSize / 1024).toFixed(1)} KiB); medians over ${RUNS} runs (ms):`);
     for (const [k, xs] of Object.entries(spans)) console.log(`  ${k.padEnd(10)} ${med(xs).toFixed(2)}`);
     console.log(`  PostgreSQL execution of the overview query: ${plan[0]['QUERY PLAN'][0]['Execution Time'].toFixed(2)} ms`);
     await sequelize.close();
