@@ -7,8 +7,8 @@ import { COST_RECOGNITION_DESCRIPTIONS, COST_RECOGNITION_LABELS, recogniseCosts,
 import { DEFAULT_TIME_ZONE, todayIn } from '../../shared/dates';
 import { compactOverview, costRowOf, ratio6, type BuildOverview, type BurndownPoint, type OverviewCostRow } from '../../shared/overview';
 import type { Build } from '../models';
-import { loadOverviewData, type OverviewData } from './overviewQuery';
-import { cached, runningFor, singleFlight, stamp, store } from './overviewCache';
+import { loadOverviewData, loadOverviewLabour, type OverviewData } from './overviewQuery';
+import { cached, keepInputs, keptInputs, runningFor, singleFlight, stamp, store } from './overviewCache';
 
 /** The build fields the overview reads. */
 export type OverviewBuild = Pick<Build, 'id' | 'name' | 'slug' | 'year' | 'make' | 'model' | 'trim' | 'budgetCents' | 'labourRateCents' | 'startDate'> &
@@ -42,7 +42,18 @@ export function cachedOverviewBody(buildId: number) {
 export function freshOverviewBody(build: OverviewBuild, before: string) {
   const zone = build.timeZone ?? DEFAULT_TIME_ZONE;
   const now = today(zone);
-  return singleFlight(build.id, `${before}|${now}|${zone}`, async () => store(build.id, now, zone, before, compactOverview(await buildOverview(build, now))));
+  return singleFlight(build.id, `${before}|${now}|${zone}`, async () => store(build.id, now, zone, before, compactOverview(computeOverview(build, await overviewInputs(build.id, before), now))));
+}
+
+/**
+ * The overview's inputs: when only labour changed since they were last read (a logged hour), the
+ * labour sums are read again and everything else is reused; otherwise all is read in one query.
+ */
+async function overviewInputs(buildId: number, before: string): Promise<OverviewData> {
+  const kept = keptInputs<OverviewData>(buildId);
+  const data = kept ? { ...kept, labour: await loadOverviewLabour(buildId) } : await loadOverviewData(buildId);
+  keepInputs(buildId, before, data);
+  return data;
 }
 
 export const overviewStamp = stamp;

@@ -6,6 +6,7 @@ import { anonymous, signInAs } from '../helpers/api';
 import { Build, Upgrade, Episode, sequelize } from '../../server/models';
 import { queryCounter } from '../../server/db/sequelize';
 import { buildOverview } from '../../server/services/overview';
+import { overviewReads } from '../../server/services/overviewQuery';
 import { runningFor, singleFlight } from '../../server/services/overviewCache';
 import { earnedValue, roundHalfUpCents } from '../../shared/index';
 import { expandOverview, type BuildOverview, type OverviewCostRow } from '../../shared/overview';
@@ -417,6 +418,26 @@ describe('a logged hour shows in the very next answer', () => {
       expect(after.totals.labourCents).toBe(n === 1 ? 12_825 : 29_925);
       expect(after.headline.actualCents).toBe(n === 1 ? 12_825 : 29_925);
     }
+  });
+
+  it('after a logged hour re-reads only the labour sums; after any other change, everything', async () => {
+    const b = await makeBuild();
+    const u = await upgrade(b.id, { title: 'Roof rack', area: 'sides', estimatedHours: 2 });
+    const url = `/api/builds/${b.id}/overview`;
+    const read = async () => expandOverview(overviewAnswer.parse((await owner.get(url)).body));
+    await read();
+    await read();
+    const reads = () => ({ ...overviewReads });
+    let before = reads();
+    expect((await owner.post(`/api/builds/${b.id}/labour`).send({ upgradeId: u.id, workedOn: '2025-02-04', hours: 2, personName: 'Bay tech' })).status).toBe(201);
+    // By hand: 2 h × $85.50 = $171.00.
+    expect((await read()).totals).toMatchObject({ labourCents: 17_100, actualHours: 2 });
+    expect(reads()).toEqual({ full: before.full, labour: before.labour + 1 });
+    // A part is not labour: the next answer reads everything again, and shows it.
+    before = reads();
+    await part(b.id, u.id, 1, 4_200);
+    expect((await read()).totals).toMatchObject({ partsCents: 4_200, labourCents: 17_100 });
+    expect(reads().full).toBe(before.full + 1);
   });
 });
 
