@@ -1,6 +1,10 @@
-// The shape of GET /api/builds/:buildId/overview: everything the build overview and the build
-// report draw, in one response. Money in integer cents; a figure that cannot be computed is null.
-import type { Area, EpisodeState, InstallState } from './domain';
+// The build overview as the screens read it: everything the overview and the build report draw.
+// It travels compact (shared/contracts/overview.ts); compactOverview and expandOverview convert, and
+// the derived fields (net cost, value per dollar, hours ratio, burndown dates) are worked out here,
+// once, for both sides. Money in integer cents; a figure that cannot be computed is null.
+import type { Area, EpisodeState } from './domain';
+import type { OverviewAnswer } from './contracts/overview';
+import { addDays, daysBetween } from './dates';
 import type { CostRow } from './costs';
 import type { EarnedValueFigures, EvCreditRule } from './earnedValue';
 import type { CashView, CostRecognition } from './costRecognition';
@@ -15,15 +19,7 @@ export type OverviewCostRow = Omit<CostRow, 'labourCents'> & {
 export interface OverviewUpgradeRow extends OverviewCostRow {
   upgradeId: number;
   title: string;
-  area: Area;
-  episodeId: number | null;
-  installState: InstallState;
   done: boolean;
-  /** Budgeted cost: estimated hours × labour rate + its parts. */
-  budgetedCents: number;
-  /** Estimate to complete: remaining hours × rate + parts not in actual cost + money dated later. */
-  etcCents: number;
-  remainingHours: number;
 }
 
 export interface OverviewAreaRow extends OverviewCostRow {
@@ -123,4 +119,111 @@ export interface BuildOverview {
   unassigned: OverviewCostRow;
   totals: OverviewCostRow;
   burndown: BurndownPoint[];
+}
+
+/** Ratios are sent and shown to six significant digits: more is noise on a screen. */
+export const ratio6 = (x: number | null) => (x === null ? null : Number(x.toPrecision(6)));
+
+type WireCostRow = OverviewAnswer['totals'];
+
+/** A cost row with its derived fields, from the fields that travel. */
+export function costRowOf(r: WireCostRow): OverviewCostRow {
+  const netCents = r.partsCents + (r.labourCents ?? 0) + r.expensesCents - r.recoveredCents;
+  return {
+    partsCents: r.partsCents,
+    labourCents: r.labourCents,
+    expensesCents: r.expensesCents,
+    recoveredCents: r.recoveredCents,
+    expectedRecoveryCents: r.expectedRecoveryCents,
+    netCents,
+    estimatedHours: r.estimatedHours,
+    actualHours: r.actualHours,
+    valueAddedCents: r.valueAddedCents,
+    valuePerDollar: netCents > 0 ? ratio6(r.valueAddedCents / netCents) : null,
+    hoursRatio: r.estimatedHours > 0 ? ratio6(r.actualHours / r.estimatedHours) : null,
+  };
+}
+
+const wireRow = (r: OverviewCostRow): WireCostRow => ({
+  partsCents: r.partsCents,
+  labourCents: r.labourCents,
+  expensesCents: r.expensesCents,
+  recoveredCents: r.recoveredCents,
+  expectedRecoveryCents: r.expectedRecoveryCents,
+  estimatedHours: r.estimatedHours,
+  actualHours: r.actualHours,
+  valueAddedCents: r.valueAddedCents,
+});
+
+
+/** The overview as it travels: columns for the long lists, no derived fields. */
+export function compactOverview(o: BuildOverview): OverviewAnswer {
+  const u = o.upgrades;
+  const from = o.burndown[0]?.date ?? null;
+  return {
+    build: o.build,
+    asOf: o.asOf,
+    timeZone: o.timeZone,
+    labourCosted: o.labourCosted,
+    headline: o.headline,
+    earnedValue: o.earnedValue,
+    upgrades: {
+      upgradeId: u.map((r) => r.upgradeId),
+      title: u.map((r) => r.title),
+      done: u.map((r) => r.done),
+      partsCents: u.map((r) => r.partsCents),
+      labourCents: o.labourCosted ? u.map((r) => r.labourCents ?? 0) : null,
+      expensesCents: u.map((r) => r.expensesCents),
+      recoveredCents: u.map((r) => r.recoveredCents),
+      expectedRecoveryCents: u.map((r) => r.expectedRecoveryCents),
+      estimatedHours: u.map((r) => r.estimatedHours),
+      actualHours: u.map((r) => r.actualHours),
+      valueAddedCents: u.map((r) => r.valueAddedCents),
+    },
+    areas: o.areas.map((a) => ({ ...wireRow(a), area: a.area, label: a.label, upgrades: a.upgrades })),
+    episodes: o.episodes.map((e) => ({ ...wireRow(e), episodeId: e.episodeId, number: e.number, title: e.title, state: e.state, shootDate: e.shootDate, upgrades: e.upgrades })),
+    unassigned: wireRow(o.unassigned),
+    totals: wireRow(o.totals),
+    burndown: {
+      from,
+      day: o.burndown.map((p) => daysBetween(from!, p.date)),
+      planned: o.burndown.map((p) => p.planned),
+      actual: o.burndown.map((p) => p.actual),
+      forecast: o.burndown.map((p) => p.forecast),
+    },
+  };
+}
+
+/** The overview as the screens read it, from the answer that travelled. */
+export function expandOverview(a: OverviewAnswer): BuildOverview {
+  const u = a.upgrades;
+  const from = a.burndown.from ?? '';
+  return {
+    build: a.build,
+    asOf: a.asOf,
+    timeZone: a.timeZone,
+    labourCosted: a.labourCosted,
+    headline: a.headline,
+    earnedValue: a.earnedValue,
+    upgrades: u.upgradeId.map((upgradeId, k) => ({
+      upgradeId,
+      title: u.title[k],
+      done: u.done[k],
+      ...costRowOf({
+        partsCents: u.partsCents[k],
+        labourCents: u.labourCents === null ? null : u.labourCents[k],
+        expensesCents: u.expensesCents[k],
+        recoveredCents: u.recoveredCents[k],
+        expectedRecoveryCents: u.expectedRecoveryCents[k],
+        estimatedHours: u.estimatedHours[k],
+        actualHours: u.actualHours[k],
+        valueAddedCents: u.valueAddedCents[k],
+      }),
+    })),
+    areas: a.areas.map((r) => ({ ...costRowOf(r), area: r.area, label: r.label, upgrades: r.upgrades })),
+    episodes: a.episodes.map((e) => ({ ...costRowOf(e), episodeId: e.episodeId, number: e.number, title: e.title, state: e.state, shootDate: e.shootDate, upgrades: e.upgrades })),
+    unassigned: costRowOf(a.unassigned),
+    totals: costRowOf(a.totals),
+    burndown: a.burndown.day.map((d, k) => ({ date: addDays(from, d), planned: a.burndown.planned[k], actual: a.burndown.actual[k], forecast: a.burndown.forecast[k] })),
+  };
 }

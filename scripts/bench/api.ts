@@ -220,7 +220,7 @@ async function main() {
   const children: ChildProcess[] = [];
   try {
     // Everything below reads its settings from this environment (server/config.ts).
-    Object.assign(process.env, { DATABASE_URL: benchUrl.toString(), NODE_ENV: 'production', BAYSLATE_DEMO: '1', SERVE_CLIENT: '0', MAIL_WORKER: '0', LOG_REQUESTS: '0', DATABASE_POOL_MAX: process.env.DATABASE_POOL_MAX ?? '10' });
+    Object.assign(process.env, { DATABASE_URL: benchUrl.toString(), NODE_ENV: 'production', BAYSLATE_DEMO: '1', SERVE_CLIENT: '0', MAIL_WORKER: '0', LOG_REQUESTS: '0', LOG_LEVEL: 'warn', ALLOWED_HOSTS: '127.0.0.1', DATABASE_POOL_MAX: process.env.DATABASE_POOL_MAX ?? '10' });
     const { migrate } = await import('../../server/db/migrate');
     const { sequelize, Build } = await import('../../server/models');
     await migrate();

@@ -1,14 +1,14 @@
 // The build overview: the database's sums (overviewQuery.ts) run through the shared roll-up and
 // earned-value functions, so the screen, the report and the backlog agree to the cent.
 import { AREA_LABELS, isUpgradeDone } from '../../shared/domain';
-import { rollUpCosts, roundHalfUpCents, type CostRow } from '../../shared/costs';
+import { rollUpCosts, type CostRow } from '../../shared/costs';
 import { earnedValue, earnedValueSeries, EV_CREDIT_RULES, type EvCreditRule } from '../../shared/earnedValue';
 import { COST_RECOGNITION_DESCRIPTIONS, COST_RECOGNITION_LABELS, recogniseCosts, type CostRecognition } from '../../shared/costRecognition';
 import { DEFAULT_TIME_ZONE, todayIn } from '../../shared/dates';
-import type { BuildOverview, BurndownPoint, OverviewCostRow } from '../../shared/overview';
+import { compactOverview, costRowOf, ratio6, type BuildOverview, type BurndownPoint, type OverviewCostRow } from '../../shared/overview';
 import type { Build } from '../models';
-import { loadOverviewData, type OverviewData } from './overviewQuery';
-import { cached, singleFlight, stamp, store } from './overviewCache';
+import { loadOverviewData, loadOverviewLabour, type OverviewData } from './overviewQuery';
+import { cached, keepInputs, keptInputs, runningFor, singleFlight, stamp, store } from './overviewCache';
 
 /** The build fields the overview reads. */
 export type OverviewBuild = Pick<Build, 'id' | 'name' | 'slug' | 'year' | 'make' | 'model' | 'trim' | 'budgetCents' | 'labourRateCents' | 'startDate'> &
@@ -21,17 +21,10 @@ export const OVERVIEW_CREDIT_RULE: EvCreditRule = '0/100';
 const today = (zone?: string | null) => todayIn(zone ?? DEFAULT_TIME_ZONE);
 const latest = (dates: (string | null | undefined)[]) => dates.reduce<string>((a, d) => (d && d > a ? d : a), '');
 
-/** Ratios are sent to six significant digits: more is noise on a screen and only adds bytes. */
-const ratio = (x: number | null) => (x === null ? null : Number(x.toPrecision(6)));
+const ratio = ratio6;
 
-function costRow(r: CostRow, labourCosted: boolean): OverviewCostRow {
-  return {
-    ...r,
-    labourCents: labourCosted ? r.labourCents : null,
-    valuePerDollar: ratio(r.valuePerDollar),
-    hoursRatio: r.estimatedHours > 0 ? ratio(r.actualHours / r.estimatedHours) : null,
-  };
-}
+/** A roll-up row as the screens read it: derived fields worked out as the client works them out. */
+const costRow = (r: CostRow, labourCosted: boolean): OverviewCostRow => costRowOf({ ...r, labourCents: labourCosted ? r.labourCents : null });
 
 export async function buildOverview(build: OverviewBuild, now: string = today(build.timeZone)): Promise<BuildOverview> {
   return computeOverview(build, await loadOverviewData(build.id), now);
@@ -49,10 +42,23 @@ export function cachedOverviewBody(buildId: number) {
 export function freshOverviewBody(build: OverviewBuild, before: string) {
   const zone = build.timeZone ?? DEFAULT_TIME_ZONE;
   const now = today(zone);
-  return singleFlight(build.id, `${before}|${now}|${zone}`, async () => store(build.id, now, zone, before, await buildOverview(build, now)));
+  return singleFlight(build.id, `${before}|${now}|${zone}`, async () => store(build.id, now, zone, before, compactOverview(computeOverview(build, await overviewInputs(build.id, before), now))));
+}
+
+/**
+ * The overview's inputs: when only labour changed since they were last read (a logged hour), the
+ * labour sums are read again and everything else is reused; otherwise all is read in one query.
+ */
+async function overviewInputs(buildId: number, before: string): Promise<OverviewData> {
+  const kept = keptInputs<OverviewData>(buildId);
+  const data = kept ? { ...kept, labour: await loadOverviewLabour(buildId) } : await loadOverviewData(buildId);
+  keepInputs(buildId, before, data);
+  return data;
 }
 
 export const overviewStamp = stamp;
+/** The answer being computed for this build since the same stamp, if any (see overviewCache.runningFor). */
+export const runningOverviewBody = runningFor;
 
 /** Pure: the overview from the loaded sums. `now` is today's date in the build's zone (YYYY-MM-DD). */
 export function computeOverview(build: OverviewBuild, d: OverviewData, now: string): BuildOverview {
@@ -122,8 +128,6 @@ export function computeOverview(build: OverviewBuild, d: OverviewData, now: stri
   const { pv, ev, ac } = series.current;
   const figures = earnedValue({ bac, pv, ev, ac, eac: headlineForecast });
   const rule = EV_CREDIT_RULES.find((r) => r.id === OVERVIEW_CREDIT_RULE)!;
-  const etcByUpgrade = new Map(recognition.forecast.upgrades.map((u) => [u.upgradeId, u]));
-  const budgeted = new Map(d.upgrades.map((u) => [u.id, roundHalfUpCents(u.estimatedHours * rate) + (partsBudget.get(u.id) ?? 0)]));
 
   const totals = rollup.build;
   const upgradeInfo = new Map(d.upgrades.map((u) => [u.id, u]));
@@ -214,18 +218,7 @@ export function computeOverview(build: OverviewBuild, d: OverviewData, now: stri
     },
     upgrades: rollup.upgrades.map((r) => {
       const u = upgradeInfo.get(r.upgradeId)!;
-      return {
-        upgradeId: r.upgradeId,
-        title: u.title,
-        area: u.area,
-        episodeId: u.episodeId,
-        installState: u.installState,
-        done: isUpgradeDone(u),
-        budgetedCents: budgeted.get(r.upgradeId) ?? 0,
-        etcCents: etcByUpgrade.get(r.upgradeId)?.etcCents ?? 0,
-        remainingHours: etcByUpgrade.get(r.upgradeId)?.remainingHours ?? 0,
-        ...costRow(r, labourCosted),
-      };
+      return { upgradeId: r.upgradeId, title: u.title, done: isUpgradeDone(u), ...costRow(r, labourCosted) };
     }),
     areas: rollup.areas.map((a) => ({ ...costRow(a, labourCosted), area: a.area, label: AREA_LABELS[a.area] ?? a.area, upgrades: perArea.get(a.area) ?? 0 })),
     episodes,

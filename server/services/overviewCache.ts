@@ -18,6 +18,12 @@ export interface Entry {
 }
 
 const entries = new Map<number, Entry>();
+/**
+ * What the overview last read per build (any shape: the overview service owns it), kept while only
+ * labour changes: a labour notice leaves it, any other notice of the build drops it. Its labour part
+ * is never trusted (it is read again each time).
+ */
+const inputs = new Map<number, unknown>();
 /** Bumped by every notice for a build, so a figure computed before a change is never stored after it. */
 const generations = new Map<number, number>();
 let allGeneration = 0;
@@ -44,15 +50,18 @@ export function changeNoticesLive(): boolean {
 
 function forgetAll() {
   entries.clear();
+  inputs.clear();
   allGeneration += 1;
   for (const fn of changeListeners) fn(null);
 }
 
 function onNotice(msg: pg.Notification) {
-  if (msg.channel !== 'build_changed') return;
+  if (msg.channel !== 'build_changed' && msg.channel !== 'build_labour_changed') return;
   if (msg.payload === '*' || !msg.payload) return forgetAll();
   const id = Number(msg.payload);
   entries.delete(id);
+  // Labour alone changed (migration 0033): the rest of what was read stays good.
+  if (msg.channel === 'build_changed') inputs.delete(id);
   generations.set(id, (generations.get(id) ?? 0) + 1);
   for (const fn of changeListeners) fn(id);
 }
@@ -78,7 +87,7 @@ function connect(): Promise<void> {
   client = c;
   connecting = c
     .connect()
-    .then(() => c.query('LISTEN build_changed'))
+    .then(() => c.query('LISTEN build_changed; LISTEN build_labour_changed'))
     .then(() => {
       // The listening connection must not keep a finished process (a test run, a script) alive.
       (c as unknown as { connection?: { stream?: { unref?: () => void } } }).connection?.stream?.unref?.();
@@ -127,12 +136,33 @@ export function singleFlight(buildId: number, key: string, compute: () => Promis
   return entry;
 }
 
+/**
+ * The computation already running for this build from the same stamp (no change since it started),
+ * or null. A request joining it needs neither the build's row nor a query of its own: the running
+ * computation loaded them after the same last change.
+ */
+export function runningFor(buildId: number, before: string): Promise<Entry> | null {
+  if (!before.startsWith('1:')) return null;
+  const running = inFlight.get(buildId);
+  return running && running.key.startsWith(`${before}|`) ? running.entry : null;
+}
+
+/** The inputs kept for a build (see `inputs`), or null; only while notices arrive. */
+export function keptInputs<T>(buildId: number): T | null {
+  return listening ? ((inputs.get(buildId) as T | undefined) ?? null) : null;
+}
+
+/** Keeps inputs read after stamp `before`, unless any notice for the build came in since. */
+export function keepInputs(buildId: number, before: string, value: unknown) {
+  if (listening && before.startsWith('1:') && before === stamp(buildId)) inputs.set(buildId, value);
+}
+
 /** Serialises the figures once; keeps them when no change notice came in since `before`. */
 export function store(buildId: number, day: string, zone: string, before: string, value: unknown): Entry {
   const body = Buffer.from(JSON.stringify(value));
   const keep = listening && before.startsWith('1:') && before === stamp(buildId);
-  // Compressing pays off only for a copy that will be sent many times.
-  const entry = { day, zone, body, gzipped: keep && body.length > 1024 ? gzipSync(body, { level: 6 }) : null, etag: `W/"${createHash('sha1').update(body).digest('base64url')}"` };
+  // A copy sent many times is worth compressing harder; one sent once goes out at the fastest level.
+  const entry = { day, zone, body, gzipped: body.length > 1024 ? gzipSync(body, { level: keep ? 6 : 1 }) : null, etag: `W/"${createHash('sha1').update(body).digest('base64url')}"` };
   if (keep) entries.set(buildId, entry);
   return entry;
 }

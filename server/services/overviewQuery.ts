@@ -30,15 +30,16 @@ export interface OverviewData {
 }
 
 // Arrays instead of objects keep the JSON small and quick to parse; the positions are mapped below.
-// Sums of cents are cast to bigint so no integer overflow can occur inside the database.
-const SQL = `
+// Sums of cents are cast to bigint so no integer overflow can occur inside the database. Labour
+// comes already summed per upgrade and day (labour_day_totals, kept by triggers: migration 0033).
+export const OVERVIEW_SQL = `
 WITH
   u AS (SELECT id, title, area, episode_id, estimated_hours, value_added_cents, install_state,
                install_segment, demo_segment, installed_on
           FROM upgrades WHERE build_id = $1),
   e AS (SELECT id, number, title, state, shoot_date FROM episodes WHERE build_id = $1),
-  l AS (SELECT upgrade_id, worked_on, sum(hours) AS hours
-          FROM labour_entries WHERE build_id = $1 GROUP BY upgrade_id, worked_on),
+  l AS (SELECT upgrade_id, worked_on, hours::float8 AS hours
+          FROM labour_day_totals WHERE build_id = $1 ORDER BY upgrade_id, worked_on),
   p AS (SELECT upgrade_id, state, ordered_on, received_on, fitted_on,
                sum(quantity::bigint * unit_cost_cents) AS cents
           FROM parts WHERE build_id = $1 AND state <> 'returned'
@@ -66,8 +67,22 @@ SELECT
 
 type Row = Record<keyof OverviewData, unknown[][]>;
 
+/** How many full reads and labour-only reads ran (tests and benchmarks watch these). */
+export const overviewReads = { full: 0, labour: 0 };
+
+/** Only the labour sums, in the same order and form as loadOverviewData gives them. */
+export async function loadOverviewLabour(buildId: number): Promise<OverviewData['labour']> {
+  overviewReads.labour += 1;
+  return sequelize.query<OverviewData['labour'][number]>(
+    `SELECT upgrade_id AS "upgradeId", to_char(worked_on, 'YYYY-MM-DD') AS "workedOn", hours::float8 AS hours
+       FROM labour_day_totals WHERE build_id = $1 ORDER BY upgrade_id, worked_on`,
+    { bind: [buildId], type: QueryTypes.SELECT },
+  );
+}
+
 export async function loadOverviewData(buildId: number): Promise<OverviewData> {
-  const [row] = await sequelize.query<Row>(SQL, { bind: [buildId], type: QueryTypes.SELECT });
+  overviewReads.full += 1;
+  const [row] = await sequelize.query<Row>(OVERVIEW_SQL, { bind: [buildId], type: QueryTypes.SELECT });
   return {
     upgrades: row.upgrades.map(([id, title, area, episodeId, estimatedHours, valueAddedCents, installState, installSegment, demoSegment, installedOn]) => ({
       id: id as number,

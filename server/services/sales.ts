@@ -9,8 +9,8 @@ import { slugify } from '../../shared/showNotes';
 import { rollUpCosts } from '../../shared/costs';
 import { netCostByDay, salesFigures, type AttributedLine, type DatedCostInput, type SalesEpisodeInput, type SalesPartInput, type SalesUpgradeInput, type SaleLineInput, type Attribution } from '../../shared/sales';
 import type { SalesSummary } from '../../shared/sales';
+import { todayIn } from '../../shared/dates';
 
-const today = () => new Date().toISOString().slice(0, 10);
 const UNATTRIBUTED_SHOWN = 200;
 
 async function q<T extends object>(sql: string, buildId: number): Promise<T[]> {
@@ -38,8 +38,8 @@ async function costInput(buildId: number, asOf: string, labourRateCents: number)
   return { labourRateCents, asOf, upgrades, parts, labour, expenses, removedParts };
 }
 
-/** Every line of the build, attributed, with the figures. */
-export async function computeSales(build: Build, asOf: string = today()) {
+/** Every line of the build, attributed, with the figures; `asOf` (undated money falls on it) is today in the build's zone. */
+export async function computeSales(build: Build, asOf: string = todayIn(build.timeZone)) {
   const [parts, upgrades, episodes, lines, cost] = await Promise.all([
     q<SalesPartInput>(`SELECT id, upgrade_id AS "upgradeId", part_number AS "partNumber", store_sku AS "storeSku", unit_cost_cents AS "unitCostCents" FROM parts WHERE build_id = $1`, build.id),
     q<SalesUpgradeInput>(`SELECT id, title, episode_id AS "episodeId" FROM upgrades WHERE build_id = $1 ORDER BY id`, build.id),

@@ -6,12 +6,14 @@ import { config } from '../config';
 import { enqueueMail } from '../mail/outbox';
 import { slipDigestMail } from '../mail/slipDigest';
 import { today } from './planData';
+import { daysBetween } from '../../shared/dates';
 import { computeSlips, type EpisodeSlip, type SlipEpisode, type SlipPart, type SlipUpgrade } from '../../shared/planner/slips';
 
-type BuildRef = Pick<Build, 'id' | 'name'>;
+/** The build fields slips read: its zone gives "today" (parts overdue, releases at risk). */
+type BuildRef = Pick<Build, 'id' | 'name'> & Partial<Pick<Build, 'timeZone'>>;
 
 /** Every episode of the build with baseline, plan and projection, in series order. */
-export async function loadSlips(buildId: number, t?: Transaction, now: string = today()): Promise<EpisodeSlip[]> {
+export async function loadSlips(buildId: number, t: Transaction | undefined, now: string): Promise<EpisodeSlip[]> {
   const replacements = { buildId };
   const q = <R extends object>(sql: string) => sequelize.query<R>(sql, { replacements, type: QueryTypes.SELECT, transaction: t });
   const [episodes, upgrades, edges, parts] = await Promise.all([
@@ -66,7 +68,7 @@ export function describeSlip(s: EpisodeSlip): string {
  * projected release, one per overdue part and date — and, when there is any new one, producers get
  * the day's digest, at most once a day per build (the outbox's dedupe key holds the build and day).
  */
-export async function refreshSlipNotices(t: Transaction, build: BuildRef, now: string = today()): Promise<number> {
+export async function refreshSlipNotices(t: Transaction, build: BuildRef, now: string = today(build.timeZone)): Promise<number> {
   const [slips, overdue] = await Promise.all([loadSlips(build.id, t, now), overdueParts(build.id, now, t)]);
   const atRisk = slips.filter((s) => s.releaseAtRisk);
   let added = 0;
@@ -95,7 +97,7 @@ async function queueDigest(t: Transaction, build: BuildRef, day: string, atRisk:
 
 /** A notice for the part's own move, beside the episodes it puts at risk. */
 export async function noticePartMovedLater(t: Transaction, build: BuildRef, part: { id: number; partNumber: string; description: string }, from: string | null, to: string) {
-  const days = from ? Math.round((Date.parse(to) - Date.parse(from)) / 86_400_000) : null;
+  const days = from ? daysBetween(from, to) : null;
   const message = from ? `Part ${part.partNumber} (${part.description}) now expected ${to}, ${days} day${days === 1 ? '' : 's'} later than ${from}.` : `Part ${part.partNumber} (${part.description}) now expected ${to}.`;
   await addNotice(t, build.id, 'part_later', message, { partId: part.id, from, to, days }, `later:${part.id}:${to}`);
 }
@@ -127,7 +129,8 @@ export async function markNoticesSeen(userId: number, buildId: number) {
 
 /** What the planner and overview show: every episode's baseline against plan and projection. */
 export async function slipReport(build: BuildRef) {
-  await sequelize.transaction((t) => refreshSlipNotices(t, build));
-  const slips = await loadSlips(build.id);
-  return { today: today(), episodes: slips, atRisk: slips.filter((s) => s.releaseAtRisk).map((s) => s.episodeId) };
+  const now = today(build.timeZone);
+  await sequelize.transaction((t) => refreshSlipNotices(t, build, now));
+  const slips = await loadSlips(build.id, undefined, now);
+  return { today: now, episodes: slips, atRisk: slips.filter((s) => s.releaseAtRisk).map((s) => s.episodeId) };
 }

@@ -1,11 +1,13 @@
 // The build overview: every figure and series of the overview screen and the build report, in one call.
 import { api } from './http';
-import type { BuildOverview } from '@shared/overview';
+import { expandOverview, type BuildOverview } from '@shared/overview';
+import type { OverviewAnswer } from '@shared/contracts/overview';
 
 export type { BuildOverview, OverviewUpgradeRow, OverviewAreaRow, OverviewEpisodeRow, OverviewCostRow, BurndownPoint } from '@shared/overview';
 
 export const overviewApi = {
-  get: (buildId: number | string) => api.get<BuildOverview>(`/api/builds/${buildId}/overview`),
+  /** The answer travels compact (columns, no derived fields); the screens read it expanded. */
+  get: async (buildId: number | string): Promise<BuildOverview> => expandOverview(await api.get<OverviewAnswer>(`/api/builds/${buildId}/overview`)),
 };
 
 /** Cents as a plain decimal for CSV files (no currency sign, no grouping): 123456 → "1234.56". */

@@ -6,9 +6,12 @@ import { anonymous, signInAs } from '../helpers/api';
 import { Build, Upgrade, Episode, sequelize } from '../../server/models';
 import { queryCounter } from '../../server/db/sequelize';
 import { buildOverview } from '../../server/services/overview';
-import { singleFlight } from '../../server/services/overviewCache';
+import { overviewReads } from '../../server/services/overviewQuery';
+import { runningFor, singleFlight } from '../../server/services/overviewCache';
 import { earnedValue, roundHalfUpCents } from '../../shared/index';
-import type { BuildOverview, OverviewCostRow } from '../../shared/overview';
+import { expandOverview, type BuildOverview, type OverviewCostRow } from '../../shared/overview';
+import { overviewAnswer, overviewAnswerWithoutMoney } from '../../shared/contracts/overview';
+import { compactOverview } from '../../shared/overview';
 
 let seq = 0;
 async function makeBuild(fields: Partial<{ budgetCents: number | null; labourRateCents: number | null }> = {}) {
@@ -122,7 +125,7 @@ describe('GET /api/builds/:buildId/overview', () => {
   it('gives the owner every figure of a hand-worked build, to the cent', async () => {
     const res = await owner.get(`/api/builds/${handMade.id}/overview`);
     expect(res.status).toBe(200);
-    const o = res.body as BuildOverview;
+    const o = expandOverview(overviewAnswer.parse(res.body));
     const u1 = o.upgrades.find((u) => u.upgradeId === ids.u1)!;
     expect(u1).toMatchObject({ partsCents: 30_000, labourCents: 32_063, expensesCents: 4_500, recoveredCents: 7_000, expectedRecoveryCents: 2_000, netCents: 59_563, estimatedHours: 4, actualHours: 3.75, done: true });
     expect(u1.valuePerDollar).toBeCloseTo(120_000 / 59_563, 5); // sent to six significant digits
@@ -206,12 +209,19 @@ describe('GET /api/builds/:buildId/overview', () => {
     expect(tern, 'the demo build is seeded').not.toBeNull();
     const res = await owner.get(`/api/builds/${tern!.id}/overview`);
     expect(res.status).toBe(200);
-    const o = res.body as BuildOverview;
+    const o = expandOverview(overviewAnswer.parse(res.body));
     expect(o.upgrades.length).toBeGreaterThan(0);
     expect(nonFinite(await buildOverview(tern!))).toEqual([]);
     await expectAgreesWithDatabase(o, tern!.id);
   });
 });
+
+/** The overview through the API, parsed with its contract (finite numbers only) and expanded as the client does. */
+async function viaApi(b: Build): Promise<BuildOverview> {
+  const res = await owner.get(`/api/builds/${b.id}/overview`);
+  expect(res.status).toBe(200);
+  return expandOverview(overviewAnswer.parse(res.body));
+}
 
 describe('builds with missing inputs show nulls, never NaN or Infinity', () => {
   it('a build with no upgrades at all', async () => {
@@ -222,7 +232,7 @@ describe('builds with missing inputs show nulls, never NaN or Infinity', () => {
     expect(o.headline).toMatchObject({ netCents: 0, spentCents: 0, remainingCents: 1_000_000, valuePerDollar: null, upgradesTotal: 0, episodesTotal: 0 });
     expect(o.earnedValue).toMatchObject({ bac: null, pv: 0, ev: 0, ac: 0, cpi: null, spi: null, eac: null, etc: null, vac: null, eacCpi: null, eacComposite: null });
     expect(o.headline).toMatchObject({ forecastCents: null, bacCents: null, reserveCents: null, etcCents: null });
-    expect((await owner.get(`/api/builds/${b.id}/overview`)).status).toBe(200);
+    expect(await viaApi(b)).toEqual(o);
   });
 
   it('a build with no budget', async () => {
@@ -236,6 +246,7 @@ describe('builds with missing inputs show nulls, never NaN or Infinity', () => {
     expect(o.headline).toMatchObject({ budgetCents: null, remainingCents: null, spentShare: null, forecastCents: 20_550, forecastVarianceCents: null, reserveCents: null, netCents: 20_550, bacCents: 20_550 });
     expect(o.earnedValue).toMatchObject({ bac: 20_550, ev: 0, ac: 8_550, cpi: 0, eac: null, vac: null });
     expect(o.burndown).toEqual([]);
+    expect(await viaApi(b)).toEqual(o);
   });
 
   it('a build with no labour rate', async () => {
@@ -250,6 +261,7 @@ describe('builds with missing inputs show nulls, never NaN or Infinity', () => {
     expect(o.totals.labourCents).toBeNull();
     expect(o.headline.actualHours).toBe(3);
     expect(o.headline).toMatchObject({ forecastCents: null, etcCents: null, bacCents: null, reserveCents: null, remainingLabourCents: null });
+    expect(await viaApi(b)).toEqual(o);
   });
 
   it('a build whose upgrades are all estimated at zero hours', async () => {
@@ -262,6 +274,7 @@ describe('builds with missing inputs show nulls, never NaN or Infinity', () => {
     expect(o.totals.hoursRatio).toBeNull();
     expect(o.headline).toMatchObject({ estimatedHours: 0, actualHours: 0, spentShare: null, bacCents: 0, reserveCents: 0, forecastCents: 0 });
     expect(o.earnedValue).toMatchObject({ cpi: null, spi: null, eacCpi: null, eacComposite: null, tcpi: null, tcpiEac: null });
+    expect(await viaApi(b)).toEqual(o);
   });
 });
 
@@ -363,6 +376,13 @@ describe('the cached overview', () => {
     // Without the listening connection nothing is shared: a reader must see its own write.
     await Promise.all([singleFlight(424242, '0:0:0|x', compute), singleFlight(424242, '0:0:0|x', compute)]);
     expect(runs).toBe(4);
+    // A reader arriving while a computation runs joins it only when no change came in since it started.
+    const running = singleFlight(515151, '1:0:3|2026-01-01|UTC', compute);
+    expect(runningFor(515151, '1:0:3')).toBe(running);
+    expect(runningFor(515151, '1:0:4')).toBeNull();
+    expect(runningFor(515151, '0:0:3')).toBeNull();
+    await running;
+    expect(runningFor(515151, '1:0:3')).toBeNull();
   });
 
   it('answers ten concurrent requests after a change with one overview query', async () => {
@@ -377,5 +397,64 @@ describe('the cached overview', () => {
     expect(answers.every((a) => a.status === 200 && a.body.totals.partsCents === 4_000)).toBe(true);
     // Each request reads its person and (on a miss) the build; the overview's own query runs once.
     expect(queryCounter.count - before).toBeLessThanOrEqual(10 * 2 + 1);
+  });
+});
+
+describe('a logged hour shows in the very next answer', () => {
+  it('the cached overview drops its copy before the next read: no stale figure after a write', async () => {
+    const b = await makeBuild();
+    const u = await upgrade(b.id, { title: 'Bed liner', area: 'rear', estimatedHours: 4 });
+    const url = `/api/builds/${b.id}/overview`;
+    const read = async () => expandOverview(overviewAnswer.parse((await owner.get(url)).body));
+    await read();
+    const before = await read(); // now from the cache
+    expect(before.upgrades[0]).toMatchObject({ actualHours: 0, labourCents: 0 });
+    for (const [n, hours] of [[1, 1.5], [2, 2]] as const) {
+      const logged = await owner.post(`/api/builds/${b.id}/labour`).send({ upgradeId: u.id, workedOn: '2025-02-03', hours, personName: 'Bay tech' });
+      expect(logged.status).toBe(201);
+      // By hand: $85.50/h × 1.5 h = $128.25; then 3.5 h = $299.25.
+      const after = await read();
+      expect(after.upgrades[0].actualHours, `after write ${n}`).toBe(n === 1 ? 1.5 : 3.5);
+      expect(after.totals.labourCents).toBe(n === 1 ? 12_825 : 29_925);
+      expect(after.headline.actualCents).toBe(n === 1 ? 12_825 : 29_925);
+    }
+  });
+
+  it('after a logged hour re-reads only the labour sums; after any other change, everything', async () => {
+    const b = await makeBuild();
+    const u = await upgrade(b.id, { title: 'Roof rack', area: 'sides', estimatedHours: 2 });
+    const url = `/api/builds/${b.id}/overview`;
+    const read = async () => expandOverview(overviewAnswer.parse((await owner.get(url)).body));
+    await read();
+    await read();
+    const reads = () => ({ ...overviewReads });
+    let before = reads();
+    expect((await owner.post(`/api/builds/${b.id}/labour`).send({ upgradeId: u.id, workedOn: '2025-02-04', hours: 2, personName: 'Bay tech' })).status).toBe(201);
+    // By hand: 2 h × $85.50 = $171.00.
+    expect((await read()).totals).toMatchObject({ labourCents: 17_100, actualHours: 2 });
+    expect(reads()).toEqual({ full: before.full, labour: before.labour + 1 });
+    // A part is not labour: the next answer reads everything again, and shows it.
+    before = reads();
+    await part(b.id, u.id, 1, 4_200);
+    expect((await read()).totals).toMatchObject({ partsCents: 4_200, labourCents: 17_100 });
+    expect(reads().full).toBe(before.full + 1);
+  });
+});
+
+describe('the overview contract', () => {
+  it('travels compact and expands to exactly what the service computes; without money only names, dates and hours remain', async () => {
+    const tern = (await Build.findOne({ where: { slug: 'project-tern' } }))!;
+    const res = await owner.get(`/api/builds/${tern.id}/overview`);
+    const answer = overviewAnswer.parse(res.body);
+    const expanded = expandOverview(answer);
+    expect(expanded).toEqual(await buildOverview(tern));
+    expect(compactOverview(expanded)).toEqual(answer);
+    // No field a screen can work out travels: no net cost, value per dollar or hours ratio per row.
+    expect(Object.keys(res.body.upgrades).sort()).toEqual(['actualHours', 'done', 'estimatedHours', 'expectedRecoveryCents', 'expensesCents', 'labourCents', 'partsCents', 'recoveredCents', 'title', 'upgradeId', 'valueAddedCents']);
+    expect(res.body.totals).not.toHaveProperty('netCents');
+    const bare = overviewAnswerWithoutMoney.parse(res.body);
+    expect(JSON.stringify(bare)).not.toMatch(/Cents|valuePer|budget|labourRate|cpi|spi/i);
+    expect(bare.upgrades.title).toEqual(answer.upgrades.title);
+    expect(bare.headline.actualHours).toBe(answer.headline.actualHours);
   });
 });

@@ -5,7 +5,8 @@ import { QueryTypes } from 'sequelize';
 import { signInAs } from '../helpers/api';
 import { Build, Upgrade, sequelize } from '../../server/models';
 import { buildOverview } from '../../server/services/overview';
-import type { BuildOverview } from '../../shared/overview';
+import { expandOverview, type BuildOverview } from '../../shared/overview';
+import { overviewAnswer } from '../../shared/contracts/overview';
 
 let owner: Awaited<ReturnType<typeof signInAs>>;
 let seq = 0;
@@ -46,7 +47,7 @@ describe('the worked check of issue 12, through the API', () => {
     await labour(b.id, a.id, '2026-02-09', 10);
     const url = `/api/builds/${b.id}/overview`;
 
-    const fit = (await owner.get(url)).body as BuildOverview;
+    const fit = expandOverview(overviewAnswer.parse((await owner.get(url)).body));
     expect(fit.headline).toMatchObject({ bacCents: 700_000, reserveCents: 300_000, actualCents: 200_000, forecastCents: 700_000, costRecognition: 'fitting' });
     expect(fit.earnedValue).toMatchObject({ bac: 700_000, ev: 200_000, ac: 200_000, cpi: 1 });
     expect(fit.earnedValue.eacCpi).toBeCloseTo(700_000, 6);

@@ -4,6 +4,7 @@
 import type { MigrationContext } from '../migrate';
 import { Build, Episode, Upgrade } from '../../models';
 import { TERN_BUILD, TERN_UPGRADES } from './data/project-tern';
+import { addDays, todayIn } from '../../../shared/dates';
 
 interface SeedEpisode {
   title: string;
@@ -31,12 +32,9 @@ const EPISODES: SeedEpisode[] = [
   { title: 'Seeing all the way round', state: 'draft', shoot: 44, release: 51, upgrades: ['surroundView'] },
 ];
 
+/** A fixed date, or `v` days from today on the demo build's own clock. */
 function dateOf(v: string | number): string {
-  if (typeof v === 'string') return v;
-  const d = new Date();
-  d.setUTCHours(0, 0, 0, 0);
-  d.setUTCDate(d.getUTCDate() + v);
-  return d.toISOString().slice(0, 10);
+  return typeof v === 'string' ? v : addDays(todayIn(TERN_BUILD.timeZone), v);
 }
 
 export async function up({ context: { sequelize } }: { context: MigrationContext }) {
