@@ -15,6 +15,11 @@ interface QueuedBase {
   upgradeTitle: string;
   /** The upgrade's record version the person saw when they acted. */
   version: number;
+  /**
+   * Sent as the Idempotency-Key header: when the network loses the answer to a change the server
+   * saved, the resend gets that answer back instead of making the change twice. Given on enqueue.
+   */
+  key?: string;
   /** What the person did, in words ("Start", "1.5 h install", "Photo IMG_1.jpg"). */
   label: string;
   createdAt: string;
@@ -93,6 +98,12 @@ export async function closeStore() {
 
 const snapshotKey = (userId: number, buildId: number) => `${userId}:${buildId}`;
 
+/** A key no other action of this phone has: a random UUID where the browser has one. */
+export function newActionKey(): string {
+  if (typeof crypto !== 'undefined' && typeof crypto.randomUUID === 'function') return crypto.randomUUID();
+  return `${Date.now().toString(36)}-${Math.random().toString(36).slice(2, 12)}-${Math.random().toString(36).slice(2, 12)}`;
+}
+
 export const offlineStore = {
   async saveSnapshot(userId: number, buildId: number, data: ShopFloor) {
     await (await db()).put('snapshots', { key: snapshotKey(userId, buildId), userId, buildId, data: JSON.parse(JSON.stringify(data)) as ShopFloor, savedAt: new Date().toISOString() });
@@ -102,7 +113,7 @@ export const offlineStore = {
   },
   /** Adds an action at the end of the outbox; answers its `seq`. */
   async enqueue(action: NewAction): Promise<number> {
-    return (await db()).add('outbox', action as QueuedAction);
+    return (await db()).add('outbox', { ...action, key: action.key ?? newActionKey() } as QueuedAction);
   },
   /** This person's waiting actions, oldest first. */
   async queued(userId: number): Promise<QueuedAction[]> {

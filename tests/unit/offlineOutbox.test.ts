@@ -80,6 +80,27 @@ describe('outbox', () => {
     expect(await offlineStore.refusals(USER)).toEqual([]);
   });
 
+  it('each action keeps one key from enqueue to its last resend, so the server can tell a resend from a new change', async () => {
+    const keysSent: (string | undefined)[] = [];
+    let lost = true;
+    const outbox = createOutbox(offlineStore, USER, {
+      send: async (a) => {
+        keysSent.push(a.key);
+        // The server saved it, but the answer never arrived: the phone must resend with the same key.
+        if (lost) throw new ApiError(0, 'network', 'The server cannot be reached.');
+      },
+    });
+    await outbox.enqueue(hours(1, 1.5));
+    await outbox.enqueue(hours(1, 2));
+    expect(await outbox.flush()).toEqual({ sent: 0, refused: 0, stopped: true });
+    lost = false;
+    expect(await outbox.flush()).toEqual({ sent: 2, refused: 0, stopped: false });
+    expect(keysSent).toHaveLength(3);
+    expect(keysSent[0]).toMatch(/^[A-Za-z0-9_-]{8,100}$/);
+    expect(keysSent[1]).toBe(keysSent[0]);
+    expect(keysSent[2]).not.toBe(keysSent[0]);
+  });
+
   it('signed out (401) and server trouble (503) are "later", not refusals; a rule (422) is a refusal', async () => {
     const answers = [new ApiError(401, 'unauthorized', 'Sign in.'), new ApiError(503, 'http_503', 'Down.'), new ApiError(422, 'rule', 'Not allowed now.'), null];
     const outbox = createOutbox(offlineStore, USER, {
