@@ -1,5 +1,8 @@
-// ESLint: correctness and the boundaries between the layers, nothing about style (the formatter
-// owns style). `npm run lint` runs it; `npm test` runs it before the type check.
+// ESLint: correctness and the boundaries between the layers, nothing about style (Prettier owns
+// style: .prettierrc.json, `npm run format`). `npm run lint` runs it; `npm test` runs it.
+// No rule here fights Prettier (checked with `npx eslint-config-prettier server/app.ts src/App.vue`;
+// only the correctness rule no-unexpected-multiline is listed, and it stays), so
+// eslint-config-prettier is not needed; add it last should a stylistic rule set come in.
 //
 // The boundaries (see DEVELOPERS.md, "Layers"):
 //   shared/            imports only shared/ and zod — no server, client, Node or DOM code

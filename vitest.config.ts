@@ -16,7 +16,8 @@ export default defineConfig({
     projects: [
       {
         extends: true,
-        test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node', sequence: { groupOrder: 0 } },
+        // Two workers: Vitest's default (cores − 1) leaves one of our two cores idle.
+        test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node', sequence: { groupOrder: 0 }, maxWorkers: 2 },
       },
       {
         extends: true,
@@ -40,7 +41,8 @@ export default defineConfig({
           sequence: { groupOrder: 2 },
           include: ['tests/e2e/**/*.test.ts'],
           environment: 'node',
-          globalSetup: ['tests/helpers/global-services.ts'],
+          // server-build.ts compiles the server once for every journey's server (tests/helpers/browser.ts).
+          globalSetup: ['tests/helpers/global-services.ts', 'tests/helpers/server-build.ts'],
           setupFiles: ['tests/helpers/per-file-db.ts'],
           // Generous: a journey on a shared two-core machine under heavy load is slow, not wrong.
           testTimeout: 300_000,

@@ -1,12 +1,19 @@
 // Browser-test harness: the real server (built client included) on this file's database,
 // Debian's Chromium driven by playwright-core, and axe-core run on every page visited.
+//
+// Speed without sharing state: the server runs from the esbuild bundle that the e2e project's
+// global setup compiles once per run (tests/helpers/server-build.ts) instead of loading every
+// source file through tsx at each start, and one Chromium process serves all the journeys of a
+// test file, each journey in a fresh browser context (its own cookies, storage and cache).
 import { spawn, type ChildProcess } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import path from 'node:path';
 import net from 'node:net';
 import { createRequire } from 'node:module';
+import { afterAll, inject } from 'vitest';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { DEMO_EMAIL, DEMO_PASSWORD, type DemoRole } from './api';
+import { buildServer } from './server-process';
 
 const root = path.resolve(import.meta.dirname, '../..');
 const require = createRequire(import.meta.url);
@@ -30,12 +37,27 @@ export interface AppServer {
   output: () => string;
 }
 
-/** Starts `server/index.ts` as a child process, as `npm start` does, and waits until it listens. */
+/**
+ * The compiled server's entry: the bundle the global setup built for this run, or (a helper used
+ * outside the e2e project) a copy compiled for this test file.
+ */
+function serverEntry(): string {
+  const built = inject('appServerBuild');
+  if (built && existsSync(path.join(built, 'index.js'))) return path.join(built, 'index.js');
+  return path.join(buildServer(), 'index.js');
+}
+
+/**
+ * Starts the server (`server/index.ts`, compiled by esbuild as `npm run build` does) as a child
+ * process in test mode, with this file's settings (tests/helpers/per-file-db.ts), and waits until
+ * it listens.
+ */
 export async function startAppServer(extraEnv: Record<string, string> = {}): Promise<AppServer> {
   if (!existsSync(path.join(root, process.env.E2E_DIST ?? 'dist', 'index.html'))) throw new Error('dist/ is missing: run the tests through `npm test`, which builds the client');
+  const entry = serverEntry();
   const port = await freePort();
   let out = '';
-  const child: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+  const child: ChildProcess = spawn(process.execPath, ['--enable-source-maps', entry], {
     cwd: root,
     // E2E_DIST lets a developer test a client built into another folder than dist/.
     env: { ...process.env, PORT: String(port), HOST: '127.0.0.1', SERVE_CLIENT: '1', CLIENT_DIST: process.env.E2E_DIST ?? 'dist', NODE_ENV: 'test', PUBLIC_URL: `http://127.0.0.1:${port}`, ...extraEnv },
@@ -44,7 +66,7 @@ export async function startAppServer(extraEnv: Record<string, string> = {}): Pro
   child.stdout!.on('data', (c) => (out += c));
   child.stderr!.on('data', (c) => (out += c));
   await new Promise<void>((resolve, reject) => {
-    // Generous: loading the server's sources takes tens of seconds on a busy 2-core machine; a slow start is not a failure.
+    // Generous: a start takes seconds on a busy 2-core machine; a slow start is not a failure.
     const timer = setTimeout(() => reject(new Error(`server did not start:\n${out}`)), 150_000);
     child.stdout!.on('data', () => out.includes('server listening') && (clearTimeout(timer), resolve()));
     child.once('exit', (code) => (clearTimeout(timer), reject(new Error(`server exited ${code}:\n${out}`))));
@@ -78,13 +100,36 @@ export interface BrowserSession {
   close: () => Promise<void>;
 }
 
+// One Chromium per test file (each file runs in a process of its own), launched on first use and
+// closed after the file's last test; launched again should it ever crash.
+let launched: Promise<Browser> | null = null;
+function sharedBrowser(): Promise<Browser> {
+  if (!launched) {
+    const p = chromium.launch({
+      executablePath: chromiumPath(),
+      args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    });
+    launched = p;
+    p.then(
+      (b) => b.on('disconnected', () => launched === p && (launched = null)),
+      () => launched === p && (launched = null),
+    );
+  }
+  return launched;
+}
+afterAll(async () => {
+  const p = launched;
+  launched = null;
+  if (p) await (await p.catch(() => null))?.close();
+});
+
+/**
+ * A fresh browser context (no cookies, storage or cache from any other journey) and page on the
+ * file's Chromium, against `opts.server` or a server of its own started for it.
+ */
 export async function openBrowser(opts: { phone?: boolean; server?: AppServer; env?: Record<string, string> } = {}): Promise<BrowserSession> {
   const server = opts.server ?? (await startAppServer(opts.env));
-  // Playwright gives every launch a fresh, empty profile folder of its own.
-  const browser = await chromium.launch({
-    executablePath: chromiumPath(),
-    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
-  });
+  const browser = await sharedBrowser();
   const context = await browser.newContext(
     // bypassCSP lets the harness inject axe-core; the app's own CSP stays strict.
     opts.phone ? { viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true, deviceScaleFactor: 2, bypassCSP: true } : { viewport: { width: 1366, height: 900 }, bypassCSP: true },
@@ -97,7 +142,7 @@ export async function openBrowser(opts: { phone?: boolean; server?: AppServer; e
     server,
     audited: [],
     close: async () => {
-      await browser.close();
+      await context.close();
       if (!opts.server) await server.stop();
     },
   };

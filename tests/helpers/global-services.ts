@@ -29,7 +29,15 @@ function runNode(args: string[], env: NodeJS.ProcessEnv): Promise<{ status: numb
   });
 }
 
-export default async function setup(project: TestProject) {
+interface Services {
+  url: string;
+  s3Endpoint: string;
+  smtpPort: number;
+  mailDir: string;
+  stop: () => Promise<void>;
+}
+
+async function startServices(): Promise<Services> {
   const cluster = await startThrowawayCluster();
   const fakes = await startTestFakes();
   const env = {
@@ -48,12 +56,42 @@ export default async function setup(project: TestProject) {
     await fakes.stop();
     throw new Error(`preparing the template database failed:\n${r.stdout}\n${r.stderr}`);
   }
-  project.provide('pgTemplateUrl', cluster.url);
-  project.provide('s3Endpoint', fakes.s3Endpoint);
-  project.provide('smtpPort', fakes.smtpPort);
-  project.provide('mailDir', fakes.mailDir);
+  return {
+    url: cluster.url,
+    s3Endpoint: fakes.s3Endpoint,
+    smtpPort: fakes.smtpPort,
+    mailDir: fakes.mailDir,
+    stop: async () => {
+      await fakes.stop();
+      cluster.stop();
+    },
+  };
+}
+
+// The API and browser projects share one cluster, template and pair of fakes per run (Vitest runs
+// every project's global setup in this one process): made by the first project that asks, torn
+// down when the last one is done. Files still never share rows: each clones the template.
+const SHARED = Symbol.for('bayslate.testServices');
+type Shared = { users: number; ready: Promise<Services> };
+const holder = globalThis as typeof globalThis & { [SHARED]?: Shared };
+
+export default async function setup(project: TestProject) {
+  const shared = (holder[SHARED] ??= { users: 0, ready: startServices() });
+  shared.users += 1;
+  let s: Services;
+  try {
+    s = await shared.ready;
+  } catch (err) {
+    if (--shared.users === 0 && holder[SHARED] === shared) delete holder[SHARED];
+    throw err;
+  }
+  project.provide('pgTemplateUrl', s.url);
+  project.provide('s3Endpoint', s.s3Endpoint);
+  project.provide('smtpPort', s.smtpPort);
+  project.provide('mailDir', s.mailDir);
   return async () => {
-    await fakes.stop();
-    cluster.stop();
+    if (--shared.users > 0) return;
+    if (holder[SHARED] === shared) delete holder[SHARED];
+    await s.stop();
   };
 }

@@ -57,7 +57,8 @@ export async function startServerProcess(extra: Record<string, string | undefine
   child.stderr!.on('data', (c) => (out += c));
   const exited = new Promise<number | null>((r) => child.once('exit', (code) => r(code)));
   await new Promise<void>((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error(`server did not start:\n${out}`)), 20_000);
+    // Generous: a start takes seconds on a busy 2-core machine; a slow start is not a failure.
+    const timer = setTimeout(() => reject(new Error(`server did not start:\n${out}`)), 60_000);
     child.stdout!.on('data', () => out.includes('server listening') && (clearTimeout(timer), resolve()));
     void exited.then((code) => (clearTimeout(timer), reject(new Error(`server exited ${code}:\n${out}`))));
   });
@@ -83,7 +84,7 @@ export function runServerToEnd(extra: Record<string, string | undefined>, entry 
     let out = '';
     child.stdout!.on('data', (c) => (out += c));
     child.stderr!.on('data', (c) => (out += c));
-    const timer = setTimeout(() => child.kill('SIGKILL'), 20_000);
+    const timer = setTimeout(() => child.kill('SIGKILL'), 60_000);
     child.once('exit', (code) => (clearTimeout(timer), resolve({ code, output: out })));
   });
 }
