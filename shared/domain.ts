@@ -194,28 +194,12 @@ export interface ExpenseRecord {
   category: string | null;
 }
 
-export interface EpisodeRecord {
-  id: number;
-  buildId: number;
-  number: number;
-  title: string;
-  summary: string | null;
-  state: EpisodeState;
-  shootDate: string | null;
-  releaseDate: string | null;
-  videoUrl: string | null;
-  runtimeSeconds: number | null;
-  publishedAt: string | null;
-  upgradeIds: number[];
-  version: number;
-}
-
-export interface ChapterRecord {
-  id?: number;
-  startSeconds: number;
-  title: string;
-  upgradeId: number | null;
-}
+// Episodes and chapters are defined once, as contracts (shared/contracts/episode.ts, publishing.ts).
+import type { Episode } from './contracts/episode';
+import type { Chapter } from './contracts/publishing';
+export type EpisodeRecord = Episode;
+/** A chapter as the server sends it, or as a form holds it before it has an id. */
+export type ChapterRecord = Omit<Chapter, 'id'> & { id?: number };
 
 /** An upgrade is done when it is installed and both of its segments are shot. */
 export function isUpgradeDone(u: Pick<UpgradeRecord, 'installState' | 'installSegment' | 'demoSegment'>): boolean {

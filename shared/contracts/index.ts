@@ -12,6 +12,14 @@ import { publicRoutes } from './public';
 import { removedPartRoutes } from './removedPart';
 import { upgradeRoutes } from './upgrade';
 import { viewerRequestRoutes } from './viewerRequest';
+import { calendarRoutes } from './calendar';
+import { episodeRoutes } from './episode';
+import { healthRoutes } from './health';
+import { planRoutes } from './plan';
+import { publishingRoutes } from './publishing';
+import { salesRoutes } from './sales';
+import { shopFloorRoutes } from './shopFloor';
+import { slipRoutes } from './slips';
 
 export const API: RouteTable = {
   ...authRoutes,
@@ -25,4 +33,12 @@ export const API: RouteTable = {
   ...removedPartRoutes,
   ...upgradeRoutes,
   ...viewerRequestRoutes,
+  ...calendarRoutes,
+  ...episodeRoutes,
+  ...healthRoutes,
+  ...planRoutes,
+  ...publishingRoutes,
+  ...salesRoutes,
+  ...shopFloorRoutes,
+  ...slipRoutes,
 };
