@@ -11,7 +11,7 @@ import { shopFloor } from '../services/shopFloor';
 import { cautionRead, stepBack } from '../services/shopFloorMarks';
 import { forViewer } from '../services/visibility';
 import { Upgrade } from '../models';
-import { inBuild } from './upgrades';
+import { recordInBuild as inBuild } from './buildScoped';
 
 const query = z.strictObject({ episodeId: id.optional() });
 const noBody = z.strictObject({});

@@ -10,7 +10,7 @@ import { minimumShopDays, proposePlan, validatePlan, type PlannerInput, type Pla
 import { findCycle } from '../../shared/planner/criticalPath';
 import { bayForecast } from '../../shared/planner/forecast';
 import { toDay } from '../../shared/planner/dates';
-import { AREA_LABELS, type EpisodeRecord } from '../../shared/domain';
+import { AREA_LABELS, type Area, type EpisodeRecord } from '../../shared/domain';
 import type { PlanInputBody } from '../../shared/schemas/episode';
 import { assertPlanVersion, planVersion, recordRevision, refuseUnlistedDateChanges, lastUndoable, changeSummary, undoLastChange } from './planRevisions';
 import { addDays } from '../../shared/dates';
@@ -113,7 +113,7 @@ interface ProposedEpisode {
   state: EpisodeRecord['state'] | null;
   shootDate: string | null;
   releaseDate: string | null;
-  area: string | null;
+  area: Area | null;
   hours: number;
   upgradeIds: number[];
   locked: boolean;
