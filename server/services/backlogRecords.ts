@@ -4,14 +4,20 @@ import { Op, type Transaction } from 'sequelize';
 import { Activity, Expense, LabourEntry, Part, RemovedPart, Upgrade, UpgradePrerequisite } from '../models';
 import { AppError, badRequest, notFound } from '../errors';
 import { forViewer, RETAIL_FIELDS, SHOP_MONEY_FIELDS, seesMoney, seesRetail, type Viewer } from './visibility';
-import type { ExpenseRecord, LabourEntryRecord, PartRecord, RemovedPartRecord, UpgradeRecord } from '../../shared/domain';
+import type { UpgradeForMoney } from '../../shared/contracts/upgrade';
+import type { PartForMoney } from '../../shared/contracts/part';
+import type { RemovedPartForMoney } from '../../shared/contracts/removedPart';
+import type { LabourEntry as LabourEntryRecord } from '../../shared/contracts/labour';
+import type { Expense as ExpenseRecord } from '../../shared/contracts/expense';
 import { readableChanges } from './activity';
+import { audienceOf, allow, type Audiences } from '../../shared/contracts/common';
 
 export type Person = { id: number; name: string; roles: readonly string[] };
 /** An interface as a plain object type, so it fits Record<string, unknown> (forViewer, activity). */
 export type Plain<T> = { [K in keyof T]: T[K] };
 
-export function toUpgradeRecord(u: Upgrade, prerequisiteIds: number[]): Plain<UpgradeRecord & { installedOn: string | null }> {
+/** Every field of an upgrade (the route's contract decides what leaves per role). */
+export function toUpgradeRecord(u: Upgrade, prerequisiteIds: number[]): Plain<UpgradeForMoney> {
   return {
     id: u.id,
     buildId: u.buildId,
@@ -37,7 +43,7 @@ export function toUpgradeRecord(u: Upgrade, prerequisiteIds: number[]): Plain<Up
   };
 }
 
-export function toPartRecord(p: Part): Plain<PartRecord & { orderedOn: string | null; receivedOn: string | null; version: number }> {
+export function toPartRecord(p: Part): Plain<PartForMoney> {
   return {
     id: p.id,
     buildId: p.buildId,
@@ -59,7 +65,7 @@ export function toPartRecord(p: Part): Plain<PartRecord & { orderedOn: string | 
   };
 }
 
-export function toRemovedPartRecord(r: RemovedPart): Plain<RemovedPartRecord> {
+export function toRemovedPartRecord(r: RemovedPart): Plain<RemovedPartForMoney> {
   return {
     id: r.id,
     buildId: r.buildId,
@@ -133,10 +139,13 @@ export async function upgradeRecord(u: Upgrade, t?: Transaction) {
   return toUpgradeRecord(u, map.get(u.id) ?? []);
 }
 
-/** 409 'stale' carrying the record as it is now (money removed per role), so the client can reload or re-apply. */
-export function stale(current: Record<string, unknown>, viewer: Viewer) {
+/**
+ * 409 'stale' carrying the record as it is now, as the person's contract allows it (or, without
+ * contracts, with money removed per role), so the client can reload or re-apply.
+ */
+export function stale(current: Record<string, unknown>, viewer: Viewer, contracts?: Audiences) {
   return new AppError(409, 'stale', 'Someone else changed this record since you loaded it. Reload to see their change, or re-apply yours.', undefined, {
-    current: forViewer(current, viewer),
+    current: contracts ? allow(contracts[audienceOf(viewer.roles)], current as never) : forViewer(current, viewer),
   });
 }
 
@@ -151,7 +160,7 @@ export function activityView(rows: Activity[], viewer: Viewer) {
     summary: a.summary,
     userId: a.userId,
     userName: a.userName,
-    createdAt: a.createdAt,
+    createdAt: new Date(a.createdAt).toISOString(),
     changes: Object.fromEntries(Object.entries(a.changes ?? {}).filter(([k]) => !hidden.has(k))),
     readable: readableChanges(a.changes, { money: seesMoney(viewer), retail: seesRetail(viewer) }),
   }));

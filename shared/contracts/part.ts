@@ -46,7 +46,7 @@ export const ImportReport = z.object({
   ok: z.boolean(),
   /** The rows read (a preview of what is, or would be, written). */
   rows: z.array(z.record(z.string(), z.unknown())),
-  errors: z.array(z.object({ line: z.number().int(), field: z.string(), message: z.string() })),
+  errors: z.array(z.object({ line: z.number().int(), field: z.string().optional(), message: z.string() })),
   /** How many records a write added. */
   created: z.number().int().optional(),
 });

@@ -3,8 +3,8 @@
 import { z } from 'zod';
 import { AREAS, INSTALL_STATES, SAFETY_FLAGS, SEGMENT_STATES } from '../domain';
 import { audiences, day, idNumber, timestamp, type RouteTable, type Seen } from './common';
-import { ImportReport, PartForCrew, PartForMoney, PartForRetail } from './part';
-import { RemovedPartForCrew, RemovedPartForMoney } from './removedPart';
+import { ImportReport, PartForCrew, PartForMoney, PartForRetail, type PartSeen } from './part';
+import { RemovedPartForCrew, RemovedPartForMoney, type RemovedPartSeen } from './removedPart';
 import { LabourEntry } from './labour';
 import { Expense } from './expense';
 
@@ -60,7 +60,13 @@ export const UpgradeDetail = audiences(
   detail(UpgradeForCrew, PartForCrew, RemovedPartForCrew),
   detail(UpgradeForCrew, PartForRetail, RemovedPartForCrew),
 );
-export type UpgradeDetail = z.infer<typeof UpgradeDetail.crew> & Partial<z.infer<typeof UpgradeDetail.money>>;
+/** The detail as a screen holds it: money fields and the expenses when the person may see them. */
+export type UpgradeDetail = Omit<z.infer<typeof UpgradeDetail.crew>, 'upgrade' | 'parts' | 'removedParts'> & {
+  upgrade: UpgradeSeen;
+  parts: PartSeen[];
+  removedParts: RemovedPartSeen[];
+  expenses?: Expense[];
+};
 
 /** One history entry; `changes` holds only fields the reader's contract for that record names. */
 export const ActivityRow = z.object({
