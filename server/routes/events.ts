@@ -6,6 +6,8 @@ import { ANY_ROLE } from '../middleware/roles';
 import { buildOf } from '../middleware/build';
 import { buildScopedRouter } from './buildScoped';
 import { subscribe } from '../services/buildEvents';
+import { allow } from '../../shared/contracts/common';
+import { BuildChange } from '../../shared/contracts/events';
 
 const HEARTBEAT_MS = 25_000;
 const query = z.strictObject({});
@@ -19,7 +21,7 @@ export function eventsRouter() {
       'X-Accel-Buffering': 'no',
     });
     let n = 0;
-    const send = (what: string[]) => res.write(`id: ${++n}\nevent: change\ndata: ${JSON.stringify({ what })}\n\n`);
+    const send = (what: string[]) => res.write(`id: ${++n}\nevent: change\ndata: ${JSON.stringify(allow(BuildChange, { what }))}\n\n`);
     const stop = await subscribe(buildOf(req).id, send);
     res.write(`retry: 2000\nevent: ready\ndata: {}\n\n`);
     const beat = setInterval(() => res.write(': still here\n\n'), HEARTBEAT_MS);

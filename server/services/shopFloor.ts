@@ -9,8 +9,6 @@ import { cautionsFor } from '../../shared/safety';
 import { todayIn } from '../../shared/dates';
 import { toPartRecord, toUpgradeRecord, type Person } from './backlogRecords';
 import type { EpisodeRecord } from '../../shared/contracts/episode';
-import type { UpgradeForMoney } from '../../shared/contracts/upgrade';
-import type { PartForMoney } from '../../shared/contracts/part';
 
 /** States an installer works in: about to be shot, or shot with pick-up work left. */
 const WORKING_STATES = ['scheduled', 'shot', 'in_edit'] as const;
@@ -74,8 +72,8 @@ async function items(build: Build, viewer: Person, ids: number[]) {
     const blocked = mine.map((p) => prereqById.get(p)).filter((p) => p && p.installState !== 'installed');
     return {
       // Every field: the route's contract decides what leaves per role (ShopFloor in shared/contracts).
-      upgrade: toUpgradeRecord(u, mine) as UpgradeForMoney,
-      parts: parts.filter((p) => p.upgradeId === id).map((p) => toPartRecord(p) as PartForMoney),
+      upgrade: toUpgradeRecord(u, mine),
+      parts: parts.filter((p) => p.upgradeId === id).map((p) => toPartRecord(p)),
       prerequisitesMet: blocked.length === 0,
       blockedBy: blocked.map((p) => p!.title),
       cautions: cautionsFor(u.safetyFlags),

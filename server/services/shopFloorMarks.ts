@@ -61,7 +61,7 @@ export async function stepBack(actor: Person, build: Build, id: number, input: S
       before,
       after,
     });
-    return after as UpgradeForMoney;
+    return after;
   });
 }
 

@@ -4,7 +4,7 @@
 // (salesForViewer in server/services/visibility.ts) and sends through the role's contract below, so
 // a field reaches a role only when both name it.
 import { z } from 'zod';
-import { day, idNumber, timestamp, type RouteTable } from './common';
+import { audiences, day, idNumber, timestamp, type RouteTable } from './common';
 
 const ATTRIBUTIONS = ['direct', 'assisted', 'unattributed'] as const;
 const count = z.number().int();
@@ -92,7 +92,7 @@ const seenSeries = teamSeries.extend({
   unattributed: seenFigures,
   ...ownerSeries.pick({ marginCents: true, netCostCents: true, returnOnBuild: true, paybackDate: true, marginNeededCents: true }).partial().shape,
 });
-const SalesSummarySeen = summaryOf(seenFigures, seenLine, seenSeries).extend({ payback: payback.optional() });
+export const SalesSummarySeen = summaryOf(seenFigures, seenLine, seenSeries).extend({ payback: payback.optional() });
 export type SalesSummarySeen = z.infer<typeof SalesSummarySeen>;
 export type SalesLineSeen = z.infer<typeof seenLine>;
 export type SalesLinesSeen = z.infer<ReturnType<typeof pageOf<typeof seenLine>>>;
@@ -165,8 +165,17 @@ export const SalesImportReport = z.object({
 });
 export type SalesImportReport = z.infer<typeof SalesImportReport>;
 
-/** Routes with one contract for every caller (the per-role ones are SalesSummary and SalesLines). */
+/**
+ * The route table speaks in audiences (money: owner and producer), which do not split the owner from
+ * producers: money roles get "the owner's or the team's shape", marketing the team's. The exact shape
+ * per role is salesContractFor (what the route sends through; tests/api/salesContracts.test.ts
+ * checks every role with it).
+ */
+const perAudience = <O extends z.ZodType, T extends z.ZodType>(c: SalesAudiences<O, T>) => audiences(z.union([c.owner, c.team]), c.team);
+
 export const salesRoutes = {
+  'GET /api/builds/:buildId/sales': perAudience(SalesSummary),
+  'GET /api/builds/:buildId/sales/lines': perAudience(SalesLines),
   'GET /api/builds/:buildId/sales/mapping': SalesMappingAnswer,
   'POST /api/builds/:buildId/sales/import': SalesImportReport,
 } satisfies RouteTable;

@@ -6,6 +6,10 @@
 import { describe, it, expect, beforeAll } from 'vitest';
 import { anonymous, signInAs, testApp, type DemoRole } from '../helpers/api';
 import { Build, Episode, Upgrade } from '../../server/models';
+import { everyAnswerHasAContract } from '../helpers/contract';
+
+// Every JSON answer these tests read is parsed with its route's contract (shared/contracts).
+everyAnswerHasAContract();
 
 const MISSING = 2_147_000_000;
 let ternId: number;
