@@ -10,7 +10,13 @@ import type { RemovedPartForMoney } from '../../shared/contracts/removedPart';
 import type { LabourEntry as LabourEntryRecord } from '../../shared/contracts/labour';
 import type { Expense as ExpenseRecord } from '../../shared/contracts/expense';
 import { readableChanges } from './activity';
-import { audienceOf, allow, type Audiences } from '../../shared/contracts/common';
+import { audienceOf, allow, audiences, type Audience, type Audiences } from '../../shared/contracts/common';
+import { Upgrade as UpgradeContract } from '../../shared/contracts/upgrade';
+import { Part as PartContract } from '../../shared/contracts/part';
+import { RemovedPart as RemovedPartContract } from '../../shared/contracts/removedPart';
+import { LabourEntry as LabourContract } from '../../shared/contracts/labour';
+import { Expense as ExpenseContract } from '../../shared/contracts/expense';
+import { z } from 'zod';
 
 export type Person = { id: number; name: string; roles: readonly string[] };
 /** An interface as a plain object type, so it fits Record<string, unknown> (forViewer, activity). */
@@ -149,9 +155,31 @@ export function stale(current: Record<string, unknown>, viewer: Viewer, contract
   });
 }
 
-/** Activity rows as a person may read them: money figures removed from before → after. */
+/** The record contract of each entity the backlog's history holds: its fields are the allow-list of a change. */
+const HISTORY_CONTRACTS: Record<string, Audiences> = {
+  upgrade: UpgradeContract,
+  part: PartContract,
+  removed_part: RemovedPartContract,
+  labour: audiences(LabourContract, LabourContract),
+  // Expenses are money through and through: the crew's contract names nothing of them.
+  expense: audiences(ExpenseContract, z.object({})),
+};
+const allowedKeys = (entity: string, audience: Audience): ReadonlySet<string> | null => {
+  const c = HISTORY_CONTRACTS[entity]?.[audience];
+  return c instanceof z.ZodObject ? new Set(Object.keys(c.shape)) : null;
+};
+
+/**
+ * Activity rows as a person may read them: for the backlog's records, only the changed fields the
+ * person's contract for that record names (an allow-list); for others, money figures removed.
+ */
 export function activityView(rows: Activity[], viewer: Viewer) {
   const hidden = new Set<string>([...(seesMoney(viewer) ? [] : SHOP_MONEY_FIELDS), ...(seesRetail(viewer) ? [] : RETAIL_FIELDS)]);
+  const audience = audienceOf(viewer.roles);
+  const visible = (entity: string, changes: Activity['changes']) => {
+    const allowed = allowedKeys(entity, audience);
+    return Object.fromEntries(Object.entries(changes ?? {}).filter(([k]) => (allowed ? allowed.has(k) : !hidden.has(k))));
+  };
   return rows.map((a) => ({
     id: Number(a.id),
     entity: a.entity,
@@ -161,8 +189,8 @@ export function activityView(rows: Activity[], viewer: Viewer) {
     userId: a.userId,
     userName: a.userName,
     createdAt: new Date(a.createdAt).toISOString(),
-    changes: Object.fromEntries(Object.entries(a.changes ?? {}).filter(([k]) => !hidden.has(k))),
-    readable: readableChanges(a.changes, { money: seesMoney(viewer), retail: seesRetail(viewer) }),
+    changes: visible(a.entity, a.changes),
+    readable: readableChanges(visible(a.entity, a.changes), { money: seesMoney(viewer), retail: seesRetail(viewer) }),
   }));
 }
 
