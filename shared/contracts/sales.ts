@@ -4,7 +4,7 @@
 // (salesForViewer in server/services/visibility.ts) and sends through the role's contract below, so
 // a field reaches a role only when both name it.
 import { z } from 'zod';
-import { audiences, day, idNumber, timestamp, type RouteTable } from './common';
+import { day, idNumber, timestamp, type RouteTable } from './common';
 
 const ATTRIBUTIONS = ['direct', 'assisted', 'unattributed'] as const;
 const count = z.number().int();
@@ -166,16 +166,16 @@ export const SalesImportReport = z.object({
 export type SalesImportReport = z.infer<typeof SalesImportReport>;
 
 /**
- * The route table speaks in audiences (money: owner and producer), which do not split the owner from
- * producers: money roles get "the owner's or the team's shape", marketing the team's. The exact shape
- * per role is salesContractFor (what the route sends through; tests/api/salesContracts.test.ts
- * checks every role with it).
+ * Revenue is not money in the audiences' sense (marketing reads it), and the owner's figures are not
+ * the producer's: the money/retail/crew audiences cannot say this. The route table therefore holds
+ * "the owner's or the team's shape" for every caller; the exact shape per role is salesContractFor
+ * (what the route sends through; tests/api/salesContracts.test.ts checks every role with it).
  */
-const perAudience = <O extends z.ZodType, T extends z.ZodType>(c: SalesAudiences<O, T>) => audiences(z.union([c.owner, c.team]), c.team);
+const eitherShape = <O extends z.ZodType, T extends z.ZodType>(c: SalesAudiences<O, T>) => z.union([c.owner, c.team]);
 
 export const salesRoutes = {
-  'GET /api/builds/:buildId/sales': perAudience(SalesSummary),
-  'GET /api/builds/:buildId/sales/lines': perAudience(SalesLines),
+  'GET /api/builds/:buildId/sales': eitherShape(SalesSummary),
+  'GET /api/builds/:buildId/sales/lines': eitherShape(SalesLines),
   'GET /api/builds/:buildId/sales/mapping': SalesMappingAnswer,
   'POST /api/builds/:buildId/sales/import': SalesImportReport,
 } satisfies RouteTable;
