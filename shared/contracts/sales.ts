@@ -4,7 +4,7 @@
 // (salesForViewer in server/services/visibility.ts) and sends through the role's contract below, so
 // a field reaches a role only when both name it.
 import { z } from 'zod';
-import { day, idNumber, timestamp, type RouteTable } from './common';
+import { day, ErrorAnswer, idNumber, timestamp, type RouteTable } from './common';
 
 const ATTRIBUTIONS = ['direct', 'assisted', 'unattributed'] as const;
 const count = z.number().int();
@@ -164,6 +164,9 @@ export const SalesImportReport = z.object({
   importId: idNumber.optional(),
 });
 export type SalesImportReport = z.infer<typeof SalesImportReport>;
+/** A refused file (400): the report, and beside it the error naming each problem; nothing was imported. */
+export const SalesImportRefused = SalesImportReport.extend({ error: ErrorAnswer.shape.error });
+export type SalesImportRefused = z.infer<typeof SalesImportRefused>;
 
 /**
  * Revenue is not money in the audiences' sense (marketing reads it), and the owner's figures are not
@@ -178,4 +181,5 @@ export const salesRoutes = {
   'GET /api/builds/:buildId/sales/lines': eitherShape(SalesLines),
   'GET /api/builds/:buildId/sales/mapping': SalesMappingAnswer,
   'POST /api/builds/:buildId/sales/import': SalesImportReport,
+  'POST /api/builds/:buildId/sales/import 400': SalesImportRefused,
 } satisfies RouteTable;
