@@ -89,133 +89,27 @@ export function canSeeRetail(roles: readonly string[]): boolean {
 
 // ---- Plain records as the API sends them (money fields absent for roles that may not see them) ----
 
-export interface BuildRecord {
-  id: number;
-  slug: string;
-  name: string;
-  year: number;
-  make: string;
-  model: string;
-  trim: string;
-  vin: string | null;
-  mileage: number | null;
-  budgetCents?: number | null;
-  labourRateCents?: number | null;
-  shopHoursPerWeek: number;
-  shootHoursPerEpisode: number;
-  releaseCadenceDays: number;
-  startDate: string;
-  isPublic: boolean;
-  campaign: string | null;
-  summary: string | null;
-  /** IANA zone of the shop: "today" and default dates of this build. */
-  timeZone: string;
-  /** When a part's cost becomes actual cost (shared/costRecognition.ts). */
-  costRecognition: 'fitting' | 'receipt';
-  /** ISO 4217 code the build's store sells in (sales imports accept only this one). */
-  currency: string;
-  /** Days after an episode's release in which an untagged sale of a part it showed counts as assisted. */
-  attributionWindowDays: number;
-  version: number;
-}
+// The build and backlog records are defined once, as contracts (shared/contracts/): these names
+// are the record as a screen holds it (money fields present only for roles that may see them).
+import type { BuildSeen } from './contracts/build';
+import type { UpgradeSeen } from './contracts/upgrade';
+import type { PartSeen } from './contracts/part';
+import type { RemovedPartSeen } from './contracts/removedPart';
+import type { LabourEntry } from './contracts/labour';
+import type { Expense } from './contracts/expense';
+export type BuildRecord = BuildSeen;
+export type UpgradeRecord = UpgradeSeen;
+export type PartRecord = PartSeen;
+export type RemovedPartRecord = RemovedPartSeen;
+export type LabourEntryRecord = LabourEntry;
+export type ExpenseRecord = Expense;
 
-export interface UpgradeRecord {
-  id: number;
-  buildId: number;
-  title: string;
-  replaces: string | null;
-  becomes: string | null;
-  area: Area;
-  estimatedHours: number;
-  valueAddedCents?: number;
-  priority: number;
-  safetyFlags: SafetyFlag[];
-  installState: InstallState;
-  installSegment: SegmentState;
-  demoSegment: SegmentState;
-  episodeId: number | null;
-  episodePosition: number | null;
-  notes: string | null;
-  tireFrom: string | null;
-  tireTo: string | null;
-  prerequisiteIds: number[];
-  version: number;
-}
-
-export interface PartRecord {
-  id: number;
-  buildId: number;
-  upgradeId: number;
-  partNumber: string;
-  description: string;
-  quantity: number;
-  unitCostCents?: number;
-  retailPriceCents?: number | null;
-  supplier: string | null;
-  condition: PartCondition;
-  productUrl: string | null;
-  expectedArrival: string | null;
-  state: PartState;
-  /** The store's code for this part when it differs from the part number. */
-  storeSku?: string | null;
-}
-
-export interface RemovedPartRecord {
-  id: number;
-  buildId: number;
-  upgradeId: number | null;
-  description: string;
-  partNumber: string | null;
-  disposition: Disposition;
-  expectedSaleCents?: number | null;
-  actualSaleCents?: number | null;
-  soldOn: string | null;
-}
-
-export interface LabourEntryRecord {
-  id: number;
-  buildId: number;
-  upgradeId: number;
-  userId: number | null;
-  personName: string;
-  workedOn: string;
-  hours: number;
-  kind: LabourKind;
-  note: string | null;
-}
-
-export interface ExpenseRecord {
-  id: number;
-  buildId: number;
-  upgradeId: number | null;
-  description: string;
-  amountCents?: number;
-  spentOn: string;
-  category: string | null;
-}
-
-export interface EpisodeRecord {
-  id: number;
-  buildId: number;
-  number: number;
-  title: string;
-  summary: string | null;
-  state: EpisodeState;
-  shootDate: string | null;
-  releaseDate: string | null;
-  videoUrl: string | null;
-  runtimeSeconds: number | null;
-  publishedAt: string | null;
-  upgradeIds: number[];
-  version: number;
-}
-
-export interface ChapterRecord {
-  id?: number;
-  startSeconds: number;
-  title: string;
-  upgradeId: number | null;
-}
+// Episodes and chapters are defined once, as contracts (shared/contracts/episode.ts, publishing.ts).
+import type { Episode } from './contracts/episode';
+import type { Chapter } from './contracts/publishing';
+export type EpisodeRecord = Episode;
+/** A chapter as the server sends it, or as a form holds it before it has an id. */
+export type ChapterRecord = Omit<Chapter, 'id'> & { id?: number };
 
 /** An upgrade is done when it is installed and both of its segments are shot. */
 export function isUpgradeDone(u: Pick<UpgradeRecord, 'installState' | 'installSegment' | 'demoSegment'>): boolean {

@@ -363,45 +363,5 @@ export function salesFigures(input: AttributionInput & { netCostCents: number; n
   };
 }
 
-/** One order line as the API sends it (marginCents only to the owner). */
-export interface SalesLineRecord {
-  id: number;
-  orderId: string;
-  lineId: string | null;
-  soldOn: string;
-  sku: string;
-  quantity: number;
-  revenueCents: number;
-  marginCents?: number | null;
-  campaign: string | null;
-  content: string | null;
-  attribution: Attribution;
-  episodeId: number | null;
-  reason: string | null;
-  refund: boolean;
-}
-
-export interface SalesImportRecord {
-  id: number;
-  fileName: string | null;
-  linesRead: number;
-  linesAdded: number;
-  linesSkipped: number;
-  createdAt: string;
-}
-
-/**
- * GET /api/builds/:buildId/sales. Fields marked optional are the owner's only (margin, net cost,
- * return, payback): other roles receive the object without them.
- */
-export interface SalesSummary {
-  build: { id: number; currency: string; campaignTag: string; attributionWindowDays: number };
-  asOf: string;
-  linesTotal: number;
-  series: Omit<SeriesSales, 'marginCents' | 'netCostCents' | 'returnOnBuild' | 'paybackDate' | 'marginNeededCents'> & Partial<Pick<SeriesSales, 'marginCents' | 'netCostCents' | 'returnOnBuild' | 'paybackDate' | 'marginNeededCents'>>;
-  episodes: EpisodeSales[];
-  upgrades: UpgradeSales[];
-  payback?: Payback;
-  unattributed: { total: number; lines: SalesLineRecord[] };
-  imports: SalesImportRecord[];
-}
+// The answers built from these figures (the Sales screen's summary, its line pages) are contracts:
+// shared/contracts/sales.ts, one shape per role.

@@ -1,7 +1,6 @@
 // Mail wiring: the 'mail' health check. The local fake SMTP runs in a process of its own
 // (scripts/start.mjs sets SMTP_URL to it), never inside the server.
-// eslint-disable-next-line import-x/no-restricted-paths -- issue 13: the health-check registry belongs outside routes/
-import { registerHealthCheck } from '../routes/health';
+import { registerHealthCheck } from '../health';
 import { mailTransport } from './transport';
 
 export { enqueueMail, type OutgoingMail } from './outbox';

@@ -1,19 +1,13 @@
 // Validates body, query or params with a zod schema from shared/; answers 400 naming each field
 // in words and saying what is expected (the shared error map words every issue).
 import type { RequestHandler } from 'express';
-import type { ZodError, ZodType } from 'zod';
+import type { ZodType } from 'zod';
 import { AppError, type FieldError } from '../errors';
-import { fieldLabel, RAW_SCHEMA_TEXT } from '../../shared/schemas/errorMap';
+import { fieldLabel } from '../../shared/schemas/errorMap';
+import { zodFields } from '../zodFields';
 
-export function zodFields(err: ZodError): FieldError[] {
-  return err.issues.map((i) => {
-    const path = i.path.join('.');
-    const keys = i.code === 'unrecognized_keys' ? ((i as { keys?: string[] }).keys ?? []) : [];
-    // Belt and braces: a message zod wrote itself never reaches a person.
-    const message = RAW_SCHEMA_TEXT.test(i.message) ? 'is not valid' : i.message;
-    return { path: path || keys.join(', ') || '(body)', message, label: keys.length && !path ? 'This form' : fieldLabel(i.path) };
-  });
-}
+// zodFields lives beside the errors so services can word a check of their own the same way.
+export { zodFields };
 
 const labelOf = (f: FieldError) => f.label ?? fieldLabel(f.path.split('.').map((p) => (/^\d+$/.test(p) ? Number(p) : p)));
 

@@ -9,6 +9,9 @@ import { accountSignInLimiter, signIn, verifyPassword, SESSION_COOKIE } from '..
 import { loginSchema, changePasswordSchema } from '../../shared/schemas/auth';
 import { AppError } from '../errors';
 import { changeOwnPassword } from '../services/users';
+import { SessionAnswer, type SessionUser } from '../../shared/contracts/auth';
+import { OkAnswer } from '../../shared/contracts/common';
+import { send } from './send';
 
 export function authRouter() {
   const router = Router();
@@ -40,7 +43,7 @@ export function authRouter() {
     // One answer for an unknown e-mail and a wrong password.
     if (!user) throw new AppError(401, 'bad_credentials', 'That e-mail and password do not match an active account.');
     await signIn(req, user.toPublic() as Express.User);
-    res.json({ user: user.toPublic() });
+    send(res, SessionAnswer, { user: user.toPublic() });
   });
 
   router.post('/logout', (req, res, next) => {
@@ -48,18 +51,18 @@ export function authRouter() {
       if (err) return next(err);
       req.session.destroy(() => {
         res.clearCookie(SESSION_COOKIE);
-        res.json({ ok: true });
+        send(res, OkAnswer, { ok: true });
       });
     });
   });
 
   router.get('/me', requireSignedIn, (req, res) => {
-    res.json({ user: req.user });
+    send(res, SessionAnswer, { user: req.user as SessionUser });
   });
 
   router.post('/password', requireSignedIn, validate(changePasswordSchema), async (req, res) => {
     await changeOwnPassword(req.user!, req.body.currentPassword, req.body.newPassword, req.sessionID);
-    res.json({ ok: true });
+    send(res, OkAnswer, { ok: true });
   });
 
   return router;

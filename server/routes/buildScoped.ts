@@ -32,8 +32,6 @@ export function recordInBuild(model: BuildScopedModel, param: string, label: str
     next(n ? undefined : notFound(label));
   };
 }
-/** The former name of recordInBuild (routes/upgrades.ts exported it). */
-export const inBuild = recordInBuild;
 
 export interface ScopedRoute {
   /** Who may call it: roles (the owner always may), or any signed-in person. */
@@ -60,11 +58,11 @@ export function scopedChain(spec: ScopedRoute): RequestHandler[] {
 export interface BuildScopedRouter {
   /** The Express router to mount under /api/builds/:buildId/<resource>. */
   router: Router;
-  get: (path: string, spec: ScopedRoute, handler: RequestHandler) => BuildScopedRouter;
-  post: (path: string, spec: ScopedRoute, handler: RequestHandler) => BuildScopedRouter;
-  put: (path: string, spec: ScopedRoute, handler: RequestHandler) => BuildScopedRouter;
-  patch: (path: string, spec: ScopedRoute, handler: RequestHandler) => BuildScopedRouter;
-  delete: (path: string, spec: ScopedRoute, handler: RequestHandler) => BuildScopedRouter;
+  get: (path: string, spec: ScopedRoute, ...handlers: RequestHandler[]) => BuildScopedRouter;
+  post: (path: string, spec: ScopedRoute, ...handlers: RequestHandler[]) => BuildScopedRouter;
+  put: (path: string, spec: ScopedRoute, ...handlers: RequestHandler[]) => BuildScopedRouter;
+  patch: (path: string, spec: ScopedRoute, ...handlers: RequestHandler[]) => BuildScopedRouter;
+  delete: (path: string, spec: ScopedRoute, ...handlers: RequestHandler[]) => BuildScopedRouter;
 }
 
 /**
@@ -73,8 +71,9 @@ export interface BuildScopedRouter {
  */
 export function buildScopedRouter(): BuildScopedRouter {
   const router = Router({ mergeParams: true });
-  const add = (method: Method) => (path: string, spec: ScopedRoute, handler: RequestHandler) => {
-    router[method](path, ...scopedChain(spec), handler);
+  // The handlers run after the fixed chain (an upload's body parser, then the handler).
+  const add = (method: Method) => (path: string, spec: ScopedRoute, ...handlers: RequestHandler[]) => {
+    router[method](path, ...scopedChain(spec), ...handlers);
     return scoped;
   };
   const scoped: BuildScopedRouter = { router, get: add('get'), post: add('post'), put: add('put'), patch: add('patch'), delete: add('delete') };

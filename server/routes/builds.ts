@@ -1,28 +1,31 @@
-// Builds: the list everyone signed in may see, and settings the owner and producer manage.
+// Builds: the list everyone signed in may see, and settings the owner and producer manage. The
+// routes of one build run the build-scoped order (routes/buildScoped.ts): role, build, validation.
 import { Router } from 'express';
 import { requireRole, requireSignedIn } from '../middleware/roles';
 import { validate } from '../middleware/validate';
-import { buildOf, loadBuild } from '../middleware/build';
+import { buildOf } from '../middleware/build';
 import { createBuildSchema, updateBuildSchema } from '../../shared/schemas/build';
-import { forViewer } from '../services/visibility';
+import { BuildAnswer, BuildList } from '../../shared/contracts/build';
+import { scopedChain } from './buildScoped';
+import { sendFor } from './send';
 import * as builds from '../services/builds';
 
 export function buildsRouter() {
   const router = Router();
 
   router.get('/', requireSignedIn, async (req, res) => {
-    res.json({ builds: await builds.listBuilds(req.user!) });
+    sendFor(req, res, BuildList, { builds: await builds.listBuilds(req.user!) });
   });
   router.post('/', requireRole('producer'), validate(createBuildSchema), async (req, res) => {
-    res.status(201).json({ build: forViewer(await builds.createBuild(req.user!, req.body), req.user) });
+    sendFor(req, res, BuildAnswer, { build: await builds.createBuild(req.user!, req.body) }, 201);
   });
-  router.get('/:buildId', requireSignedIn, loadBuild, async (req, res) => {
-    res.json({ build: forViewer(builds.toBuildRecord(buildOf(req)), req.user) });
+  router.get('/:buildId', ...scopedChain({ roles: 'signed-in' }), async (req, res) => {
+    sendFor(req, res, BuildAnswer, { build: builds.toBuildRecord(buildOf(req)) });
   });
-  router.patch('/:buildId', requireRole('producer'), loadBuild, validate(updateBuildSchema), async (req, res) => {
-    res.json({ build: forViewer(await builds.updateBuild(req.user!, buildOf(req).id, req.body), req.user) });
+  router.patch('/:buildId', ...scopedChain({ roles: ['producer'], body: updateBuildSchema }), async (req, res) => {
+    sendFor(req, res, BuildAnswer, { build: await builds.updateBuild(req.user!, buildOf(req).id, req.body) });
   });
-  router.delete('/:buildId', requireRole('owner'), loadBuild, async (req, res) => {
+  router.delete('/:buildId', ...scopedChain({ roles: ['owner'] }), async (req, res) => {
     await builds.deleteBuild(req.user!, buildOf(req).id);
     res.status(204).end();
   });

@@ -1,9 +1,11 @@
 // The shoot and release calendar: a public feed at a secret URL, and its address for the producer.
 import { Router } from 'express';
 import { z } from 'zod';
-import { requireRole } from '../middleware/roles';
-import { buildOf, loadBuild } from '../middleware/build';
+import { buildOf } from '../middleware/build';
+import { buildScopedRouter } from './buildScoped';
 import * as calendar from '../services/calendar';
+import { send } from './send';
+import { CalendarAddress } from '../../shared/contracts/calendar';
 
 /** GET /api/calendar/:token.ics — no sign-in: calendar apps fetch it on their own. */
 export function calendarFeedRouter() {
@@ -20,12 +22,11 @@ export function calendarFeedRouter() {
 
 /** /api/builds/:buildId/calendar — the subscribe URL and rotating it (owner, producer). */
 export function buildCalendarRouter() {
-  const router = Router({ mergeParams: true });
-  router.get('/', requireRole('producer'), loadBuild, async (req, res) => {
-    res.json(await calendar.calendarInfo(buildOf(req)));
-  });
-  router.post('/rotate', requireRole('producer'), loadBuild, async (req, res) => {
-    res.json(await calendar.rotateCalendar(req.user!, buildOf(req)));
-  });
-  return router;
+  return buildScopedRouter()
+    .get('/', { roles: ['producer'] }, async (req, res) => {
+      send(res, CalendarAddress, await calendar.calendarInfo(buildOf(req)));
+    })
+    .post('/rotate', { roles: ['producer'] }, async (req, res) => {
+      send(res, CalendarAddress, await calendar.rotateCalendar(req.user!, buildOf(req)));
+    }).router;
 }

@@ -1,33 +1,31 @@
 // Episodes of a build: list (any role), create / change / delete (producer; installer may move the state forward).
-import { Router, type RequestHandler } from 'express';
-import { requireRole, ANY_ROLE } from '../middleware/roles';
-import { buildOf, loadBuild } from '../middleware/build';
-import { validate } from '../middleware/validate';
-import { createEpisodeSchema, episodeParams, updateEpisodeSchema } from '../../shared/schemas/episode';
+import type { Request } from 'express';
+import { ANY_ROLE } from '../middleware/roles';
+import { buildOf } from '../middleware/build';
+import { buildScopedRouter, recordInBuild } from './buildScoped';
+import { createEpisodeSchema, updateEpisodeSchema } from '../../shared/schemas/episode';
 import * as episodes from '../services/episodes';
 import { Episode } from '../models';
-import { notFound } from '../errors';
+import { send } from './send';
+import { EpisodeAnswer, EpisodeList } from '../../shared/contracts/episode';
 
 /** Another build's episode named through this build's path is 404, before the body is even read. */
-const episodeInBuild: RequestHandler = async (req, _res, next) => {
-  const found = await Episode.count({ where: { id: Number(req.params.episodeId), buildId: buildOf(req).id } });
-  next(found ? undefined : notFound('Episode'));
-};
+const episodeInBuild = recordInBuild(Episode, 'episodeId', 'Episode');
+const episodeId = (req: Request) => Number(req.params.episodeId);
 
 export function episodesRouter() {
-  const router = Router({ mergeParams: true });
-  router.get('/', requireRole(...ANY_ROLE), loadBuild, async (req, res) => {
-    res.json({ episodes: await episodes.listEpisodes(buildOf(req).id) });
-  });
-  router.post('/', requireRole('producer'), loadBuild, validate(createEpisodeSchema), async (req, res) => {
-    res.status(201).json({ episode: await episodes.createEpisode(req.user!, buildOf(req), req.body) });
-  });
-  router.patch('/:episodeId', requireRole('producer', 'installer'), loadBuild, validate(episodeParams, 'params'), episodeInBuild, validate(updateEpisodeSchema), async (req, res) => {
-    res.json({ episode: await episodes.updateEpisode(req.user!, buildOf(req), Number(req.params.episodeId), req.body) });
-  });
-  router.delete('/:episodeId', requireRole('producer'), loadBuild, validate(episodeParams, 'params'), async (req, res) => {
-    await episodes.deleteEpisode(req.user!, buildOf(req), Number(req.params.episodeId));
-    res.status(204).end();
-  });
-  return router;
+  return buildScopedRouter()
+    .get('/', { roles: ANY_ROLE }, async (req, res) => {
+      send(res, EpisodeList, { episodes: await episodes.listEpisodes(buildOf(req).id) });
+    })
+    .post('/', { roles: ['producer'], body: createEpisodeSchema }, async (req, res) => {
+      send(res, EpisodeAnswer, { episode: await episodes.createEpisode(req.user!, buildOf(req), req.body) }, 201);
+    })
+    .patch('/:episodeId', { roles: ['producer', 'installer'], record: episodeInBuild, body: updateEpisodeSchema }, async (req, res) => {
+      send(res, EpisodeAnswer, { episode: await episodes.updateEpisode(req.user!, buildOf(req), episodeId(req), req.body) });
+    })
+    .delete('/:episodeId', { roles: ['producer'], record: episodeInBuild }, async (req, res) => {
+      await episodes.deleteEpisode(req.user!, buildOf(req), episodeId(req));
+      res.status(204).end();
+    }).router;
 }

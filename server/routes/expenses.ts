@@ -6,7 +6,8 @@ import { buildScopedRouter, recordInBuild } from './buildScoped';
 import { Expense } from '../models';
 import { upgradeFilterQuery } from '../../shared/schemas/removedPart';
 import { createExpenseSchema, updateExpenseSchema } from '../../shared/schemas/expense';
-import { forViewer } from '../services/visibility';
+import { ExpenseAnswer, ExpenseList } from '../../shared/contracts/expense';
+import { send } from './send';
 import * as service from '../services/expenses';
 
 const expenseInBuild = recordInBuild(Expense, 'expenseId', 'Expense');
@@ -16,13 +17,13 @@ export function expensesRouter() {
   return buildScopedRouter()
     .get('/', { roles: ['producer'], query: upgradeFilterQuery }, async (req, res) => {
       const list = await service.listExpenses(buildOf(req), validQuery(req));
-      res.json({ expenses: list.map((r) => forViewer(r, req.user)) });
+      send(res, ExpenseList, { expenses: list });
     })
     .post('/', { roles: ['producer'], body: createExpenseSchema }, async (req, res) => {
-      res.status(201).json({ expense: forViewer(await service.createExpense(req.user!, buildOf(req), req.body), req.user) });
+      send(res, ExpenseAnswer, { expense: await service.createExpense(req.user!, buildOf(req), req.body) }, 201);
     })
     .patch('/:expenseId', { roles: ['producer'], record: expenseInBuild, body: updateExpenseSchema }, async (req, res) => {
-      res.json({ expense: forViewer(await service.updateExpense(req.user!, buildOf(req), recordId(req), req.body), req.user) });
+      send(res, ExpenseAnswer, { expense: await service.updateExpense(req.user!, buildOf(req), recordId(req), req.body) });
     })
     .delete('/:expenseId', { roles: ['producer'], record: expenseInBuild }, async (req, res) => {
       await service.deleteExpense(req.user!, buildOf(req), recordId(req));

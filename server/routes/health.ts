@@ -6,14 +6,9 @@ import { sequelize } from '../models';
 import { config } from '../config';
 import { DEMO_EMAILS } from '../db/demoAccounts';
 import { countFailedMails } from '../mail/outbox';
-
-type Check = () => Promise<boolean>;
-const checks = new Map<string, Check>();
-
-/** Adapters call this at start-up so /api/health/ready reports them. */
-export function registerHealthCheck(name: string, check: Check) {
-  checks.set(name, check);
-}
+import { healthChecks, type HealthCheck as Check } from '../health';
+import { send } from './send';
+import { DemoAccounts, HealthDiagnostic, Live, Ready } from '../../shared/contracts/health';
 
 async function safe(check: Check, ms: number): Promise<boolean> {
   let timer: NodeJS.Timeout | undefined;
@@ -39,6 +34,7 @@ let last: { at: number; result: Promise<Readiness> } | null = null;
 
 async function runChecks(): Promise<Readiness> {
   const ms = config().READY_CHECK_TIMEOUT_MS;
+  const checks = healthChecks();
   const names = ['db', ...checks.keys()];
   const [results, failedMails] = await Promise.all([
     Promise.all([safe(async () => (await sequelize.query('SELECT 1')) !== null, ms), ...[...checks.values()].map((c) => safe(c, ms))]),
@@ -59,12 +55,12 @@ export function readiness(): Promise<Readiness> {
 export function healthProbesRouter() {
   const router = Router();
   router.get('/live', (_req, res) => {
-    res.json({ ok: true });
+    send(res, Live, { ok: true });
   });
   router.get('/ready', async (_req, res) => {
     const { checks: each, ...r } = await readiness();
     const ok = r.ok && !draining;
-    res.status(ok ? 200 : 503).json({ ...each, ...r, ok, ...(draining ? { stopping: true } : {}) });
+    send(res, Ready, { ...each, ...r, ok, ...(draining ? { stopping: true as const } : {}) }, ok ? 200 : 503);
   });
   return router;
 }
@@ -74,12 +70,12 @@ export function healthRouter() {
   // The diagnostic answer: every check run now (point load balancers at /live and /ready instead).
   router.get('/', async (_req, res) => {
     const { checks: each, ok, db } = await runChecks();
-    res.status(db ? 200 : 503).json({ ok, ...each });
+    send(res, HealthDiagnostic, { ok, ...each }, db ? 200 : 503);
   });
   // The sign-in page lists the demo accounts, in demo mode only; otherwise there is no such route.
   router.get('/demo', (_req, res, next) => {
     if (!config().BAYSLATE_DEMO) return next();
-    res.json({ demo: true, accounts: DEMO_EMAILS, password: 'bayslate-demo' });
+    send(res, DemoAccounts, { demo: true, accounts: [...DEMO_EMAILS], password: 'bayslate-demo' });
   });
   return router;
 }

@@ -9,6 +9,9 @@ import { AppError } from '../errors';
 import { validate } from '../middleware/validate';
 import { resetPasswordSchema } from '../../shared/schemas/auth';
 import { acceptInvitation, readInvitation } from '../services/invitations';
+import { InvitationWho } from '../../shared/contracts/auth';
+import { OkAnswer } from '../../shared/contracts/common';
+import { send } from './send';
 
 const token = z.object({ token: z.string().regex(/^[A-Za-z0-9_-]{20,200}$/, 'is not a link of ours') });
 
@@ -23,10 +26,10 @@ export function invitationsRouter() {
     handler: (_req, _res, next) => next(new AppError(429, 'rate_limited', 'Too many attempts. Wait a few minutes and try again.')),
   });
   router.get('/:token', limiter, validate(token, 'params'), async (req, res) => {
-    res.json(await readInvitation(String(req.params.token)));
+    send(res, InvitationWho, await readInvitation(String(req.params.token)));
   });
   router.post('/:token', limiter, validate(token, 'params'), validate(resetPasswordSchema), async (req, res) => {
-    res.json(await acceptInvitation(String(req.params.token), req.body.password));
+    send(res, OkAnswer, await acceptInvitation(String(req.params.token), req.body.password));
   });
   return router;
 }

@@ -7,7 +7,8 @@ import { buildScopedRouter, recordInBuild } from './buildScoped';
 import { LabourEntry } from '../models';
 import { upgradeFilterQuery } from '../../shared/schemas/removedPart';
 import { createLabourSchema, updateLabourSchema } from '../../shared/schemas/labour';
-import { forViewer } from '../services/visibility';
+import { LabourAnswer, LabourList } from '../../shared/contracts/labour';
+import { send } from './send';
 import * as service from '../services/labour';
 
 const labourInBuild = recordInBuild(LabourEntry, 'labourId', 'Labour entry');
@@ -17,13 +18,13 @@ export function labourRouter() {
   return buildScopedRouter()
     .get('/', { roles: ANY_ROLE, query: upgradeFilterQuery }, async (req, res) => {
       const list = await service.listLabour(buildOf(req), validQuery(req));
-      res.json({ labour: list.map((r) => forViewer(r, req.user)) });
+      send(res, LabourList, { labour: list });
     })
     .post('/', { roles: ['producer', 'installer'], body: createLabourSchema }, async (req, res) => {
-      res.status(201).json({ labourEntry: forViewer(await service.createLabour(req.user!, buildOf(req), req.body), req.user) });
+      send(res, LabourAnswer, { labourEntry: await service.createLabour(req.user!, buildOf(req), req.body) }, 201);
     })
     .patch('/:labourId', { roles: ['producer', 'installer'], record: labourInBuild, body: updateLabourSchema }, async (req, res) => {
-      res.json({ labourEntry: forViewer(await service.updateLabour(req.user!, buildOf(req), recordId(req), req.body), req.user) });
+      send(res, LabourAnswer, { labourEntry: await service.updateLabour(req.user!, buildOf(req), recordId(req), req.body) });
     })
     .delete('/:labourId', { roles: ['producer', 'installer'], record: labourInBuild }, async (req, res) => {
       await service.deleteLabour(req.user!, buildOf(req), recordId(req));

@@ -1,33 +1,28 @@
 // Product links of a build: parts shown in episodes that lack a product page, and the campaign
 // name their links are tagged with (mounted at /api/builds/:buildId/link-health and …/campaign).
-import { Router } from 'express';
-import { z } from 'zod';
-import { loadBuild, buildOf } from '../middleware/build';
-import { requireRole } from '../middleware/roles';
-import { validate } from '../middleware/validate';
-import { id } from '../../shared/schemas/common';
+import { buildOf } from '../middleware/build';
+import { buildScopedRouter } from './buildScoped';
 import { campaignSchema } from '../../shared/schemas/publishing';
 import * as publishing from '../services/publishing';
+import { send } from './send';
+import { Campaign, LinkHealth } from '../../shared/contracts/publishing';
 
-const params = z.object({ buildId: id });
+const ROLES = ['marketing', 'producer'] as const;
 
 export function linkHealthRouter() {
-  const router = Router({ mergeParams: true });
-  router.get('/', requireRole('marketing', 'producer'), validate(params, 'params'), loadBuild, async (req, res) => {
-    res.json(await publishing.linkHealth(buildOf(req).id));
-  });
-  return router;
+  return buildScopedRouter().get('/', { roles: ROLES }, async (req, res) => {
+    send(res, LinkHealth, await publishing.linkHealth(buildOf(req).id));
+  }).router;
 }
 
 export function campaignRouter() {
-  const router = Router({ mergeParams: true });
-  router.get('/', requireRole('marketing', 'producer'), validate(params, 'params'), loadBuild, async (req, res) => {
-    const b = buildOf(req);
-    res.json({ campaign: b.campaign, effective: publishing.effectiveCampaign(b), publicPageUrl: publishing.publicPageUrl(b) });
-  });
-  router.put('/', requireRole('marketing', 'producer'), validate(params, 'params'), loadBuild, validate(campaignSchema), async (req, res) => {
-    const b = buildOf(req);
-    res.json({ ...(await publishing.setCampaign(req.user!, b, req.body.campaign)), publicPageUrl: publishing.publicPageUrl(b) });
-  });
-  return router;
+  return buildScopedRouter()
+    .get('/', { roles: ROLES }, async (req, res) => {
+      const b = buildOf(req);
+      send(res, Campaign, { campaign: b.campaign, effective: publishing.effectiveCampaign(b), publicPageUrl: publishing.publicPageUrl(b) });
+    })
+    .put('/', { roles: ROLES, body: campaignSchema }, async (req, res) => {
+      const b = buildOf(req);
+      send(res, Campaign, { ...(await publishing.setCampaign(req.user!, b, req.body.campaign)), publicPageUrl: publishing.publicPageUrl(b) });
+    }).router;
 }

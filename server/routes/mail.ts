@@ -9,12 +9,15 @@ import { AppError } from '../errors';
 import { listFailedMails, resendMail } from '../mail/outbox';
 import { record } from '../services/activity';
 import { sequelize } from '../models';
+import { FailedMailList } from '../../shared/contracts/mail';
+import { OkAnswer } from '../../shared/contracts/common';
+import { send } from './send';
 
 export function mailRouter() {
   const router = Router();
   router.use(requireRole('owner'));
   router.get('/failed', async (_req, res) => {
-    res.json({ mails: await listFailedMails() });
+    send(res, FailedMailList, { mails: await listFailedMails() });
   });
   router.post('/:mailId/resend', validate(z.object({ mailId: id }), 'params'), async (req, res) => {
     const mailId = Number(req.params.mailId);
@@ -22,7 +25,7 @@ export function mailRouter() {
       if (!(await resendMail(mailId, t))) throw new AppError(404, 'not_found', 'No failed mail with this number (it may have been sent again already).');
       await record(t, { actor: req.user!, buildId: null, entity: 'mail', entityId: mailId, action: 'resend', summary: `Queued failed mail ${mailId} again`, changes: {} });
     });
-    res.json({ ok: true });
+    send(res, OkAnswer, { ok: true });
   });
   return router;
 }

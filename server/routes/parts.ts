@@ -7,7 +7,8 @@ import { validQuery } from '../middleware/validate';
 import { buildScopedRouter, recordInBuild } from './buildScoped';
 import { Part } from '../models';
 import { createPartSchema, partListQuery, updatePartSchema } from '../../shared/schemas/part';
-import { forViewer } from '../services/visibility';
+import { PartAnswer, PartPage } from '../../shared/contracts/part';
+import { sendFor } from './send';
 import * as parts from '../services/parts';
 import { importPartsCsv } from '../services/csv/parts';
 import { csvBody, sendImportResult } from './csvHttp';
@@ -19,17 +20,17 @@ const partId = (req: Request) => Number(req.params.partId);
 export function partsRouter() {
   return buildScopedRouter()
     .get('/', { roles: ANY_ROLE, query: partListQuery }, async (req, res) => {
-      res.json(await parts.listParts(buildOf(req), validQuery(req), req.user!));
+      sendFor(req, res, PartPage, await parts.listParts(buildOf(req), validQuery(req)));
     })
     .post('/', { roles: ['producer'], body: createPartSchema }, async (req, res) => {
-      res.status(201).json({ part: forViewer(await parts.createPart(req.user!, buildOf(req), req.body), req.user) });
+      sendFor(req, res, PartAnswer, { part: await parts.createPart(req.user!, buildOf(req), req.body) }, 201);
     })
     .post('/import', { roles: ['producer'], query: importQuery }, async (req, res) => {
       const dryRun = ['1', 'true'].includes(validQuery<{ dryRun?: string }>(req).dryRun ?? '');
       sendImportResult(res, await importPartsCsv(req.user!, buildOf(req), csvBody(req), dryRun));
     })
     .patch('/:partId', { roles: ['producer', 'marketing', 'installer'], record: partInBuild, body: updatePartSchema }, async (req, res) => {
-      res.json({ part: forViewer(await parts.updatePart(req.user!, buildOf(req), partId(req), req.body), req.user) });
+      sendFor(req, res, PartAnswer, { part: await parts.updatePart(req.user!, buildOf(req), partId(req), req.body) });
     })
     .delete('/:partId', { roles: ['producer'], record: partInBuild }, async (req, res) => {
       await parts.deletePart(req.user!, buildOf(req), partId(req));

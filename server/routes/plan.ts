@@ -1,31 +1,32 @@
 // The episode plan: the planner screen's data, check, proposal and apply (producer and owner).
-import { Router } from 'express';
-import { requireRole } from '../middleware/roles';
-import { buildOf, loadBuild } from '../middleware/build';
-import { validate } from '../middleware/validate';
+import { buildOf } from '../middleware/build';
+import { buildScopedRouter } from './buildScoped';
 import { planSchema, proposalSchema, undoPlanSchema } from '../../shared/schemas/episode';
 import { listRevisions } from '../services/planRevisions';
 import * as plan from '../services/plan';
+import { send } from './send';
+import { PlanApplied, PlanCheck, PlanOverview, PlanRevisions, PlanUndone, ProposalAnswer } from '../../shared/contracts/plan';
+
+const producer = { roles: ['producer'] } as const;
 
 export function planRouter() {
-  const router = Router({ mergeParams: true });
-  router.get('/', requireRole('producer'), loadBuild, async (req, res) => {
-    res.json(await plan.planOverview(buildOf(req)));
-  });
-  router.get('/check', requireRole('producer'), loadBuild, async (req, res) => {
-    res.json({ violations: await plan.checkPlan(buildOf(req)) });
-  });
-  router.post('/proposal', requireRole('producer'), loadBuild, validate(proposalSchema), async (req, res) => {
-    res.json(await plan.propose(buildOf(req), req.body));
-  });
-  router.put('/', requireRole('producer'), loadBuild, validate(planSchema), async (req, res) => {
-    res.json(await plan.applyPlan(req.user!, buildOf(req), req.body));
-  });
-  router.get('/revisions', requireRole('producer'), loadBuild, async (req, res) => {
-    res.json({ revisions: await listRevisions(buildOf(req).id) });
-  });
-  router.post('/undo', requireRole('producer'), loadBuild, validate(undoPlanSchema), async (req, res) => {
-    res.json(await plan.undoLastPlanChange(req.user!, buildOf(req), req.body.basedOn));
-  });
-  return router;
+  return buildScopedRouter()
+    .get('/', producer, async (req, res) => {
+      send(res, PlanOverview, await plan.planOverview(buildOf(req)));
+    })
+    .get('/check', producer, async (req, res) => {
+      send(res, PlanCheck, { violations: await plan.checkPlan(buildOf(req)) });
+    })
+    .post('/proposal', { ...producer, body: proposalSchema }, async (req, res) => {
+      send(res, ProposalAnswer, await plan.propose(buildOf(req), req.body));
+    })
+    .put('/', { ...producer, body: planSchema }, async (req, res) => {
+      send(res, PlanApplied, await plan.applyPlan(req.user!, buildOf(req), req.body));
+    })
+    .get('/revisions', producer, async (req, res) => {
+      send(res, PlanRevisions, { revisions: await listRevisions(buildOf(req).id) });
+    })
+    .post('/undo', { ...producer, body: undoPlanSchema }, async (req, res) => {
+      send(res, PlanUndone, await plan.undoLastPlanChange(req.user!, buildOf(req), req.body.basedOn));
+    }).router;
 }

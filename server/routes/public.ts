@@ -13,6 +13,8 @@ import { publicBuildAnswer } from '../services/publicBuild';
 import { cachedPublic, type PublicEntry } from '../services/publicBuildCache';
 import * as votes from '../services/viewerVotes';
 import { emailHash } from '../services/viewerPrivacy';
+import { Accepted, Confirmed } from '../../shared/contracts/public';
+import { send } from './send';
 
 const slug = z.object({ slug: z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'is not a build address').max(60) });
 const token = z.object({ token: z.string().regex(/^[A-Za-z0-9_.-]{20,200}$/, 'is not a link of ours') });
@@ -70,16 +72,16 @@ export function publicRouter() {
     sendPublic(req, res, entry, hit);
   });
   router.post('/builds/:slug/requests', perAddress, validate(slug, 'params'), validate(publicRequestSchema), perEmail, async (req, res) => {
-    res.status(202).json(await votes.createRequest(String(req.params.slug), req.body));
+    send(res, Accepted, await votes.createRequest(String(req.params.slug), req.body), 202);
   });
   router.post('/builds/:slug/requests/:requestId/votes', perAddress, validate(slug.extend({ requestId: id }), 'params'), validate(publicVoteSchema), perEmail, async (req, res) => {
-    res.status(202).json(await votes.addVote(String(req.params.slug), Number(req.params.requestId), req.body));
+    send(res, Accepted, await votes.addVote(String(req.params.slug), Number(req.params.requestId), req.body), 202);
   });
   router.get('/confirm/:token', readPerAddress, validate(token, 'params'), async (req, res) => {
-    res.json(await votes.confirmVote(String(req.params.token)));
+    send(res, Confirmed, await votes.confirmVote(String(req.params.token)));
   });
   router.get('/unsubscribe/:token', readPerAddress, validate(token, 'params'), async (req, res) => {
-    res.json(await votes.unsubscribe(String(req.params.token)));
+    send(res, Accepted, await votes.unsubscribe(String(req.params.token)));
   });
   return router;
 }

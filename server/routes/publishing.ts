@@ -1,45 +1,37 @@
 // Chapters, show notes and publishing of one episode (mounted under /api/builds/:buildId/episodes/:episodeId).
-import { Router } from 'express';
-import { z } from 'zod';
-import { loadBuild, buildOf } from '../middleware/build';
-import { requireRole } from '../middleware/roles';
-import { validate } from '../middleware/validate';
-import { id } from '../../shared/schemas/common';
+import type { Request } from 'express';
+import { buildOf } from '../middleware/build';
+import { buildScopedRouter, recordInBuild } from './buildScoped';
 import { publishSchema, putChaptersSchema } from '../../shared/schemas/publishing';
 import * as publishing from '../services/publishing';
 import { readiness } from '../services/goLive';
 import { Episode } from '../models';
-import { notFound } from '../errors';
-import type { RequestHandler } from 'express';
+import { send } from './send';
+import { EpisodeAnswer } from '../../shared/contracts/episode';
+import { ChaptersAnswer, ChaptersSaved, Readiness, ShowNotesAnswer } from '../../shared/contracts/publishing';
 
-const params = z.object({ buildId: id, episodeId: id });
 const PUBLISHERS = ['marketing', 'producer'] as const;
-
 /** 404 for an episode of another build before the body is looked at. */
-const episodeInBuild: RequestHandler = async (req, _res, next) => {
-  const found = await Episode.count({ where: { id: Number(req.params.episodeId), buildId: buildOf(req).id } });
-  next(found ? undefined : notFound('Episode'));
-};
+const episodeInBuild = recordInBuild(Episode, 'episodeId', 'Episode');
+const scoped = { roles: PUBLISHERS, record: episodeInBuild };
+const episodeId = (req: Request) => Number(req.params.episodeId);
 
 export function publishingRouter() {
-  const router = Router({ mergeParams: true });
-  const episodeId = (req: { params: unknown }) => Number((req.params as Record<string, string>).episodeId);
-
-  router.get('/chapters', requireRole(...PUBLISHERS), validate(params, 'params'), loadBuild, async (req, res) => {
-    res.json(await publishing.getChapters(buildOf(req).id, episodeId(req)));
-  });
-  router.put('/chapters', requireRole(...PUBLISHERS), validate(params, 'params'), loadBuild, episodeInBuild, validate(putChaptersSchema), async (req, res) => {
-    res.json(await publishing.putChapters(req.user!, buildOf(req).id, episodeId(req), req.body));
-  });
-  router.get('/show-notes', requireRole(...PUBLISHERS), validate(params, 'params'), loadBuild, async (req, res) => {
-    res.json(await publishing.showNotes(buildOf(req), episodeId(req)));
-  });
-  // What stands between the episode and going live: each unfinished upgrade and what it lacks.
-  router.get('/readiness', requireRole(...PUBLISHERS), validate(params, 'params'), loadBuild, episodeInBuild, async (req, res) => {
-    res.json(await readiness(buildOf(req).id, episodeId(req)));
-  });
-  router.post('/publish', requireRole(...PUBLISHERS), validate(params, 'params'), loadBuild, episodeInBuild, validate(publishSchema), async (req, res) => {
-    res.json({ episode: await publishing.publish(req.user!, buildOf(req).id, episodeId(req), req.body) });
-  });
-  return router;
+  return buildScopedRouter()
+    .get('/chapters', scoped, async (req, res) => {
+      send(res, ChaptersAnswer, await publishing.getChapters(buildOf(req).id, episodeId(req)));
+    })
+    .put('/chapters', { ...scoped, body: putChaptersSchema }, async (req, res) => {
+      send(res, ChaptersSaved, await publishing.putChapters(req.user!, buildOf(req).id, episodeId(req), req.body));
+    })
+    .get('/show-notes', scoped, async (req, res) => {
+      send(res, ShowNotesAnswer, await publishing.showNotes(buildOf(req), episodeId(req)));
+    })
+    // What stands between the episode and going live: each unfinished upgrade and what it lacks.
+    .get('/readiness', scoped, async (req, res) => {
+      send(res, Readiness, await readiness(buildOf(req).id, episodeId(req)));
+    })
+    .post('/publish', { ...scoped, body: publishSchema }, async (req, res) => {
+      send(res, EpisodeAnswer, { episode: await publishing.publish(req.user!, buildOf(req).id, episodeId(req), req.body) });
+    }).router;
 }

@@ -6,7 +6,8 @@ import { validQuery } from '../middleware/validate';
 import { buildScopedRouter, recordInBuild } from './buildScoped';
 import { RemovedPart } from '../models';
 import { createRemovedPartSchema, updateRemovedPartSchema, upgradeFilterQuery } from '../../shared/schemas/removedPart';
-import { forViewer } from '../services/visibility';
+import { RemovedPartAnswer, RemovedPartList } from '../../shared/contracts/removedPart';
+import { sendFor } from './send';
 import * as service from '../services/removedParts';
 
 const removedPartInBuild = recordInBuild(RemovedPart, 'removedPartId', 'Removed part');
@@ -15,14 +16,13 @@ const recordId = (req: Request) => Number(req.params.removedPartId);
 export function removedPartsRouter() {
   return buildScopedRouter()
     .get('/', { roles: ANY_ROLE, query: upgradeFilterQuery }, async (req, res) => {
-      const list = await service.listRemovedParts(buildOf(req), validQuery(req), req.user!);
-      res.json({ removedParts: list.map((r) => forViewer(r, req.user)) });
+      sendFor(req, res, RemovedPartList, { removedParts: await service.listRemovedParts(buildOf(req), validQuery(req)) });
     })
     .post('/', { roles: ['producer'], body: createRemovedPartSchema }, async (req, res) => {
-      res.status(201).json({ removedPart: forViewer(await service.createRemovedPart(req.user!, buildOf(req), req.body), req.user) });
+      sendFor(req, res, RemovedPartAnswer, { removedPart: await service.createRemovedPart(req.user!, buildOf(req), req.body) }, 201);
     })
     .patch('/:removedPartId', { roles: ['producer'], record: removedPartInBuild, body: updateRemovedPartSchema }, async (req, res) => {
-      res.json({ removedPart: forViewer(await service.updateRemovedPart(req.user!, buildOf(req), recordId(req), req.body), req.user) });
+      sendFor(req, res, RemovedPartAnswer, { removedPart: await service.updateRemovedPart(req.user!, buildOf(req), recordId(req), req.body) });
     })
     .delete('/:removedPartId', { roles: ['producer'], record: removedPartInBuild }, async (req, res) => {
       await service.deleteRemovedPart(req.user!, buildOf(req), recordId(req));

@@ -6,14 +6,13 @@ import { validQuery } from '../middleware/validate';
 import { buildOf } from '../middleware/build';
 import { buildScopedRouter, recordInBuild } from './buildScoped';
 import { createUpgradeSchema, prerequisitesSchema, updateUpgradeSchema, upgradeListQuery, type UpgradeListQuery } from '../../shared/schemas/upgrade';
-import { forViewer } from '../services/visibility';
+import { ActivityAnswer, UpgradeAnswer, UpgradeDetail, UpgradePage } from '../../shared/contracts/upgrade';
+import { send, sendFor } from './send';
 import * as upgrades from '../services/upgrades';
 import { Upgrade } from '../models';
 import { exportUpgradesCsv, importUpgradesCsv } from '../services/csv/upgrades';
 import { exportPartsCsv } from '../services/csv/parts';
 import { csvBody, sendCsv, sendImportResult } from './csvHttp';
-// recordInBuild lived here as inBuild; other branches may still import it from this file.
-export { inBuild } from './buildScoped';
 
 const importQuery = z.object({ dryRun: z.enum(['0', '1', 'true', 'false']).optional() });
 const upgradeId = (req: Request) => Number(req.params.upgradeId);
@@ -24,19 +23,19 @@ const upgradeInBuild = recordInBuild(Upgrade, 'upgradeId', 'Upgrade');
 export function upgradesRouter() {
   return buildScopedRouter()
     .get('/', { roles: ANY_ROLE, query: upgradeListQuery }, async (req, res) => {
-      res.json(await upgrades.listUpgrades(buildOf(req), validQuery<UpgradeListQuery>(req), req.user!));
+      sendFor(req, res, UpgradePage, await upgrades.listUpgrades(buildOf(req), validQuery<UpgradeListQuery>(req)));
     })
     .post('/', { roles: ['producer'], body: createUpgradeSchema }, async (req, res) => {
-      res.status(201).json({ upgrade: forViewer(await upgrades.createUpgrade(req.user!, buildOf(req), req.body), req.user) });
+      sendFor(req, res, UpgradeAnswer, { upgrade: await upgrades.createUpgrade(req.user!, buildOf(req), req.body) }, 201);
     })
     .post('/import', { roles: ['producer'], query: importQuery }, async (req, res) => {
       sendImportResult(res, await importUpgradesCsv(req.user!, buildOf(req), csvBody(req), dryRun(req)));
     })
     .get('/:upgradeId', { roles: ANY_ROLE, record: upgradeInBuild }, async (req, res) => {
-      res.json(await upgrades.getUpgradeDetail(buildOf(req), upgradeId(req), req.user!));
+      sendFor(req, res, UpgradeDetail, await upgrades.getUpgradeDetail(buildOf(req), upgradeId(req), req.user!));
     })
     .patch('/:upgradeId', { roles: ['producer', 'installer'], record: upgradeInBuild, body: updateUpgradeSchema }, async (req, res) => {
-      res.json({ upgrade: forViewer(await upgrades.updateUpgrade(req.user!, buildOf(req), upgradeId(req), req.body), req.user) });
+      sendFor(req, res, UpgradeAnswer, { upgrade: await upgrades.updateUpgrade(req.user!, buildOf(req), upgradeId(req), req.body) });
     })
     .delete('/:upgradeId', { roles: ['producer'], record: upgradeInBuild }, async (req, res) => {
       await upgrades.deleteUpgrade(req.user!, buildOf(req), upgradeId(req));
@@ -44,10 +43,10 @@ export function upgradesRouter() {
     })
     .put('/:upgradeId/prerequisites', { roles: ['producer'], record: upgradeInBuild, body: prerequisitesSchema }, async (req, res) => {
       const upgrade = await upgrades.setPrerequisites(req.user!, buildOf(req), upgradeId(req), req.body.prerequisiteIds);
-      res.json({ upgrade: forViewer(upgrade, req.user) });
+      sendFor(req, res, UpgradeAnswer, { upgrade });
     })
     .get('/:upgradeId/activity', { roles: ANY_ROLE, record: upgradeInBuild }, async (req, res) => {
-      res.json({ activity: await upgrades.upgradeActivity(buildOf(req), upgradeId(req), req.user!) });
+      send(res, ActivityAnswer, { activity: await upgrades.upgradeActivity(buildOf(req), upgradeId(req), req.user!) });
     }).router;
 }
 

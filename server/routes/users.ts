@@ -6,6 +6,9 @@ import { requireRole } from '../middleware/roles';
 import { createUserSchema, updateUserSchema, resetPasswordSchema } from '../../shared/schemas/auth';
 import { id } from '../../shared/schemas/common';
 import * as users from '../services/users';
+import { UserAnswer, UserCreated, UserList } from '../../shared/contracts/auth';
+import { OkAnswer } from '../../shared/contracts/common';
+import { send } from './send';
 
 const params = z.object({ userId: id });
 
@@ -14,17 +17,17 @@ export function usersRouter() {
   router.use(requireRole('owner'));
 
   router.get('/', async (_req, res) => {
-    res.json({ users: await users.listUsers() });
+    send(res, UserList, { users: await users.listUsers() });
   });
   router.post('/', validate(createUserSchema), async (req, res) => {
-    res.status(201).json(await users.createUser(req.user!, req.body));
+    send(res, UserCreated, await users.createUser(req.user!, req.body), 201);
   });
   router.patch('/:userId', validate(params, 'params'), validate(updateUserSchema), async (req, res) => {
-    res.json({ user: await users.updateUser(req.user!, Number(req.params.userId), req.body) });
+    send(res, UserAnswer, { user: await users.updateUser(req.user!, Number(req.params.userId), req.body) });
   });
   router.post('/:userId/password', validate(params, 'params'), validate(resetPasswordSchema), async (req, res) => {
     await users.setPassword(req.user!, Number(req.params.userId), req.body.password);
-    res.json({ ok: true });
+    send(res, OkAnswer, { ok: true });
   });
   return router;
 }

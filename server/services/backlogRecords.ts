@@ -4,14 +4,26 @@ import { Op, type Transaction } from 'sequelize';
 import { Activity, Expense, LabourEntry, Part, RemovedPart, Upgrade, UpgradePrerequisite } from '../models';
 import { AppError, badRequest, notFound } from '../errors';
 import { forViewer, RETAIL_FIELDS, SHOP_MONEY_FIELDS, seesMoney, seesRetail, type Viewer } from './visibility';
-import type { ExpenseRecord, LabourEntryRecord, PartRecord, RemovedPartRecord, UpgradeRecord } from '../../shared/domain';
+import type { UpgradeForMoney } from '../../shared/contracts/upgrade';
+import type { PartForMoney } from '../../shared/contracts/part';
+import type { RemovedPartForMoney } from '../../shared/contracts/removedPart';
+import type { LabourEntry as LabourEntryRecord } from '../../shared/contracts/labour';
+import type { Expense as ExpenseRecord } from '../../shared/contracts/expense';
 import { readableChanges } from './activity';
+import { audienceOf, allow, audiences, type Audience, type Audiences } from '../../shared/contracts/common';
+import { Upgrade as UpgradeContract } from '../../shared/contracts/upgrade';
+import { Part as PartContract } from '../../shared/contracts/part';
+import { RemovedPart as RemovedPartContract } from '../../shared/contracts/removedPart';
+import { LabourEntry as LabourContract } from '../../shared/contracts/labour';
+import { Expense as ExpenseContract } from '../../shared/contracts/expense';
+import { z } from 'zod';
 
 export type Person = { id: number; name: string; roles: readonly string[] };
 /** An interface as a plain object type, so it fits Record<string, unknown> (forViewer, activity). */
 export type Plain<T> = { [K in keyof T]: T[K] };
 
-export function toUpgradeRecord(u: Upgrade, prerequisiteIds: number[]): Plain<UpgradeRecord & { installedOn: string | null }> {
+/** Every field of an upgrade (the route's contract decides what leaves per role). */
+export function toUpgradeRecord(u: Upgrade, prerequisiteIds: number[]): Plain<UpgradeForMoney> {
   return {
     id: u.id,
     buildId: u.buildId,
@@ -37,7 +49,7 @@ export function toUpgradeRecord(u: Upgrade, prerequisiteIds: number[]): Plain<Up
   };
 }
 
-export function toPartRecord(p: Part): Plain<PartRecord & { orderedOn: string | null; receivedOn: string | null; version: number }> {
+export function toPartRecord(p: Part): Plain<PartForMoney> {
   return {
     id: p.id,
     buildId: p.buildId,
@@ -59,7 +71,7 @@ export function toPartRecord(p: Part): Plain<PartRecord & { orderedOn: string | 
   };
 }
 
-export function toRemovedPartRecord(r: RemovedPart): Plain<RemovedPartRecord> {
+export function toRemovedPartRecord(r: RemovedPart): Plain<RemovedPartForMoney> {
   return {
     id: r.id,
     buildId: r.buildId,
@@ -133,16 +145,41 @@ export async function upgradeRecord(u: Upgrade, t?: Transaction) {
   return toUpgradeRecord(u, map.get(u.id) ?? []);
 }
 
-/** 409 'stale' carrying the record as it is now (money removed per role), so the client can reload or re-apply. */
-export function stale(current: Record<string, unknown>, viewer: Viewer) {
+/**
+ * 409 'stale' carrying the record as it is now, as the person's contract allows it (or, without
+ * contracts, with money removed per role), so the client can reload or re-apply.
+ */
+export function stale(current: Record<string, unknown>, viewer: Viewer, contracts?: Audiences) {
   return new AppError(409, 'stale', 'Someone else changed this record since you loaded it. Reload to see their change, or re-apply yours.', undefined, {
-    current: forViewer(current, viewer),
+    current: contracts ? allow(contracts[audienceOf(viewer.roles)], current as never) : forViewer(current, viewer),
   });
 }
 
-/** Activity rows as a person may read them: money figures removed from before → after. */
+/** The record contract of each entity the backlog's history holds: its fields are the allow-list of a change. */
+const HISTORY_CONTRACTS: Record<string, Audiences> = {
+  upgrade: UpgradeContract,
+  part: PartContract,
+  removed_part: RemovedPartContract,
+  labour: audiences(LabourContract, LabourContract),
+  // Expenses are money through and through: the crew's contract names nothing of them.
+  expense: audiences(ExpenseContract, z.object({})),
+};
+const allowedKeys = (entity: string, audience: Audience): ReadonlySet<string> | null => {
+  const c = HISTORY_CONTRACTS[entity]?.[audience];
+  return c instanceof z.ZodObject ? new Set(Object.keys(c.shape)) : null;
+};
+
+/**
+ * Activity rows as a person may read them: for the backlog's records, only the changed fields the
+ * person's contract for that record names (an allow-list); for others, money figures removed.
+ */
 export function activityView(rows: Activity[], viewer: Viewer) {
   const hidden = new Set<string>([...(seesMoney(viewer) ? [] : SHOP_MONEY_FIELDS), ...(seesRetail(viewer) ? [] : RETAIL_FIELDS)]);
+  const audience = audienceOf(viewer.roles);
+  const visible = (entity: string, changes: Activity['changes']) => {
+    const allowed = allowedKeys(entity, audience);
+    return Object.fromEntries(Object.entries(changes ?? {}).filter(([k]) => (allowed ? allowed.has(k) : !hidden.has(k))));
+  };
   return rows.map((a) => ({
     id: Number(a.id),
     entity: a.entity,
@@ -151,9 +188,9 @@ export function activityView(rows: Activity[], viewer: Viewer) {
     summary: a.summary,
     userId: a.userId,
     userName: a.userName,
-    createdAt: a.createdAt,
-    changes: Object.fromEntries(Object.entries(a.changes ?? {}).filter(([k]) => !hidden.has(k))),
-    readable: readableChanges(a.changes, { money: seesMoney(viewer), retail: seesRetail(viewer) }),
+    createdAt: new Date(a.createdAt).toISOString(),
+    changes: visible(a.entity, a.changes),
+    readable: readableChanges(visible(a.entity, a.changes), { money: seesMoney(viewer), retail: seesRetail(viewer) }),
   }));
 }
 

@@ -3,15 +3,18 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import { sequelize, Build } from '../models';
 import { AppError, forbidden, notFound } from '../errors';
 import { record } from './activity';
-import { forViewer, seesMoney } from './visibility';
+import { seesMoney } from './visibility';
+import { allow, audienceOf } from '../../shared/contracts/common';
+import { Build as BuildContract, type BuildForMoney } from '../../shared/contracts/build';
 import type { Plain } from './backlogRecords';
 import { rollUpCosts } from '../../shared/costs';
-import type { BuildRecord, Disposition, PartState } from '../../shared/domain';
+import type { Disposition, PartState } from '../../shared/domain';
 import type { CreateBuildInput, UpdateBuildInput } from '../../shared/schemas/build';
 
 export type Person = { id: number; name: string; roles: readonly string[] };
 
-export function toBuildRecord(b: Build): Plain<BuildRecord & { vinCheckOverridden: boolean }> {
+/** Every field of a build (the route's contract decides what leaves per role). */
+export function toBuildRecord(b: Build): Plain<BuildForMoney> {
   return {
     id: b.id,
     slug: b.slug,
@@ -81,9 +84,8 @@ export async function listBuilds(viewer: Person) {
   const out = [];
   for (const b of builds) {
     const p = byBuild.get(b.id);
-    const row: Record<string, unknown> = { ...forViewer(toBuildRecord(b), viewer), upgradesDone: p?.done ?? 0, upgradesTotal: p?.total ?? 0 };
-    if (money) row.spentCents = await spentCents(b);
-    out.push(row);
+    // Spend is worked out only for roles that see money; the route's allow-list sends it to them alone.
+    out.push({ ...toBuildRecord(b), upgradesDone: p?.done ?? 0, upgradesTotal: p?.total ?? 0, spentCents: money ? await spentCents(b) : 0 });
   }
   return out;
 }
@@ -115,7 +117,7 @@ export async function updateBuild(actor: Person, buildId: number, input: UpdateB
   return sequelize.transaction(async (t) => {
     const build = await Build.findByPk(buildId, { transaction: t, lock: t.LOCK.UPDATE });
     if (!build) throw notFound('Build');
-    if (build.version !== input.version) throw stale(forViewer(toBuildRecord(build), actor));
+    if (build.version !== input.version) throw stale(allow(BuildContract[audienceOf(actor.roles)], toBuildRecord(build)));
     if (input.slug && input.slug !== build.slug && (await Build.findOne({ where: { slug: input.slug }, transaction: t }))) {
       throw new AppError(409, 'duplicate', 'Another build already uses this slug.', [{ path: 'slug', message: 'is already used' }]);
     }

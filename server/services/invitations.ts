@@ -58,5 +58,5 @@ export async function acceptInvitation(token: string, password: string) {
     await endInvitationLinksOf(t, user.id);
     await record(t, { actor: { id: user.id, name: user.name }, buildId: null, entity: 'user', entityId: user.id, action: 'password', summary: `${user.name} chose a password from the invitation`, changes: {} });
   });
-  return { ok: true };
+  return { ok: true as const };
 }

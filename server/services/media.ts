@@ -7,16 +7,11 @@ import { AppError, badRequest, forbidden, notFound } from '../errors';
 import { config } from '../config';
 import { record } from './activity';
 import { seesMoney } from './visibility';
-// eslint-disable-next-line import-x/no-restricted-paths -- issue 13: hasRole belongs outside middleware (media owner to move it)
-import { hasRole } from '../middleware/roles';
 import { putBuffer, putFile, presignGet, removeObjects } from '../storage';
-// eslint-disable-next-line no-restricted-imports -- issue 13: the media service still takes req (media owner to move the upload parsing into the route)
-import type { Request } from 'express';
+import { zodFields } from '../zodFields';
 import { contentDisposition, removeTemp, sanitizeName, storageUnavailable, type Detected, type ReceivedFile } from './mediaFiles';
 import { mediaUploadFields, type MediaListQuery, type MediaPatch, type MediaRecord } from '../../shared/schemas/media';
-// eslint-disable-next-line import-x/no-restricted-paths -- issue 13: zodFields belongs outside middleware (media owner to move it)
-import { zodFields } from '../middleware/validate';
-import type { MediaKind } from '../../shared/domain';
+import type { MediaKind, Role } from '../../shared/domain';
 
 type Person = Express.User;
 
@@ -86,10 +81,9 @@ async function checkUpload(build: Build, person: Person, detected: Detected, raw
  * The upload engine's hook once the type is known: with the fields sent before the file valid,
  * the file streams into storage under this key while it arrives (videos need no second pass).
  */
-export async function prepareStream(req: Request, detected: Detected): Promise<string | null> {
-  if (!req.build || !req.user) return null;
-  await checkUpload(req.build, req.user, detected, req.body);
-  return newObjectKey(req.build.id, detected.ext);
+export async function prepareStream(build: Build, person: Person, fieldsSoFar: unknown, detected: Detected): Promise<string> {
+  await checkUpload(build, person, detected, fieldsSoFar);
+  return newObjectKey(build.id, detected.ext);
 }
 
 /** Stores one received upload: object, thumbnail, row — all or nothing. The temporary file is always removed. */
@@ -219,6 +213,8 @@ export async function findVisible(build: Build, person: Person, mediaId: number)
 }
 
 const SAME_DAY_MS = 24 * 3600 * 1000;
+/** The owner may do what any role may. */
+const hasRole = (p: Person, role: Role) => p.roles.some((r) => r === 'owner' || r === role);
 
 /** Owner and producer change anything; an installer changes their own uploads. */
 function mayChange(person: Person, m: Media, action: 'edit' | 'delete') {

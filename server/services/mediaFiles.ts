@@ -1,21 +1,13 @@
-// Receiving an uploaded file: a multer storage engine that writes to UPLOAD_DIR on disk (never
-// the whole file in memory), hashes it while streaming, checks its type by its first bytes
-// against our allow-list, and enforces the size limit of the kind it turns out to be.
-import { createHash, randomUUID } from 'node:crypto';
-import { createWriteStream, mkdirSync } from 'node:fs';
+// Receiving an uploaded file, without HTTP: the allowed types, sniffing the type from the first
+// bytes, hashing and counting while streaming, the size limit of the kind it turns out to be.
+// The multer engine that feeds these lives at the HTTP edge (server/middleware/upload.ts).
+import { createHash } from 'node:crypto';
 import { unlink } from 'node:fs/promises';
-import path from 'node:path';
-import { PassThrough, Transform, type TransformCallback } from 'node:stream';
-import { pipeline } from 'node:stream/promises';
-// eslint-disable-next-line no-restricted-imports -- issue 13: the multer engine belongs in the route or middleware (media owner to move it)
-import type { Request } from 'express';
-// eslint-disable-next-line no-restricted-imports -- issue 13: as above
-import multer, { type StorageEngine } from 'multer';
+import { Transform, type TransformCallback } from 'node:stream';
 import { fileTypeFromBuffer } from 'file-type';
 import { config } from '../config';
 import { AppError } from '../errors';
 import type { MediaKind } from '../../shared/domain';
-import { putStream, removeObject, type StreamUpload } from '../storage/s3';
 
 export interface AllowedType {
   kind: MediaKind;
@@ -44,7 +36,7 @@ export function limitBytes(kind: MediaKind): number {
   const mb = kind === 'photo' ? c.UPLOAD_MAX_PHOTO_MB : kind === 'video' ? c.UPLOAD_MAX_VIDEO_MB : c.UPLOAD_MAX_DOCUMENT_MB;
   return Math.floor(mb * 1024 * 1024);
 }
-const largestLimit = () => Math.max(limitBytes('photo'), limitBytes('video'), limitBytes('document'));
+export const largestLimit = () => Math.max(limitBytes('photo'), limitBytes('video'), limitBytes('document'));
 
 const KIND_WORD: Record<MediaKind, string> = { photo: 'photos', video: 'videos', document: 'documents' };
 
@@ -70,24 +62,24 @@ export type Detected = AllowedType & { mime: string };
 export const storageUnavailable = () =>
   new AppError(503, 'storage_unavailable', 'The file store cannot be reached right now, so nothing was saved. Try again in a minute.');
 
-/** What the engine adds to req.file. */
-export interface ReceivedFile extends Express.Multer.File {
+/** A file the upload engine (server/middleware/upload.ts) received. */
+export interface ReceivedFile {
+  /** The name the person's device gave it (kept only as data). */
+  originalname: string;
+  /** Where it waits on disk. */
+  path: string;
+  size: number;
   sha256: string;
   detected: Detected;
   /** Set when the file was streamed into the object store while it arrived. */
   stored?: { key: string };
 }
 
-/**
- * Called once the type is known, before any byte goes to storage: checks the form fields read
- * so far and answers the object key to stream to (or null to store it after the upload ends).
- */
-export type OnDetected = (req: Request, detected: Detected) => Promise<string | null>;
 
 const SNIFF_BYTES = 4100; // file-type reads at most this many bytes for the formats we accept
 
 /** Hashes and counts bytes, sniffs the type from the head, and stops past the kind's limit. */
-class Inspector extends Transform {
+export class Inspector extends Transform {
   constructor(private onDetected?: (t: Detected) => Promise<void>) {
     super();
   }
@@ -139,81 +131,6 @@ export async function sniff(head: Buffer): Promise<AllowedType & { mime: string 
     throw new AppError(415, 'unsupported_type', `This file is ${what}. Bayslate accepts ${ACCEPTED_DESCRIPTION}.`);
   }
   return { ...allowed, mime: t.mime };
-}
-
-type UploadRequest = Request & { uploadSettled?: Promise<unknown> };
-
-class InspectingDiskStorage implements StorageEngine {
-  constructor(private onDetected?: OnDetected) {}
-
-  _handleFile(req: Request, file: Express.Multer.File, cb: (error?: unknown, info?: Partial<ReceivedFile>) => void) {
-    const dir = path.resolve(config().UPLOAD_DIR);
-    mkdirSync(dir, { recursive: true });
-    // Our own name on disk; the person's name is kept only as data.
-    const dest = path.join(dir, `${randomUUID()}.part`);
-    let upload: StreamUpload | null = null;
-    // Once the type is known and the fields check out, the same bytes also stream to storage,
-    // so a large video is stored by the time its last byte arrives.
-    const toStore = new PassThrough({ highWaterMark: 1024 * 1024 });
-    const inspector: Inspector = new Inspector(async (t) => {
-      const key = this.onDetected ? await this.onDetected(req, t) : null;
-      if (!key) return;
-      upload = putStream(key, toStore, t.mime);
-      upload.done.catch(() => inspector.destroy(storageUnavailable()));
-      inspector.pipe(toStore);
-    });
-    const out = createWriteStream(dest, { flags: 'wx' });
-    // multer answers an aborted upload at once; receiveOneFile waits for this so the temporary
-    // file is gone before the person hears of the error.
-    (req as UploadRequest).uploadSettled = pipeline(file.stream, inspector, out)
-      .then(async () => {
-        const u = upload as StreamUpload | null;
-        if (u) await u.done.catch(() => Promise.reject(storageUnavailable()));
-        cb(null, { path: dest, size: inspector.size, sha256: inspector.hash.digest('hex'), detected: inspector.detected!, stored: u ? { key: u.key } : undefined });
-      })
-      .catch(async (err) => {
-        const u = upload as StreamUpload | null;
-        toStore.destroy();
-        if (u) await u.abort();
-        // The file may still be opening when the pipeline fails early; remove it once closed,
-        // or the open would create it again after the unlink.
-        if (!out.closed) await new Promise<void>((r) => out.once('close', () => r()));
-        await unlink(dest).catch(() => undefined);
-        cb(err);
-      });
-  }
-
-  // multer calls this for files already received when the upload fails later (a second file, too
-  // many fields): the object streamed to storage goes too, before the person hears of the error.
-  _removeFile(_req: Request, file: Express.Multer.File, cb: (error: Error | null) => void) {
-    const stored = (file as Partial<ReceivedFile>).stored;
-    Promise.all([
-      file.path ? unlink(file.path).catch(() => undefined) : undefined,
-      stored ? removeObject(stored.key).catch((err) => console.error(`[media] could not remove ${stored.key}; the sweep will:`, err?.message ?? err)) : undefined,
-    ]).then(() => cb(null));
-  }
-}
-
-/** The multer middleware for one file in field `file`; its errors become our JSON errors. */
-export function receiveOneFile(onDetected?: OnDetected) {
-  const upload = multer({
-    storage: new InspectingDiskStorage(onDetected),
-    // Browsers send UTF-8 file names.
-    defParamCharset: 'utf8',
-    limits: { files: 1, fields: 12, fieldSize: 2000, parts: 14, fileSize: largestLimit() },
-  }).single('file');
-  return (req: Request, res: Parameters<typeof upload>[1], next: (err?: unknown) => void) => {
-    upload(req, res, async (err?: unknown) => {
-      if (!err) return next();
-      await (req as UploadRequest).uploadSettled?.catch(() => undefined);
-      if (err instanceof multer.MulterError) {
-        if (err.code === 'LIMIT_FILE_SIZE') return next(new AppError(413, 'too_large', `The file is larger than the largest upload allowed (${Math.round(largestLimit() / 1024 / 1024)} MB).`));
-        if (err.code === 'LIMIT_UNEXPECTED_FILE' || err.code === 'LIMIT_FILE_COUNT') return next(new AppError(400, 'bad_request', 'Send one file per upload, in the form field "file".'));
-        return next(new AppError(400, 'bad_request', `The upload form is not valid: ${err.message}.`));
-      }
-      next(err);
-    });
-  };
 }
 
 export async function removeTemp(file: { path?: string } | undefined) {

@@ -4,31 +4,28 @@ import { type Transaction, type WhereOptions } from 'sequelize';
 import { sequelize, Build, Part } from '../models';
 import { badRequest, forbidden, notFound } from '../errors';
 import { diff, record } from './activity';
-import { forViewer } from './visibility';
 import { noticePartMovedLater, refreshSlipNotices } from './slips';
 import { toDay } from '../../shared/planner/dates';
 import { changedFields, requireUpgradeInBuild, stale, toPartRecord, type Person } from './backlogRecords';
+import { Part as PartContract } from '../../shared/contracts/part';
 import { INSTALLER_PART_FIELDS, INSTALLER_PART_STATES, MARKETING_PART_FIELDS, type CreatePartInput, type UpdatePartInput } from '../../shared/schemas/part';
 import { todayIn } from '../../shared/dates';
 
 const has = (p: Person, ...roles: string[]) => p.roles.some((r) => r === 'owner' || roles.includes(r));
 
-export async function listParts(build: Build, q: { upgradeId?: number; state?: string; page: number; pageSize: number }, viewer: Person) {
+/** A page of parts, every field: the route sends each person's allow-list of them (shared/contracts/part.ts). */
+export async function listParts(build: Build, q: { upgradeId?: number; state?: string; page: number; pageSize: number }) {
   const where: WhereOptions<Part> & Record<string, unknown> = { buildId: build.id };
   if (q.upgradeId) where.upgradeId = q.upgradeId;
   if (q.state) where.state = q.state;
   const { rows, count } = await Part.findAndCountAll({ where, order: [['upgradeId', 'ASC'], ['id', 'ASC']], limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
-  return { parts: rows.map((p) => forViewer(toPartRecord(p), viewer)), total: count, page: q.page, pageSize: q.pageSize };
+  return { parts: rows.map(toPartRecord), total: count, page: q.page, pageSize: q.pageSize };
 }
 
 async function findPart(buildId: number, id: number, t?: import('sequelize').Transaction) {
   const p = await Part.findOne({ where: { id, buildId }, transaction: t, ...(t ? { lock: t.LOCK.UPDATE } : {}) });
   if (!p) throw notFound('Part');
   return p;
-}
-
-export async function getPart(build: Build, id: number, viewer: Person) {
-  return forViewer(toPartRecord(await findPart(build.id, id)), viewer);
 }
 
 export async function createPart(actor: Person, build: Build, input: CreatePartInput) {
@@ -61,7 +58,7 @@ export async function updatePart(actor: Person, build: Build, id: number, input:
   refuseFields(actor, input);
   return sequelize.transaction(async (t) => {
     const p = await findPart(build.id, id, t);
-    if (input.version !== undefined && input.version !== p.version) throw stale(toPartRecord(p), actor);
+    if (input.version !== undefined && input.version !== p.version) throw stale(toPartRecord(p), actor, PartContract);
     const { version: _v, ...fields } = input;
     if (fields.upgradeId !== undefined) await requireUpgradeInBuild(build.id, fields.upgradeId, 'upgradeId', t);
     // Receiving a part records the day, unless the person gave one.

@@ -10,7 +10,8 @@ import { minimumShopDays, proposePlan, validatePlan, type PlannerInput, type Pla
 import { findCycle } from '../../shared/planner/criticalPath';
 import { bayForecast } from '../../shared/planner/forecast';
 import { toDay } from '../../shared/planner/dates';
-import { AREA_LABELS, type EpisodeRecord } from '../../shared/domain';
+import { AREA_LABELS } from '../../shared/domain';
+import type { PlanDifference, ProposedEpisode } from '../../shared/contracts/plan';
 import type { PlanInputBody } from '../../shared/schemas/episode';
 import { assertPlanVersion, planVersion, recordRevision, refuseUnlistedDateChanges, lastUndoable, changeSummary, undoLastChange } from './planRevisions';
 import { addDays } from '../../shared/dates';
@@ -106,27 +107,8 @@ export async function checkPlan(build: Build): Promise<PlanViolation[]> {
   return validatePlan(plannerInput(data, capacityOf(build), false), currentPlan(data));
 }
 
-interface ProposedEpisode {
-  id: number | null;
-  number: number;
-  title: string;
-  state: EpisodeRecord['state'] | null;
-  shootDate: string | null;
-  releaseDate: string | null;
-  area: string | null;
-  hours: number;
-  upgradeIds: number[];
-  locked: boolean;
-  oversize: boolean;
-}
-
-export interface PlanDifference {
-  upgradeId: number;
-  title: string;
-  kind: 'moved' | 'reordered' | 'added' | 'removed';
-  from: { episodeId: number | null; number: number; position: number } | null;
-  to: { episodeId: number | null; number: number; position: number } | null;
-}
+// The proposal's shapes are the contract's (shared/contracts/plan.ts): an episode's area is an Area.
+export type { PlanDifference } from '../../shared/contracts/plan';
 
 export async function propose(build: Build, over: Partial<Capacity>) {
   const data = await loadPlanData(build);

@@ -6,6 +6,8 @@ import { notFound } from '../errors';
 import { cachedPublic, keepPublic, publicStamp, type PublicEntry } from './publicBuildCache';
 import { cautionsFor } from '../../shared/safety';
 import { AREAS, AREA_LABELS, isUpgradeDone, type Area } from '../../shared/domain';
+import { allow } from '../../shared/contracts/common';
+import { PublicBuild } from '../../shared/contracts/public';
 
 export type PublicStatus = 'planned' | 'in_progress' | 'coming_soon' | 'done';
 
@@ -29,7 +31,8 @@ export async function publicBuildAnswer(slug: string): Promise<{ entry: PublicEn
   if (hit) return { entry: hit, hit: true };
   const stamp = publicStamp();
   const { buildId, view } = await publicBuildViewOf(slug);
-  return { entry: keepPublic(slug, buildId, stamp, view), hit: false };
+  // Only what the public contract names is kept and sent (shared/contracts/public.ts).
+  return { entry: keepPublic(slug, buildId, stamp, allow(PublicBuild, view)), hit: false };
 }
 
 export async function publicBuildView(slug: string) {

@@ -8,7 +8,8 @@ import { record, type Actor } from './activity';
 import { afterGoLive, assertMayGoLive, type LiveActor } from './goLive';
 import { toRecord, upgradeIdsByEpisode } from './episodes';
 import { buildShowNotes, formatChapterTime, validateChapters } from '../../shared/showNotes';
-import type { ChapterRecord } from '../../shared/domain';
+import type { EpisodeState, PartCondition } from '../../shared/domain';
+import type { Chapter } from '../../shared/contracts/publishing';
 import type { PublishInput, PutChaptersInput } from '../../shared/schemas/publishing';
 import type { Transaction } from 'sequelize';
 
@@ -18,7 +19,7 @@ async function episodeOf(buildId: number, episodeId: number, t?: Transaction, lo
   return ep;
 }
 
-async function chaptersOf(episodeId: number, t?: Transaction): Promise<ChapterRecord[]> {
+async function chaptersOf(episodeId: number, t?: Transaction): Promise<Chapter[]> {
   const rows = await EpisodeChapter.findAll({ where: { episodeId }, order: [['position', 'ASC']], transaction: t });
   return rows.map((c) => ({ id: c.id, startSeconds: c.startSeconds, title: c.title, upgradeId: c.upgradeId }));
 }
@@ -140,14 +141,14 @@ export async function linkHealth(buildId: number) {
       id: p.id as number,
       partNumber: p.part_number as string,
       description: p.description as string,
-      condition: p.condition as string,
+      condition: p.condition as PartCondition,
       version: p.version as number,
       upgradeId: p.upgrade_id as number,
       upgradeTitle: p.upgrade_title as string,
       episodeId: p.episode_id as number,
       episodeNumber: p.episode_number as number,
       episodeTitle: p.episode_title as string,
-      episodeState: p.episode_state as string,
+      episodeState: p.episode_state as EpisodeState,
     })),
   };
 }

@@ -2,15 +2,14 @@
 import { sequelize, Build, RemovedPart } from '../models';
 import { notFound } from '../errors';
 import { diff, record } from './activity';
-import { forViewer } from './visibility';
 import { changedFields, requireUpgradeInBuild, toRemovedPartRecord, type Person } from './backlogRecords';
 import type { CreateRemovedPartInput, UpdateRemovedPartInput } from '../../shared/schemas/removedPart';
 
-export async function listRemovedParts(build: Build, q: { upgradeId?: number }, viewer: Person) {
+export async function listRemovedParts(build: Build, q: { upgradeId?: number }) {
   const where: Record<string, unknown> = { buildId: build.id };
   if (q.upgradeId) where.upgradeId = q.upgradeId;
   const rows = await RemovedPart.findAll({ where, order: [['id', 'ASC']] });
-  return rows.map((r) => forViewer(toRemovedPartRecord(r), viewer));
+  return rows.map(toRemovedPartRecord);
 }
 
 async function find(buildId: number, id: number, t: import('sequelize').Transaction) {

@@ -8,8 +8,8 @@ import { listImports } from './salesImport';
 import { slugify } from '../../shared/showNotes';
 import { rollUpCosts } from '../../shared/costs';
 import { netCostByDay, salesFigures, type AttributedLine, type DatedCostInput, type SalesEpisodeInput, type SalesPartInput, type SalesUpgradeInput, type SaleLineInput, type Attribution } from '../../shared/sales';
-import type { SalesSummary } from '../../shared/sales';
 import { todayIn } from '../../shared/dates';
+import type { SalesSummaryForOwner } from '../../shared/contracts/sales';
 
 const UNATTRIBUTED_SHOWN = 200;
 
@@ -74,7 +74,8 @@ const lineOut = (l: AttributedLine) => ({
   refund: l.refund,
 });
 
-export async function salesSummary(build: Build): Promise<SalesSummary> {
+/** Every figure; the route strips it per role (salesForViewer, then the role's contract). */
+export async function salesSummary(build: Build): Promise<SalesSummaryForOwner> {
   const s = await computeSales(build);
   const unattributed = s.lines.filter((l) => l.attribution === 'unattributed').sort((a, b) => (a.soldOn < b.soldOn ? 1 : a.soldOn > b.soldOn ? -1 : b.id - a.id));
   return {

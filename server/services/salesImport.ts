@@ -5,30 +5,13 @@ import { QueryTypes } from 'sequelize';
 import { sequelize, Build, SaleImport, SalesMapping } from '../models';
 import { badRequest } from '../errors';
 import { record, type Actor } from './activity';
-import { readSalesCsv, type ParsedSaleLine, type SalesProblem } from './salesCsv';
+import { readSalesCsv, type ParsedSaleLine } from './salesCsv';
 import { salesMappingSchema, type SalesMapping as Mapping } from '../../shared/schemas/sales';
 import { ZodError } from 'zod';
+import type { SalesImportReport } from '../../shared/contracts/sales';
 
-export interface SalesImportReport {
-  ok: boolean;
-  dryRun: boolean;
-  fileName: string | null;
-  mapping: Mapping;
-  /** Lines of the file that are not blank. */
-  linesRead: number;
-  /** Lines that are new (a preview) or were added (a write). */
-  newLines: number;
-  alreadyImported: number;
-  duplicatesInFile: number;
-  refunds: number;
-  errors: SalesProblem[];
-  /** Later copies of the same order line within the file: counted once. */
-  duplicates: { line: number; sameAs: number }[];
-  /** The first lines as read, for the preview. */
-  sample: Omit<ParsedSaleLine, 'duplicateOf'>[];
-  added?: number;
-  importId?: number;
-}
+/** The report is the contract's (shared/contracts/sales.ts): preview, import, or a refused file. */
+export type { SalesImportReport };
 
 const SAMPLE = 20;
 

@@ -4,12 +4,11 @@
 import { Op, QueryTypes } from 'sequelize';
 import { sequelize, Activity, Episode, Part, Upgrade, UpgradePrerequisite, type Build } from '../models';
 import { notFound } from '../errors';
-import { forViewer } from './visibility';
 import { toRecord, upgradeIdsByEpisode } from './episodes';
 import { cautionsFor } from '../../shared/safety';
 import { todayIn } from '../../shared/dates';
 import { toPartRecord, toUpgradeRecord, type Person } from './backlogRecords';
-import type { EpisodeRecord, PartRecord, UpgradeRecord } from '../../shared/domain';
+import type { EpisodeRecord } from '../../shared/contracts/episode';
 
 /** States an installer works in: about to be shot, or shot with pick-up work left. */
 const WORKING_STATES = ['scheduled', 'shot', 'in_edit'] as const;
@@ -72,8 +71,9 @@ async function items(build: Build, viewer: Person, ids: number[]) {
     const mine = edges.filter((e) => e.upgradeId === id).map((e) => e.prerequisiteId);
     const blocked = mine.map((p) => prereqById.get(p)).filter((p) => p && p.installState !== 'installed');
     return {
-      upgrade: forViewer(toUpgradeRecord(u, mine), viewer) as UpgradeRecord,
-      parts: parts.filter((p) => p.upgradeId === id).map((p) => forViewer(toPartRecord(p), viewer) as PartRecord),
+      // Every field: the route's contract decides what leaves per role (ShopFloor in shared/contracts).
+      upgrade: toUpgradeRecord(u, mine),
+      parts: parts.filter((p) => p.upgradeId === id).map((p) => toPartRecord(p)),
       prerequisitesMet: blocked.length === 0,
       blockedBy: blocked.map((p) => p!.title),
       cautions: cautionsFor(u.safetyFlags),

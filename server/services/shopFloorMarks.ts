@@ -8,6 +8,7 @@ import { findUpgrade, stale, upgradeRecord, type Person } from './backlogRecords
 import { cautionsFor } from '../../shared/safety';
 import { INSTALL_STATE_LABELS } from '../../shared/domain';
 import type { StepBackInput } from '../../shared/schemas/shopFloor';
+import { Upgrade as UpgradeContract, type UpgradeForMoney } from '../../shared/contracts/upgrade';
 
 /** A mark older than this needs a reason to step back (common practice: a short grace window). */
 export const STEP_BACK_FREE_MS = 10 * 60 * 1000;
@@ -25,10 +26,10 @@ async function lastMark(buildId: number, upgradeId: number, mark: StepBackInput[
   });
 }
 
-export async function stepBack(actor: Person, build: Build, id: number, input: StepBackInput, now = Date.now()) {
+export async function stepBack(actor: Person, build: Build, id: number, input: StepBackInput, now = Date.now()): Promise<UpgradeForMoney> {
   return sequelize.transaction(async (t) => {
     const u = await findUpgrade(build.id, id, t, true);
-    if (u.version !== input.version) throw stale(await upgradeRecord(u, t), actor);
+    if (u.version !== input.version) throw stale(await upgradeRecord(u, t), actor, UpgradeContract);
     const { mark } = input;
     const last = await lastMark(build.id, u.id, mark, t);
     const [was, is] = (last?.changes[mark] ?? [null, null]) as [unknown, unknown];

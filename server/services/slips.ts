@@ -8,6 +8,7 @@ import { slipDigestMail } from '../mail/slipDigest';
 import { today } from './planData';
 import { daysBetween } from '../../shared/dates';
 import { computeSlips, type EpisodeSlip, type SlipEpisode, type SlipPart, type SlipUpgrade } from '../../shared/planner/slips';
+import type { Notice } from '../../shared/contracts/slips';
 
 /** The build fields slips read: its zone gives "today" (parts overdue, releases at risk). */
 type BuildRef = Pick<Build, 'id' | 'name'> & Partial<Pick<Build, 'timeZone'>>;
@@ -105,7 +106,7 @@ export async function noticePartMovedLater(t: Transaction, build: BuildRef, part
 /** The newest notices and how many this person has not seen. */
 export async function listNotices(userId: number, buildId: number, limit = 50) {
   const [notices, [seen]] = await Promise.all([
-    sequelize.query<{ id: number; kind: string; message: string; data: Record<string, unknown>; createdAt: string }>(
+    sequelize.query<Omit<Notice, 'unread' | 'createdAt'> & { createdAt: string | Date }>(
       `SELECT id, kind, message, data, created_at AS "createdAt" FROM notices WHERE build_id = :buildId ORDER BY id DESC LIMIT :limit`,
       { replacements: { buildId, limit }, type: QueryTypes.SELECT },
     ),

@@ -4,7 +4,8 @@ import { Op, QueryTypes, literal, type Order, type Transaction, type WhereOption
 import { sequelize, Activity, Build, Episode, Expense, LabourEntry, Part, RemovedPart, Upgrade, UpgradePrerequisite } from '../models';
 import { AppError, badRequest, forbidden } from '../errors';
 import { record, diff } from './activity';
-import { forViewer, seesMoney } from './visibility';
+import { seesMoney } from './visibility';
+import { Upgrade as UpgradeContract } from '../../shared/contracts/upgrade';
 import {
   activityView,
   changedFields,
@@ -36,7 +37,8 @@ const SORT_COLUMNS: Record<UpgradeListQuery['sort'], string> = {
   episode: 'episode',
 };
 
-export async function listUpgrades(build: Build, q: UpgradeListQuery, viewer: Person) {
+/** A page of the backlog, every field: the route sends each person's allow-list of them (shared/contracts/upgrade.ts). */
+export async function listUpgrades(build: Build, q: UpgradeListQuery) {
   const where: WhereOptions<Upgrade> & Record<string | symbol, unknown> = { buildId: build.id };
   if (q.area) where.area = q.area;
   if (q.installState) where.installState = q.installState;
@@ -59,7 +61,7 @@ export async function listUpgrades(build: Build, q: UpgradeListQuery, viewer: Pe
   const { rows, count } = await Upgrade.findAndCountAll({ where, order, limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
   const map = await prerequisiteMap(build.id, undefined, rows.map((r) => r.id));
   return {
-    upgrades: rows.map((u) => forViewer(toUpgradeRecord(u, map.get(u.id) ?? []), viewer)),
+    upgrades: rows.map((u) => toUpgradeRecord(u, map.get(u.id) ?? [])),
     total: count,
     page: q.page,
     pageSize: q.pageSize,
@@ -76,14 +78,15 @@ export async function getUpgradeDetail(build: Build, id: number, viewer: Person)
     seesMoney(viewer) ? Expense.findAll({ where, order: [['spentOn', 'DESC'], ['id', 'DESC']] }) : Promise.resolve(null),
   ]);
   return {
-    upgrade: forViewer(await upgradeRecord(u), viewer),
+    upgrade: await upgradeRecord(u),
     // The safety cautions of its flags, in our own words (shared/safety.ts), for the drawer to show.
     cautions: cautionsFor(u.safetyFlags),
-    parts: parts.map((p) => forViewer(toPartRecord(p), viewer)),
-    removedParts: removedParts.map((r) => forViewer(toRemovedPartRecord(r), viewer)),
+    parts: parts.map(toPartRecord),
+    removedParts: removedParts.map(toRemovedPartRecord),
     labour: labour.map(toLabourRecord),
-    // Expenses are money through and through: roles that may not see money do not get the list at all.
-    ...(expenses ? { expenses: expenses.map((e) => toExpenseRecord(e)) } : {}),
+    // Expenses are money through and through: not read for roles that may not see money, and
+    // their contract (UpgradeDetail.crew) has no list to send.
+    expenses: (expenses ?? []).map((e) => toExpenseRecord(e)),
   };
 }
 
@@ -137,7 +140,7 @@ export async function updateUpgrade(actor: Person, build: Build, id: number, inp
   }
   return sequelize.transaction(async (t) => {
     const u = await findUpgrade(build.id, id, t, true);
-    if (u.version !== input.version) throw stale(await upgradeRecord(u, t), actor);
+    if (u.version !== input.version) throw stale(await upgradeRecord(u, t), actor, UpgradeContract);
     const { version: _v, confirmPartsNotReceived, ...fields } = input;
     await requireEpisodeInBuild(build.id, fields.episodeId, t);
     const notReceived = await checkMarks(u, fields, confirmPartsNotReceived, t);

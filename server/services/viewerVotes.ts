@@ -110,7 +110,7 @@ export async function confirmVote(token: string) {
       await vote.update({ confirmedAt: new Date(), email: unsubscribed ? null : email, emailSealed: null }, { transaction: t });
       if (!request.confirmedAt) await request.update({ confirmedAt: new Date() }, { transaction: t });
     }
-    return { ok: true, request: { id: request.id, title: request.title }, build: build ? { slug: build.slug, title: build.name } : null };
+    return { ok: true as const, request: { id: request.id, title: request.title }, build: build ? { slug: build.slug, title: build.name } : null };
   });
 }
 
@@ -123,5 +123,5 @@ export async function unsubscribe(token: string) {
     // Votes stay counted (by their hash); the address is no longer needed.
     await sequelize.query('UPDATE viewer_votes SET email = NULL WHERE email_hash = :hash', { replacements: { hash }, transaction: t });
   });
-  return { ok: true, message: 'You will get no more mail about this series.' };
+  return { ok: true as const, message: 'You will get no more mail about this series.' };
 }

@@ -17,9 +17,5 @@ export type LoginInput = z.infer<typeof loginSchema>;
 export type CreateUserInput = z.infer<typeof createUserSchema>;
 export type UpdateUserInput = z.infer<typeof updateUserSchema>;
 
-export interface SessionUser {
-  id: number;
-  email: string;
-  name: string;
-  roles: (typeof ROLES)[number][];
-}
+/** The signed-in person: its contract is in shared/contracts/auth.ts. */
+export type { SessionUser } from '../contracts/auth';

@@ -38,29 +38,8 @@ export const mediaPatch = z
   .refine((b) => b.caption !== undefined || b.stage !== undefined, { message: 'give caption or stage', path: ['caption'] });
 export type MediaPatch = z.infer<typeof mediaPatch>;
 
-export interface MediaRecord {
-  id: number;
-  buildId: number;
-  upgradeId: number | null;
-  episodeId: number | null;
-  partId: number | null;
-  kind: MediaKind;
-  stage: MediaStage | null;
-  caption: string | null;
-  originalName: string;
-  contentType: string;
-  sizeBytes: number;
-  sha256: string;
-  uploadedBy: number | null;
-  uploadedByName: string | null;
-  createdAt: string;
-  /** Presigned, short-lived: the small WebP for grids (null when none could be made). */
-  thumbUrl: string | null;
-  /** Presigned, short-lived: the full object, shown inline. */
-  url: string;
-  /** Our route that redirects to a presigned URL sending the original name as an attachment. */
-  downloadUrl: string;
-}
+/** A media record as the API sends it: its contract is in shared/contracts/media.ts. */
+export type { MediaRecord } from '../contracts/media';
 
 export const MEDIA_STAGE_LABELS: Record<MediaStage, string> = { before: 'Before', during: 'During', after: 'After' };
 export const MEDIA_KIND_LABELS: Record<MediaKind, string> = { photo: 'Photo', video: 'Video', document: 'Document' };

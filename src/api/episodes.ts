@@ -1,25 +1,17 @@
 // Episodes of one build: list, create, change (state, dates, place in the series), delete.
+import type { z } from 'zod';
 import { api } from './http';
-import type { EpisodeRecord, EpisodeState } from '@shared/domain';
+import type { EpisodeAnswer, EpisodeList } from '@shared/contracts/episode';
+import type { createEpisodeSchema, updateEpisodeSchema } from '@shared/schemas/episode';
 
-export interface EpisodeChange {
-  title?: string;
-  summary?: string | null;
-  state?: EpisodeState;
-  shootDate?: string | null;
-  releaseDate?: string | null;
-  videoUrl?: string | null;
-  runtimeSeconds?: number | null;
-  number?: number;
-  version: number;
-}
+/** The change a form sends (shared/schemas/episode.ts updateEpisodeSchema). */
+export type EpisodeChange = z.input<typeof updateEpisodeSchema>;
 
 const base = (buildId: number) => `/api/builds/${buildId}/episodes`;
 
 export const episodesApi = {
-  list: (buildId: number) => api.get<{ episodes: EpisodeRecord[] }>(base(buildId)),
-  create: (buildId: number, body: { title: string; shootDate?: string | null; releaseDate?: string | null; number?: number }) =>
-    api.post<{ episode: EpisodeRecord }>(base(buildId), body),
-  update: (buildId: number, id: number, body: EpisodeChange) => api.patch<{ episode: EpisodeRecord }>(`${base(buildId)}/${id}`, body),
+  list: (buildId: number) => api.get<EpisodeList>(base(buildId)),
+  create: (buildId: number, body: z.input<typeof createEpisodeSchema>) => api.post<EpisodeAnswer>(base(buildId), body),
+  update: (buildId: number, id: number, body: EpisodeChange) => api.patch<EpisodeAnswer>(`${base(buildId)}/${id}`, body),
   remove: (buildId: number, id: number) => api.del<void>(`${base(buildId)}/${id}`),
 };

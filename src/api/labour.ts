@@ -1,14 +1,14 @@
 // Labour entries of one build: hours by a person on an upgrade (installers log their own).
 import { api, qs } from './http';
-import type { LabourEntryRecord } from '@shared/domain';
+import type { LabourAnswer, LabourEntry as LabourEntryRecord, LabourList } from '@shared/contracts/labour';
 
 export type LabourInput = Partial<Omit<LabourEntryRecord, 'id' | 'buildId' | 'personName'>> & { personName?: string };
 
 const base = (buildId: number) => `/api/builds/${buildId}/labour`;
 
 export const labourApi = {
-  list: (buildId: number, q: { upgradeId?: number } = {}) => api.get<{ labour: LabourEntryRecord[] }>(base(buildId) + qs({ ...q })),
-  create: (buildId: number, body: LabourInput) => api.post<{ labourEntry: LabourEntryRecord }>(base(buildId), body),
-  update: (buildId: number, id: number, body: LabourInput) => api.patch<{ labourEntry: LabourEntryRecord }>(`${base(buildId)}/${id}`, body),
+  list: (buildId: number, q: { upgradeId?: number } = {}) => api.get<LabourList>(base(buildId) + qs({ ...q })),
+  create: (buildId: number, body: LabourInput) => api.post<LabourAnswer>(base(buildId), body),
+  update: (buildId: number, id: number, body: LabourInput) => api.patch<LabourAnswer>(`${base(buildId)}/${id}`, body),
   remove: (buildId: number, id: number) => api.del<void>(`${base(buildId)}/${id}`),
 };

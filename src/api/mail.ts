@@ -1,17 +1,11 @@
 // Outgoing mail that could not be sent (owner only): the list and sending one again.
 import { api } from './http';
+import type { OkAnswer } from '@shared/contracts/common';
+import type { FailedMailList } from '@shared/contracts/mail';
 
-export interface FailedMail {
-  id: number;
-  kind: string;
-  to: string;
-  subject: string;
-  attempts: number;
-  lastError: string | null;
-  createdAt: string;
-}
+export type { FailedMail } from '@shared/contracts/mail';
 
 export const mailApi = {
-  failed: () => api.get<{ mails: FailedMail[] }>('/api/mail/failed'),
-  resend: (id: number) => api.post<{ ok: true }>(`/api/mail/${id}/resend`, {}),
+  failed: () => api.get<FailedMailList>('/api/mail/failed'),
+  resend: (id: number) => api.post<OkAnswer>(`/api/mail/${id}/resend`, {}),
 };

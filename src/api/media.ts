@@ -2,9 +2,9 @@
 // real progress figure and can be cancelled.
 import { api, qs, ApiError } from './http';
 import type { MediaKind, MediaStage } from '@shared/domain';
-import type { MediaRecord } from '@shared/schemas/media';
+import type { MediaAnswer, MediaPage, MediaRecord } from '@shared/contracts/media';
 
-export type { MediaRecord };
+export type { MediaRecord, MediaPage };
 
 export interface MediaQuery {
   upgradeId?: number | null;
@@ -14,13 +14,6 @@ export interface MediaQuery {
   kind?: MediaKind | null;
   page?: number;
   pageSize?: number;
-}
-
-export interface MediaPage {
-  media: MediaRecord[];
-  total: number;
-  page: number;
-  pageSize: number;
 }
 
 export interface UploadFields {
@@ -42,7 +35,7 @@ const base = (buildId: number) => `/api/builds/${buildId}/media`;
 export const mediaApi = {
   list: (buildId: number, q: MediaQuery = {}) => api.get<MediaPage>(base(buildId) + qs({ ...q })),
   update: (buildId: number, id: number, body: { caption?: string | null; stage?: MediaStage | null }) =>
-    api.patch<{ media: MediaRecord }>(`${base(buildId)}/${id}`, body),
+    api.patch<MediaAnswer>(`${base(buildId)}/${id}`, body),
   remove: (buildId: number, id: number) => api.del<void>(`${base(buildId)}/${id}`),
   downloadUrl: (buildId: number, id: number) => `${base(buildId)}/${id}/download`,
 

@@ -1,12 +1,12 @@
 // Parts of one build: list (by upgrade or state), create, change, delete, CSV export and import.
 import { api, qs, request } from './http';
-import type { PartRecord, PartState } from '@shared/domain';
-import type { ImportReport } from './upgrades';
+import type { PartState } from '@shared/domain';
+import type { ImportReport, PartSeen } from '@shared/contracts/part';
 import { todayIn } from '@shared/dates';
 import { useBuildStore } from '@/stores/build';
 
-/** A part as the API sends it; order and arrival dates and the version come along when present. */
-export type PartRow = PartRecord & { orderedOn?: string | null; receivedOn?: string | null; version?: number };
+/** A part as the API sends it (shared/contracts/part.ts): cost and retail price when the person may see them. */
+export type PartRow = PartSeen;
 export type PartInput = Partial<Omit<PartRow, 'id' | 'buildId'>>;
 
 const base = (buildId: number) => `/api/builds/${buildId}/parts`;
@@ -46,4 +46,4 @@ export function today(): string {
 
 /** Marks a part received today: the one part change an installer makes from the bay. */
 export const receivePart = (buildId: number, part: PartRow) =>
-  partsApi.update(buildId, part.id, { state: 'received', receivedOn: today(), ...(part.version !== undefined ? { version: part.version } : {}) });
+  partsApi.update(buildId, part.id, { state: 'received', receivedOn: today(), version: part.version });

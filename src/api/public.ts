@@ -1,21 +1,8 @@
 // The public build page's API: no sign-in, builds marked public only.
 import { api, request } from './http';
+import type { Accepted, Confirmed, PublicBuild } from '@shared/contracts/public';
 
-export type PublicStatus = 'planned' | 'in_progress' | 'coming_soon' | 'done';
-
-export interface PublicBuild {
-  build: { slug: string; title: string; vehicle: { year: number; make: string; model: string; trim: string }; summary: string | null };
-  counts: { planned: number; inProgress: number; comingSoon: number; done: number };
-  areas: { area: string; label: string; upgrades: { id: number; title: string; becomes: string | null; status: PublicStatus; safetyFlags: string[]; liveEpisodeNumber: number | null }[] }[];
-  episodes: { number: number; title: string; summary: string | null; videoUrl: string | null; publishedOn: string | null; upgrades: string[] }[];
-  cautions: { flag: string; label: string; caution: string; upgrades: string[] }[];
-  requests: { id: number; title: string; details: string | null; state: 'new' | 'accepted'; votes: number; upgrade: string | null }[];
-}
-
-export interface Accepted {
-  ok: true;
-  message: string;
-}
+export type { PublicStatus, PublicBuild, Accepted } from '@shared/contracts/public';
 
 const b = (slug: string) => `/api/public/builds/${encodeURIComponent(slug)}`;
 
@@ -28,6 +15,6 @@ export const publicApi = {
   vote: (slug: string, requestId: number, body: { name?: string | null; email: string; website?: string }) =>
     api.post<Accepted>(`${b(slug)}/requests/${requestId}/votes`, body),
   confirm: (token: string) =>
-    api.get<{ ok: true; request: { id: number; title: string }; build: { slug: string; title: string } | null }>(`/api/public/confirm/${encodeURIComponent(token)}`),
-  unsubscribe: (token: string) => api.get<{ ok: true; message: string }>(`/api/public/unsubscribe/${encodeURIComponent(token)}`),
+    api.get<Confirmed>(`/api/public/confirm/${encodeURIComponent(token)}`),
+  unsubscribe: (token: string) => api.get<Accepted>(`/api/public/unsubscribe/${encodeURIComponent(token)}`),
 };

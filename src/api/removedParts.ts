@@ -1,6 +1,6 @@
 // Stock parts taken off the vehicle, with their disposition and sale prices (sales offset cost).
 import { api, qs } from './http';
-import type { RemovedPartRecord } from '@shared/domain';
+import type { RemovedPartSeen as RemovedPartRecord } from '@shared/contracts/removedPart';
 
 export type RemovedPartInput = Partial<Omit<RemovedPartRecord, 'id' | 'buildId'>>;
 

@@ -2,40 +2,17 @@
 // page, the remembered column mapping, and the import of a store export through XMLHttpRequest so the
 // upload has a real progress figure.
 import { api, qs, ApiError } from './http';
-import type { Attribution, SalesLineRecord, SalesSummary } from '@shared/sales';
+import type { Attribution } from '@shared/sales';
+import type { SalesSummarySeen, SalesLinesSeen, SalesImportReport, SalesMappingAnswer } from '@shared/contracts/sales';
 import type { SalesMapping } from '@shared/schemas/sales';
 
-export type { SalesSummary, SalesLineRecord, Attribution } from '@shared/sales';
+export type { Attribution } from '@shared/sales';
 export type { SalesMapping } from '@shared/schemas/sales';
-
-export interface SalesProblem {
-  line: number;
-  column: string;
-  message: string;
-}
-
-export interface SalesImportReport {
-  ok: boolean;
-  dryRun: boolean;
-  fileName: string | null;
-  linesRead: number;
-  newLines: number;
-  alreadyImported: number;
-  duplicatesInFile: number;
-  refunds: number;
-  errors: SalesProblem[];
-  duplicates: { line: number; sameAs: number }[];
-  sample: { line: number; orderId: string; lineId: string | null; soldOn: string; sku: string; quantity: number; revenueCents: number; currency: string; campaign: string | null; content: string | null; refund: boolean }[];
-  added?: number;
-}
-
-export interface SalesLinesPage {
-  kind: Attribution;
-  total: number;
-  page: number;
-  pageSize: number;
-  lines: SalesLineRecord[];
-}
+export type { SalesImportReport, SalesProblem } from '@shared/contracts/sales';
+/** The figures as a screen holds them: cost-based ones only when sent (the owner's). */
+export type SalesSummary = SalesSummarySeen;
+export type { SalesLineSeen as SalesLineRecord } from '@shared/contracts/sales';
+export type SalesLinesPage = SalesLinesSeen;
 
 /** The most the server takes in one file (its CSV body limit). */
 export const SALES_MAX_BYTES = 10 * 1024 * 1024;
@@ -45,7 +22,7 @@ const base = (buildId: number | string) => `/api/builds/${buildId}/sales`;
 export const salesApi = {
   summary: (buildId: number | string) => api.get<SalesSummary>(base(buildId)),
   lines: (buildId: number | string, q: { kind: Attribution; page: number; pageSize: number }) => api.get<SalesLinesPage>(`${base(buildId)}/lines${qs(q)}`),
-  mapping: (buildId: number | string) => api.get<{ mapping: SalesMapping | null }>(`${base(buildId)}/mapping`),
+  mapping: (buildId: number | string) => api.get<SalesMappingAnswer>(`${base(buildId)}/mapping`),
 
   /**
    * Sends the file for a preview (dryRun) or the import. `onProgress` gets 0…1 as the bytes leave the

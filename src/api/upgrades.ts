@@ -1,7 +1,9 @@
 // Upgrades of one build: the paged, filtered backlog, one upgrade with its lines, changes,
 // prerequisites, activity history and the backlog's CSV export and import.
 import { api, qs, request } from './http';
-import type { Area, InstallState, SafetyFlag, SegmentState, UpgradeRecord, PartRecord, RemovedPartRecord, LabourEntryRecord, ExpenseRecord } from '@shared/domain';
+import type { Area, InstallState, SafetyFlag, SegmentState } from '@shared/domain';
+import type { ActivityRow, UpgradeAnswer, UpgradeDetail, UpgradePage, UpgradeSeen as UpgradeRecord } from '@shared/contracts/upgrade';
+import type { ImportReport } from '@shared/contracts/part';
 
 export type UpgradeSort = 'title' | 'area' | 'priority' | 'estimatedHours' | 'installState' | 'episode';
 
@@ -18,34 +20,8 @@ export interface UpgradeQuery {
   pageSize?: number;
 }
 
-export interface UpgradePage {
-  upgrades: UpgradeRecord[];
-  total: number;
-  page: number;
-  pageSize: number;
-}
-
-export interface UpgradeDetail {
-  upgrade: UpgradeRecord;
-  parts: PartRecord[];
-  removedParts: RemovedPartRecord[];
-  labour: LabourEntryRecord[];
-  /** Absent for roles that may not see money. */
-  expenses?: ExpenseRecord[];
-}
-
-export interface ActivityRow {
-  id: number;
-  userName: string | null;
-  entity: string;
-  entityId: number | null;
-  action: string;
-  summary: string;
-  changes: Record<string, [unknown, unknown]>;
-  /** The changes in words, as the server allows this person to see them. */
-  readable: { field: string; from: string; to: string }[];
-  createdAt: string;
-}
+// The answers' types come from their contracts (shared/contracts/upgrade.ts).
+export type { UpgradePage, UpgradeDetail, ActivityRow } from '@shared/contracts/upgrade';
 
 /** Fields producers and owners edit (money fields are sent only by those who see money). */
 export type UpgradeInput = Partial<Omit<UpgradeRecord, 'id' | 'buildId' | 'version' | 'prerequisiteIds' | 'episodePosition'>>;
@@ -54,23 +30,19 @@ export type UpgradeInput = Partial<Omit<UpgradeRecord, 'id' | 'buildId' | 'versi
 export type InstallerChange = { installState?: InstallState; installSegment?: SegmentState; demoSegment?: SegmentState; confirmPartsNotReceived?: boolean };
 
 /** The answer of a CSV import, dry run or not. */
-export interface ImportReport {
-  ok: boolean;
-  rows: Record<string, unknown>[] | number;
-  errors: { line: number; field?: string; message: string }[];
-}
+export type { ImportReport } from '@shared/contracts/part';
 
 const base = (buildId: number) => `/api/builds/${buildId}/upgrades`;
 
 export const upgradesApi = {
   list: (buildId: number, q: UpgradeQuery = {}) => api.get<UpgradePage>(base(buildId) + qs({ ...q })),
   get: (buildId: number, id: number) => api.get<UpgradeDetail>(`${base(buildId)}/${id}`),
-  create: (buildId: number, body: UpgradeInput) => api.post<{ upgrade: UpgradeRecord }>(base(buildId), body),
+  create: (buildId: number, body: UpgradeInput) => api.post<UpgradeAnswer>(base(buildId), body),
   update: (buildId: number, id: number, body: (UpgradeInput | InstallerChange) & { version: number }) =>
-    api.patch<{ upgrade: UpgradeRecord }>(`${base(buildId)}/${id}`, body),
+    api.patch<UpgradeAnswer>(`${base(buildId)}/${id}`, body),
   remove: (buildId: number, id: number) => api.del<void>(`${base(buildId)}/${id}`),
   setPrerequisites: (buildId: number, id: number, prerequisiteIds: number[]) =>
-    api.put<{ upgrade: UpgradeRecord }>(`${base(buildId)}/${id}/prerequisites`, { prerequisiteIds }),
+    api.put<UpgradeAnswer>(`${base(buildId)}/${id}/prerequisites`, { prerequisiteIds }),
   activity: (buildId: number, id: number) => api.get<{ activity: ActivityRow[] }>(`${base(buildId)}/${id}/activity`),
   exportCsv: (buildId: number) => request<string>('GET', `${base(buildId)}.csv`, undefined, { raw: true }),
   importCsv: (buildId: number, csv: string, dryRun: boolean) =>

@@ -5,6 +5,9 @@ import { describe, it, expect, beforeAll } from 'vitest';
 import { anonymous, signInAs, testApp } from '../helpers/api';
 import { routeTable } from '../../server/routes';
 import { Build, Upgrade } from '../../server/models';
+import { everyAnswerHasAContract } from '../helpers/contract';
+
+everyAnswerHasAContract();
 
 const MISSING_BUILD = 2_147_000_000;
 let ternId: number;
@@ -73,5 +76,31 @@ describe('build-scoped routes', () => {
     expect(bad.status).toBe(400);
     const missing = await producer.patch(`/api/builds/${ternId}/upgrades/${MISSING_BUILD}`).send({ estimatedHours: 'lots' });
     expect(missing.status).toBe(404);
+  });
+
+  it('run the same order on every router: media checks the role before the build (a person without the role gets 403 whether the build exists or not)', async () => {
+    const marketing = await signInAs('marketing');
+    const known = await marketing.patch(`/api/builds/${ternId}/media/1`).send({ caption: 'x' });
+    const unknown = await marketing.patch(`/api/builds/${MISSING_BUILD}/media/1`).send({ caption: 'x' });
+    expect([known.status, unknown.status]).toEqual([403, 403]);
+    const installer = await signInAs('installer');
+    const requests = [await installer.get(`/api/builds/${ternId}/viewer-requests`), await installer.get(`/api/builds/${MISSING_BUILD}/viewer-requests`)];
+    expect(requests.map((r) => r.status)).toEqual([403, 403]);
+  });
+
+  it('check the media record is in the build before the body: another build\'s or a missing media row is 404 whatever the body', async () => {
+    const producer = await signInAs('producer');
+    const missing = await producer.patch(`/api/builds/${ternId}/media/${MISSING_BUILD}`).send({ stage: 'not-a-stage' });
+    expect(missing.status).toBe(404);
+    const notNumber = await producer.patch(`/api/builds/${ternId}/media/abc`).send({ stage: 'not-a-stage' });
+    expect(notNumber.status).toBe(404);
+  });
+
+  it('answer one build the same way: a signed-in person gets 404 for a build that does not exist, 200 for one that does', async () => {
+    const installer = await signInAs('installer');
+    expect((await installer.get(`/api/builds/${MISSING_BUILD}`)).status).toBe(404);
+    const res = await installer.get(`/api/builds/${ternId}`);
+    expect(res.status).toBe(200);
+    expect(res.body.build.id).toBe(ternId);
   });
 });

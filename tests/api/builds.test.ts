@@ -5,6 +5,9 @@ import { counts } from '../helpers/db';
 import { Build, Upgrade, UpgradePrerequisite, Part, RemovedPart, LabourEntry, Expense } from '../../server/models';
 import { checkVin } from '../../shared/vin';
 import { AREAS, isUpgradeDone } from '../../shared/domain';
+import { everyAnswerHasAContract } from '../helpers/contract';
+
+everyAnswerHasAContract();
 
 let ternId: number;
 let as: Record<DemoRole, Awaited<ReturnType<typeof agentsByRole>>[DemoRole]>;

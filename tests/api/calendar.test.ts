@@ -4,6 +4,10 @@ import ICAL from 'ical.js';
 import { anonymous, signInAs } from '../helpers/api';
 import { count } from '../helpers/db';
 import { Build, Episode } from '../../server/models';
+import { everyAnswerHasAContract } from '../helpers/contract';
+
+// Every JSON answer these tests read is parsed with its route's contract (shared/contracts).
+everyAnswerHasAContract();
 
 let build: Build;
 

@@ -8,6 +8,7 @@ import { signInAs, testApp, DEMO_EMAIL, DEMO_PASSWORD, type DemoRole } from '../
 import { Build, Upgrade } from '../../server/models';
 import { sequelize } from '../../server/db/sequelize';
 import { stopBuildEvents } from '../../server/services/buildEvents';
+import { BuildChange } from '../../shared/contracts/events';
 
 let server: http.Server;
 let port: number;
@@ -78,7 +79,7 @@ describe('live updates of a build', () => {
       const started = Date.now();
       const res = await (await signInAs('installer')).patch(`/api/builds/${buildId}/upgrades/${u.id}`).send({ installState: 'in_bay', version: u.version });
       expect(res.status).toBe(200);
-      const data = JSON.parse(await within(2000, stream.next('change')));
+      const data = BuildChange.parse(JSON.parse(await within(2000, stream.next('change'))));
       expect(Date.now() - started).toBeLessThan(2000);
       expect(data).toEqual({ what: ['upgrades'] });
     } finally {
@@ -92,7 +93,7 @@ describe('live updates of a build', () => {
       await within(2000, stream.next('ready'));
       await sequelize.query(`UPDATE parts SET supplier = supplier WHERE build_id = :b AND id = (SELECT min(id) FROM parts WHERE build_id = :b)`, { replacements: { b: buildId } });
       const data = await within(2000, stream.next('change'));
-      expect(JSON.parse(data)).toEqual({ what: ['parts'] });
+      expect(BuildChange.parse(JSON.parse(data))).toEqual({ what: ['parts'] });
     } finally {
       stream.close();
     }
@@ -106,7 +107,7 @@ describe('live updates of a build', () => {
       await Upgrade.create({ buildId: other.id, title: 'Elsewhere', area: 'cabin', replaces: null, becomes: null, installedOn: null, episodeId: null, episodePosition: null, notes: null, tireFrom: null, tireTo: null });
       await Upgrade.create({ buildId, title: 'Here', area: 'cabin', replaces: null, becomes: null, installedOn: null, episodeId: null, episodePosition: null, notes: null, tireFrom: null, tireTo: null });
       // The first change message is this build's own insert, not the other build's.
-      expect(JSON.parse(await within(2000, stream.next('change')))).toEqual({ what: ['upgrades'] });
+      expect(BuildChange.parse(JSON.parse(await within(2000, stream.next('change'))))).toEqual({ what: ['upgrades'] });
     } finally {
       stream.close();
     }

@@ -3,6 +3,9 @@ import { describe, it, expect, beforeAll } from 'vitest';
 import { anonymous, agentsByRole } from '../helpers/api';
 import { counts } from '../helpers/db';
 import { Build, Expense } from '../../server/models';
+import { everyAnswerHasAContract } from '../helpers/contract';
+
+everyAnswerHasAContract();
 
 let tern: number;
 let as: Awaited<ReturnType<typeof agentsByRole>>;

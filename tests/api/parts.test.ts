@@ -4,6 +4,9 @@ import { describe, it, expect, beforeAll } from 'vitest';
 import { anonymous, agentsByRole } from '../helpers/api';
 import { counts } from '../helpers/db';
 import { Build, Part, RemovedPart, Upgrade } from '../../server/models';
+import { everyAnswerHasAContract } from '../helpers/contract';
+
+everyAnswerHasAContract();
 
 let tern: number;
 let other: number;

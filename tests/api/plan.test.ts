@@ -3,6 +3,10 @@ import { describe, it, expect, beforeAll } from 'vitest';
 import { anonymous, signInAs } from '../helpers/api';
 import { counts } from '../helpers/db';
 import { sequelize, Build, Upgrade, Episode } from '../../server/models';
+import { everyAnswerHasAContract } from '../helpers/contract';
+
+// Every JSON answer these tests read is parsed with its route's contract (shared/contracts).
+everyAnswerHasAContract();
 
 let buildId: number;
 let base: string;

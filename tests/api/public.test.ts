@@ -15,6 +15,9 @@ import { processDueMail } from '../../server/mail/worker';
 import { emailHash, unsubscribeToken } from '../../server/services/viewerPrivacy';
 import { fieldWords } from '../../shared/schemas/errorMap';
 import { DEMO_USERS } from '../../server/db/seeders/0001-demo-users';
+import { everyAnswerHasAContract } from '../helpers/contract';
+
+everyAnswerHasAContract();
 
 const TABLES = ['viewer_requests', 'viewer_votes', 'mail_outbox', 'unsubscribes'];
 const slug = 'project-tern';

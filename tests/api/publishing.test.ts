@@ -7,6 +7,10 @@ import { mailsTo, linkIn } from '../helpers/mailbox';
 import { Build, Episode, EpisodeChapter, Part, Upgrade, MailOutbox, Activity, sequelize } from '../../server/models';
 import { processDueMail } from '../../server/mail/worker';
 import { config } from '../../server/config';
+import { everyAnswerHasAContract } from '../helpers/contract';
+
+// Every JSON answer these tests read is parsed with its route's contract (shared/contracts).
+everyAnswerHasAContract();
 
 let tern: Build;
 let ep3: Episode;

@@ -7,6 +7,10 @@ import { agentsByRole, anonymous } from '../helpers/api';
 import { counts, count } from '../helpers/db';
 import { Build, Episode, Part, Upgrade } from '../../server/models';
 import { TERN_SALES_FILE, TERN_SALES_MAPPING } from '../../server/db/seeders/0006-project-tern-sales';
+import { everyAnswerHasAContract } from '../helpers/contract';
+
+// Every JSON answer these tests read is parsed with its route's contract (shared/contracts).
+everyAnswerHasAContract();
 
 let as: Awaited<ReturnType<typeof agentsByRole>>;
 let tern: Build;

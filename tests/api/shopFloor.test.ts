@@ -2,6 +2,10 @@
 import { describe, it, expect, beforeAll } from 'vitest';
 import { anonymous, signInAs } from '../helpers/api';
 import { Build, Episode } from '../../server/models';
+import { everyAnswerHasAContract } from '../helpers/contract';
+
+// Every JSON answer these tests read is parsed with its route's contract (shared/contracts).
+everyAnswerHasAContract();
 
 let buildId: number;
 let base: string;

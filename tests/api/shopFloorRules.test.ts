@@ -6,6 +6,10 @@ import { describe, it, expect, beforeAll } from 'vitest';
 import { signInAs } from '../helpers/api';
 import { Activity, Build, Episode, Upgrade, User } from '../../server/models';
 import { sequelize } from '../../server/db/sequelize';
+import { everyAnswerHasAContract } from '../helpers/contract';
+
+// Every JSON answer these tests read is parsed with its route's contract (shared/contracts).
+everyAnswerHasAContract();
 
 let buildId: number;
 let base: string;

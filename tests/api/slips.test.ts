@@ -5,6 +5,10 @@ import { anonymous, signInAs } from '../helpers/api';
 import { counts } from '../helpers/db';
 import { todayIn } from '../../shared/dates';
 import { sequelize, Build, Episode, Part } from '../../server/models';
+import { everyAnswerHasAContract } from '../helpers/contract';
+
+// Every JSON answer these tests read is parsed with its route's contract (shared/contracts).
+everyAnswerHasAContract();
 
 let buildId: number;
 const plus = (iso: string, days: number) => new Date(Date.parse(`${iso}T00:00:00Z`) + days * 86_400_000).toISOString().slice(0, 10);

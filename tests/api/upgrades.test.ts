@@ -4,6 +4,9 @@ import { describe, it, expect, beforeAll } from 'vitest';
 import { anonymous, agentsByRole, type DemoRole } from '../helpers/api';
 import { counts } from '../helpers/db';
 import { Build, Upgrade } from '../../server/models';
+import { everyAnswerHasAContract } from '../helpers/contract';
+
+everyAnswerHasAContract();
 
 let tern: number;
 let other: number;

@@ -2,6 +2,9 @@
 import { describe, it, expect } from 'vitest';
 import { anonymous, signInAs } from '../helpers/api';
 import { count } from '../helpers/db';
+import { everyAnswerHasAContract } from '../helpers/contract';
+
+everyAnswerHasAContract();
 
 describe('users and roles', () => {
   it('the owner lists users without password hashes', async () => {

@@ -6,6 +6,9 @@ import { counts } from '../helpers/db';
 import { Build, Upgrade, ViewerRequest, ViewerVote, Activity } from '../../server/models';
 import { votesByUpgrade } from '../../server/services/votes';
 import { emailHash, newToken } from '../../server/services/viewerPrivacy';
+import { everyAnswerHasAContract } from '../helpers/contract';
+
+everyAnswerHasAContract();
 
 const agents = new Map<DemoRole, Awaited<ReturnType<typeof signInFresh>>>();
 async function signInAs(role: DemoRole) {

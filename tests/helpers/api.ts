@@ -2,6 +2,7 @@
 import request from 'supertest';
 import type { Express } from 'express';
 import { createApp } from '../../server/app';
+import { checkAnswer } from './contract';
 
 export const DEMO_PASSWORD = 'bayslate-demo';
 export const DEMO_EMAIL = {
@@ -21,7 +22,24 @@ export function testApp(): Express {
 
 /** An agent that behaves like our client: it sends our cross-site header on every request. */
 export function anonymous() {
-  return request.agent(testApp()).set('X-Requested-With', 'Bayslate');
+  return checked(request.agent(testApp()).set('X-Requested-With', 'Bayslate'));
+}
+
+/** Every answer the agent receives is parsed with its contract for the agent's roles (helpers/contract.ts). */
+function checked<A extends object>(agent: A): A {
+  let roles: readonly string[] | undefined;
+  for (const method of ['get', 'post', 'put', 'patch', 'delete', 'del'] as const) {
+    const a = agent as Record<string, unknown>;
+    const original = a[method] as ((url: string, ...rest: unknown[]) => request.Test) | undefined;
+    if (typeof original !== 'function') continue;
+    a[method] = (url: string, ...rest: unknown[]) =>
+      original.call(agent, url, ...rest).expect((res) => {
+        checkAnswer(method === 'del' ? 'delete' : method, url, roles, res);
+        if (url.startsWith('/api/auth/login') && res.status === 200) roles = res.body?.user?.roles;
+        if (url.startsWith('/api/auth/logout') && res.status === 200) roles = undefined;
+      });
+  }
+  return agent;
 }
 
 export async function signInAs(role: DemoRole | { email: string; password: string }) {
