@@ -27,8 +27,8 @@ export function setUnauthorizedHandler(fn: () => void) {
   onUnauthorized = fn;
 }
 
-export async function request<T>(method: string, url: string, body?: unknown, opts: { raw?: boolean; contentType?: string; cache?: RequestCache } = {}): Promise<T> {
-  const headers: Record<string, string> = { 'X-Requested-With': 'Bayslate', Accept: 'application/json' };
+export async function request<T>(method: string, url: string, body?: unknown, opts: { raw?: boolean; contentType?: string; cache?: RequestCache } & ChangeOptions = {}): Promise<T> {
+  const headers: Record<string, string> = { 'X-Requested-With': 'Bayslate', Accept: 'application/json', ...keyHeaders(opts.idempotencyKey) };
   let payload: BodyInit | undefined;
   if (body !== undefined) {
     headers['Content-Type'] = opts.contentType ?? 'application/json';
@@ -55,11 +55,17 @@ export async function request<T>(method: string, url: string, body?: unknown, op
   return (await res.json()) as T;
 }
 
+/** A change sent with a key happens once on the server, however often it is resent (the phone's waiting changes). */
+export interface ChangeOptions {
+  idempotencyKey?: string;
+}
+export const keyHeaders = (key: string | undefined): Record<string, string> => (key ? { 'Idempotency-Key': key } : {});
+
 export const api = {
   get: <T>(url: string) => request<T>('GET', url),
-  post: <T>(url: string, body: unknown = {}) => request<T>('POST', url, body),
+  post: <T>(url: string, body: unknown = {}, opts: ChangeOptions = {}) => request<T>('POST', url, body, opts),
   put: <T>(url: string, body: unknown) => request<T>('PUT', url, body),
-  patch: <T>(url: string, body: unknown) => request<T>('PATCH', url, body),
+  patch: <T>(url: string, body: unknown, opts: ChangeOptions = {}) => request<T>('PATCH', url, body, opts),
   del: <T>(url: string) => request<T>('DELETE', url),
 };
 

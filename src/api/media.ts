@@ -1,6 +1,6 @@
 // Media of one build: list, edit, delete, and uploads through XMLHttpRequest so each file has a
 // real progress figure and can be cancelled.
-import { api, qs, ApiError } from './http';
+import { api, qs, ApiError, keyHeaders, type ChangeOptions } from './http';
 import type { MediaKind, MediaStage } from '@shared/domain';
 import type { MediaAnswer, MediaPage, MediaRecord } from '@shared/contracts/media';
 
@@ -40,7 +40,7 @@ export const mediaApi = {
   downloadUrl: (buildId: number, id: number) => `${base(buildId)}/${id}/download`,
 
   /** Uploads one file; `onProgress` gets 0…1 as the bytes leave the browser. */
-  upload(buildId: number, file: File, fields: UploadFields, onProgress: (fraction: number) => void): UploadHandle {
+  upload(buildId: number, file: File, fields: UploadFields, onProgress: (fraction: number) => void, opts: ChangeOptions = {}): UploadHandle {
     const xhr = new XMLHttpRequest();
     const done = new Promise<MediaRecord>((resolve, reject) => {
       const form = new FormData();
@@ -50,6 +50,7 @@ export const mediaApi = {
       xhr.open('POST', base(buildId));
       xhr.setRequestHeader('X-Requested-With', 'Bayslate');
       xhr.setRequestHeader('Accept', 'application/json');
+      for (const [k, v] of Object.entries(keyHeaders(opts.idempotencyKey))) xhr.setRequestHeader(k, v);
       xhr.responseType = 'json';
       xhr.upload.onprogress = (e) => {
         if (e.lengthComputable) onProgress(e.loaded / e.total);

@@ -1,6 +1,6 @@
 // Upgrades of one build: the paged, filtered backlog, one upgrade with its lines, changes,
 // prerequisites, activity history and the backlog's CSV export and import.
-import { api, qs, request } from './http';
+import { api, qs, request, type ChangeOptions } from './http';
 import type { Area, InstallState, SafetyFlag, SegmentState } from '@shared/domain';
 import type { ActivityRow, UpgradeAnswer, UpgradeDetail, UpgradePage, UpgradeSeen as UpgradeRecord } from '@shared/contracts/upgrade';
 import type { ImportReport } from '@shared/contracts/part';
@@ -38,8 +38,8 @@ export const upgradesApi = {
   list: (buildId: number, q: UpgradeQuery = {}) => api.get<UpgradePage>(base(buildId) + qs({ ...q })),
   get: (buildId: number, id: number) => api.get<UpgradeDetail>(`${base(buildId)}/${id}`),
   create: (buildId: number, body: UpgradeInput) => api.post<UpgradeAnswer>(base(buildId), body),
-  update: (buildId: number, id: number, body: (UpgradeInput | InstallerChange) & { version: number }) =>
-    api.patch<UpgradeAnswer>(`${base(buildId)}/${id}`, body),
+  update: (buildId: number, id: number, body: (UpgradeInput | InstallerChange) & { version: number }, opts: ChangeOptions = {}) =>
+    api.patch<UpgradeAnswer>(`${base(buildId)}/${id}`, body, opts),
   remove: (buildId: number, id: number) => api.del<void>(`${base(buildId)}/${id}`),
   setPrerequisites: (buildId: number, id: number, prerequisiteIds: number[]) =>
     api.put<UpgradeAnswer>(`${base(buildId)}/${id}/prerequisites`, { prerequisiteIds }),

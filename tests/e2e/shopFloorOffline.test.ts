@@ -161,6 +161,9 @@ describe('shop floor offline', () => {
       expect(labour.slice(-2).map((l) => [l.upgrade_id, l.hours])).toEqual([[charger.id, 1.5], [wiring.id, 2]]);
       const media = await db.sql<{ stage: string }>(`SELECT stage FROM media WHERE upgrade_id = $1 AND original_name = 'charger-offline.jpg'`, [charger.id]);
       expect(media).toEqual([{ stage: 'during' }]);
+      // Each of the six waiting changes went with its own key (a resend would get its first answer back).
+      const receipts = await db.sql<{ status: number }>(`SELECT status FROM request_receipts ORDER BY status`);
+      expect(receipts.map((r) => r.status)).toEqual([200, 200, 201, 201, 201, 409]);
 
       // The notice stays until dismissed, across a reload.
       await page.reload();
