@@ -122,5 +122,8 @@ export const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/);
 export const idNumber = z.number().int().positive();
 export const centsOut = z.number().int();
 
-/** A route table: 'METHOD /api/path/:param' → the contract of its 2xx answer. */
+/**
+ * A route table: 'METHOD /api/path/:param' → the contract of its 2xx answer; 'METHOD /api/path 400' →
+ * the contract of an error answer that carries more than ErrorAnswer.
+ */
 export type RouteTable = Record<string, z.ZodType | Audiences>;

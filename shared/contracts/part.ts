@@ -2,7 +2,7 @@
 // money and retail roles).
 import { z } from 'zod';
 import { PART_CONDITIONS, PART_STATES } from '../domain';
-import { audiences, day, idNumber, type RouteTable, type Seen } from './common';
+import { audiences, day, ErrorAnswer, idNumber, type RouteTable, type Seen } from './common';
 
 /** What every role reads of a part. */
 export const PartForCrew = z.object({
@@ -52,9 +52,14 @@ export const ImportReport = z.object({
 });
 export type ImportReport = z.infer<typeof ImportReport>;
 
+/** A refused import (400): every problem, and nothing written. */
+export const ImportRefused = ImportReport.extend({ error: ErrorAnswer.shape.error });
+export type ImportRefused = z.infer<typeof ImportRefused>;
+
 export const partRoutes = {
   'GET /api/builds/:buildId/parts': PartPage,
   'POST /api/builds/:buildId/parts': PartAnswer,
   'POST /api/builds/:buildId/parts/import': ImportReport,
+  'POST /api/builds/:buildId/parts/import 400': ImportRefused,
   'PATCH /api/builds/:buildId/parts/:partId': PartAnswer,
 } satisfies RouteTable;

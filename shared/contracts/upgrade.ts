@@ -3,7 +3,7 @@
 import { z } from 'zod';
 import { AREAS, INSTALL_STATES, SAFETY_FLAGS, SEGMENT_STATES } from '../domain';
 import { audiences, day, idNumber, timestamp, type RouteTable, type Seen } from './common';
-import { ImportReport, PartForCrew, PartForMoney, PartForRetail, type PartSeen } from './part';
+import { ImportRefused, ImportReport, PartForCrew, PartForMoney, PartForRetail, type PartSeen } from './part';
 import { RemovedPartForCrew, RemovedPartForMoney, type RemovedPartSeen } from './removedPart';
 import { LabourEntry } from './labour';
 import { Expense } from './expense';
@@ -89,6 +89,7 @@ export const upgradeRoutes = {
   'GET /api/builds/:buildId/upgrades': UpgradePage,
   'POST /api/builds/:buildId/upgrades': UpgradeAnswer,
   'POST /api/builds/:buildId/upgrades/import': ImportReport,
+  'POST /api/builds/:buildId/upgrades/import 400': ImportRefused,
   'GET /api/builds/:buildId/upgrades/:upgradeId': UpgradeDetail,
   'PATCH /api/builds/:buildId/upgrades/:upgradeId': UpgradeAnswer,
   'PUT /api/builds/:buildId/upgrades/:upgradeId/prerequisites': UpgradeAnswer,
