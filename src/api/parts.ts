@@ -4,6 +4,8 @@ import type { PartRecord, PartState } from '@shared/domain';
 import type { ImportReport } from './upgrades';
 import { todayIn } from '@shared/dates';
 import { useBuildStore } from '@/stores/build';
+import { queryClient } from '@/queries/client';
+import { keys } from '@/queries/keys';
 
 /** A part as the API sends it; order and arrival dates and the version come along when present. */
 export type PartRow = PartRecord & { orderedOn?: string | null; receivedOn?: string | null; version?: number };
@@ -37,7 +39,8 @@ export async function allParts(buildId: number): Promise<PartRow[]> {
 export function today(): string {
   let zone: string | undefined;
   try {
-    zone = useBuildStore().build?.timeZone;
+    const id = useBuildStore().buildId;
+    zone = id ? queryClient.getQueryData<{ timeZone?: string }>(keys.buildRecord(id))?.timeZone : undefined;
   } catch {
     zone = undefined; // no store yet (outside the app): UTC
   }
