@@ -33,10 +33,13 @@ export function useZodForm<S extends ZodType>(schema: S) {
     failure.value = '';
   }
 
-  /** Validates with the shared schema; fills `errors` and returns null when something is wrong. */
-  function check(body: unknown): z.output<S> | null {
+  /**
+   * Validates with the shared schema (or `other`, say the update schema of a form that also
+   * creates); fills `errors` and returns null when something is wrong.
+   */
+  function check(body: unknown, other?: ZodType): z.output<S> | null {
     clear();
-    const parsed = schema.safeParse(body);
+    const parsed = (other ?? schema).safeParse(body);
     if (parsed.success) return parsed.data as z.output<S>;
     const next: FieldErrors = {};
     for (const issue of parsed.error.issues) next[issue.path.map(String).join('.') || '(form)'] ??= issue.message;
