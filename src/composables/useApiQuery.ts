@@ -19,6 +19,8 @@ export interface ApiQueryOptions {
   keepPrevious?: boolean;
   /** How long an answer stays fresh (ms); live notices and writes invalidate it anyway. */
   staleTime?: number;
+  /** While true the query keeps its data but is not read again (a form holds a draft of it). */
+  paused?: () => boolean;
 }
 
 export function useApiQuery<T>(key: () => QueryKey | null, fetch: () => Promise<T>, opts: ApiQueryOptions) {
@@ -26,7 +28,7 @@ export function useApiQuery<T>(key: () => QueryKey | null, fetch: () => Promise<
   const query = useQuery({
     queryKey,
     queryFn: fetch,
-    enabled: computed(() => key() !== null),
+    enabled: computed(() => key() !== null && !opts.paused?.()),
     ...(opts.keepPrevious ? { placeholderData: keepPreviousData } : {}),
     ...(opts.staleTime !== undefined ? { staleTime: opts.staleTime } : {}),
   });
