@@ -17,3 +17,9 @@ export const usersApi = {
   update: (id: number, body: Partial<Pick<UserRow, 'name' | 'roles' | 'active'>>) => api.patch<{ user: UserRow }>(`/api/users/${id}`, body),
   resetPassword: (id: number, password: string) => api.post(`/api/users/${id}/password`, { password }),
 };
+
+/** An invitation link (/welcome/:token): who it is for, and the password the new person chooses. */
+export const invitationsApi = {
+  read: (token: string) => api.get<{ name: string; email: string }>(`/api/invitations/${encodeURIComponent(token)}`),
+  accept: (token: string, password: string) => api.post(`/api/invitations/${encodeURIComponent(token)}`, { password }),
+};
