@@ -18,6 +18,8 @@ export type FieldErrors = Record<string, string>;
 export interface SubmitOptions {
   /** Sees an error first (a stale save, say); return true when it has dealt with it. */
   onError?: (e: unknown) => boolean;
+  /** Checks with this schema instead (a form that sends one of two bodies). */
+  schema?: ZodType;
 }
 
 const NOT_SENT = 'That did not go through. Try again in a moment.';
@@ -63,7 +65,7 @@ export function useZodForm<S extends ZodType>(schema: S) {
    * (with the errors shown) when the body is refused here or by the server.
    */
   async function submit<T>(body: unknown, send: (data: z.output<S>) => Promise<T>, opts: SubmitOptions = {}): Promise<T | undefined> {
-    const data = check(body);
+    const data = check(body, opts.schema);
     if (data === null) return undefined;
     busy.value = true;
     try {
