@@ -1,6 +1,7 @@
-// Client entry: Pinia, the router, the shipped Poppins font.
+// Client entry: Pinia (client state), TanStack Query (server data), the router, the shipped Poppins font.
 import { createApp } from 'vue';
 import { createPinia } from 'pinia';
+import { VueQueryPlugin } from '@tanstack/vue-query';
 import '@fontsource/poppins/latin-400.css';
 import '@fontsource/poppins/latin-500.css';
 import '@fontsource/poppins/latin-600.css';
@@ -9,9 +10,11 @@ import { router } from './router';
 import { setUnauthorizedHandler } from './api/http';
 import { useSessionStore } from './stores/session';
 import { registerOfflineApp } from './offline/registerApp';
+import { queryClient } from './queries/client';
 
 const app = createApp(App);
 app.use(createPinia());
+app.use(VueQueryPlugin, { queryClient });
 app.use(router);
 registerOfflineApp(router);
 setUnauthorizedHandler(() => {

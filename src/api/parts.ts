@@ -4,6 +4,8 @@ import type { PartState } from '@shared/domain';
 import type { ImportReport, PartSeen } from '@shared/contracts/part';
 import { todayIn } from '@shared/dates';
 import { useBuildStore } from '@/stores/build';
+import { queryClient } from '@/queries/client';
+import { keys } from '@/queries/keys';
 
 /** A part as the API sends it (shared/contracts/part.ts): cost and retail price when the person may see them. */
 export type PartRow = PartSeen;
@@ -37,7 +39,8 @@ export async function allParts(buildId: number): Promise<PartRow[]> {
 export function today(): string {
   let zone: string | undefined;
   try {
-    zone = useBuildStore().build?.timeZone;
+    const id = useBuildStore().buildId;
+    zone = id ? queryClient.getQueryData<{ timeZone?: string }>(keys.buildRecord(id))?.timeZone : undefined;
   } catch {
     zone = undefined; // no store yet (outside the app): UTC
   }

@@ -1,12 +1,17 @@
 // Live updates of one build: listens to the server's event stream (GET /api/builds/:id/events) while
-// the component is mounted and calls `onChange` with what changed ("upgrades", "parts", … or "*"
-// after a reconnect), so the screen re-fetches through its normal API. A burst of notices within a
-// short window becomes one call; EventSource reconnects by itself when the network comes back.
+// the component is mounted and marks the build's queries stale (keys.build), so every screen that
+// reads the build through a query re-fetches by itself; `onChange`, when given, hears what changed
+// ("upgrades", "parts", … or "*" after a reconnect) for a screen that holds its own draft (the
+// planner). A burst of notices within a short window becomes one call; EventSource reconnects by
+// itself when the network comes back.
 import { onBeforeUnmount, onMounted, ref, watch, type Ref } from 'vue';
+import { useQueryClient } from '@tanstack/vue-query';
+import { invalidateBuild } from '@/queries/keys';
 
 const GATHER_MS = 200;
 
-export function useBuildEvents(buildId: Ref<number | null | undefined> | (() => number | null | undefined), onChange: (what: string[]) => void) {
+export function useBuildEvents(buildId: Ref<number | null | undefined> | (() => number | null | undefined), onChange?: (what: string[]) => void) {
+  const client = useQueryClient();
   const connected = ref(false);
   let source: EventSource | null = null;
   let timer: ReturnType<typeof setTimeout> | null = null;
@@ -18,7 +23,9 @@ export function useBuildEvents(buildId: Ref<number | null | undefined> | (() => 
     timer = null;
     const what = [...gathered];
     gathered = new Set();
-    onChange(what);
+    const id = read();
+    if (id) void invalidateBuild(client, id);
+    onChange?.(what);
   }
   function queue(what: string[]) {
     what.forEach((w) => gathered.add(w));

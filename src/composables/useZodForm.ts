@@ -18,6 +18,8 @@ export type FieldErrors = Record<string, string>;
 export interface SubmitOptions {
   /** Sees an error first (a stale save, say); return true when it has dealt with it. */
   onError?: (e: unknown) => boolean;
+  /** Checks with this schema instead (a form that sends one of two bodies). */
+  schema?: ZodType;
 }
 
 const NOT_SENT = 'That did not go through. Try again in a moment.';
@@ -33,10 +35,13 @@ export function useZodForm<S extends ZodType>(schema: S) {
     failure.value = '';
   }
 
-  /** Validates with the shared schema; fills `errors` and returns null when something is wrong. */
-  function check(body: unknown): z.output<S> | null {
+  /**
+   * Validates with the shared schema (or `other`, say the update schema of a form that also
+   * creates); fills `errors` and returns null when something is wrong.
+   */
+  function check(body: unknown, other?: ZodType): z.output<S> | null {
     clear();
-    const parsed = schema.safeParse(body);
+    const parsed = (other ?? schema).safeParse(body);
     if (parsed.success) return parsed.data as z.output<S>;
     const next: FieldErrors = {};
     for (const issue of parsed.error.issues) next[issue.path.map(String).join('.') || '(form)'] ??= issue.message;
@@ -60,7 +65,7 @@ export function useZodForm<S extends ZodType>(schema: S) {
    * (with the errors shown) when the body is refused here or by the server.
    */
   async function submit<T>(body: unknown, send: (data: z.output<S>) => Promise<T>, opts: SubmitOptions = {}): Promise<T | undefined> {
-    const data = check(body);
+    const data = check(body, opts.schema);
     if (data === null) return undefined;
     busy.value = true;
     try {
