@@ -53,7 +53,8 @@ export const ImportReport = z.object({
 export type ImportReport = z.infer<typeof ImportReport>;
 
 /** A refused import (400): every problem, and nothing written. */
-export const ImportRefused = ImportReport.extend({ error: ErrorAnswer.shape.error });
+/** A refused import: its report beside the error, or a plain error when the request itself was wrong (no mapping, no file). */
+export const ImportRefused = z.union([ImportReport.extend({ error: ErrorAnswer.shape.error }), ErrorAnswer]);
 export type ImportRefused = z.infer<typeof ImportRefused>;
 
 export const partRoutes = {

@@ -165,7 +165,8 @@ export const SalesImportReport = z.object({
 });
 export type SalesImportReport = z.infer<typeof SalesImportReport>;
 /** A refused file (400): the report, and beside it the error naming each problem; nothing was imported. */
-export const SalesImportRefused = SalesImportReport.extend({ error: ErrorAnswer.shape.error });
+/** A refused import: its report beside the error, or a plain error when the request itself was wrong (no mapping, no file). */
+export const SalesImportRefused = z.union([SalesImportReport.extend({ error: ErrorAnswer.shape.error }), ErrorAnswer]);
 export type SalesImportRefused = z.infer<typeof SalesImportRefused>;
 
 /**

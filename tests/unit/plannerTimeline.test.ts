@@ -5,6 +5,8 @@ import { describe, it, expect, vi, afterEach } from 'vitest';
 import { defineComponent, h } from 'vue';
 import { mount } from '@vue/test-utils';
 import { createPinia, setActivePinia } from 'pinia';
+import { queryClient } from '@/queries/client';
+import { keys } from '@/queries/keys';
 import type { EpisodeRecord } from '../../shared/domain';
 
 // Chart.js cannot draw under happy-dom: the stand-in keeps what the timeline hands the chart.
@@ -50,11 +52,12 @@ describe('the planner timeline’s today marker', () => {
     vi.useFakeTimers({ toFake: ['Date'] });
     vi.setSystemTime(new Date('2026-03-15T05:30:00Z')); // 2026-03-14 23:30 MDT (UTC−6)
     setActivePinia(createPinia());
-    useBuildStore().build = { id: 1, timeZone: 'America/Denver' } as never;
+    useBuildStore().open(1);
+    queryClient.setQueryData(keys.buildRecord(1), { id: 1, timeZone: 'America/Denver' });
     const denver = mount(PlannerTimeline, { props: { episodes } });
     expect(lastMarker().label).toBe('Today 2026-03-14');
     expect(denver.get('[data-test="timeline-today"]').text()).toContain('2026-03-14');
-    useBuildStore().build = { id: 1, timeZone: 'UTC' } as never;
+    queryClient.setQueryData(keys.buildRecord(1), { id: 1, timeZone: 'UTC' });
     mount(PlannerTimeline, { props: { episodes } });
     expect(lastMarker().label).toBe('Today 2026-03-15');
   });
