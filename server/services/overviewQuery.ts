@@ -41,11 +41,13 @@ WITH
   l AS (SELECT upgrade_id, worked_on, hours::float8 AS hours
           FROM labour_day_totals WHERE build_id = $1 ORDER BY upgrade_id, worked_on),
   p AS (SELECT upgrade_id, state, ordered_on, received_on, fitted_on,
-               sum(quantity::bigint * unit_cost_cents) AS cents
+               sum(quantity::bigint * unit_cost_cents) AS cents,
+               max(expected_arrival) AS expected_on
           FROM parts WHERE build_id = $1 AND state <> 'returned'
          GROUP BY upgrade_id, state, ordered_on, received_on, fitted_on),
-  a AS (SELECT upgrade_id, max(expected_arrival) AS expected_on
-          FROM parts WHERE build_id = $1 AND state IN ('to_order','ordered','backordered') AND expected_arrival IS NOT NULL
+  -- Arrivals from the same scan of parts (p is read twice, so PostgreSQL computes it once).
+  a AS (SELECT upgrade_id, max(expected_on) AS expected_on
+          FROM p WHERE state IN ('to_order','ordered','backordered') AND expected_on IS NOT NULL
          GROUP BY upgrade_id),
   x AS (SELECT upgrade_id, spent_on, sum(amount_cents::bigint) AS cents
           FROM expenses WHERE build_id = $1 GROUP BY upgrade_id, spent_on),
