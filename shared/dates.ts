@@ -1,7 +1,7 @@
 // The one date module for server and client: calendar days (YYYY-MM-DD) and "today" in a build's
 // IANA time zone. Zone arithmetic comes from date-fns-tz (the zone database of Intl), never from
 // hand-written offsets; day arithmetic works on calendar days, so no zone or DST can shift it.
-import { addDays as addCalendarDays, differenceInCalendarDays } from 'date-fns';
+import { addDays as addCalendarDays } from 'date-fns';
 import { toZonedTime } from 'date-fns-tz';
 
 /** A new build's zone until the owner picks the shop's own. */
@@ -69,5 +69,23 @@ export function addDays(iso: string, days: number): string {
 
 /** Calendar days from `a` to `b` (positive when b is later). */
 export function daysBetween(a: string, b: string): number {
-  return differenceInCalendarDays(local(b), local(a));
+  return dayNumber(b) - dayNumber(a);
 }
+
+/**
+ * Days since 1970-01-01 of a calendar day. Date.UTC has no zone and no DST, so the difference of two
+ * day numbers is date-fns' differenceInCalendarDays of the same days. Kept per day: the overview's
+ * series ask for the same few hundred days on every request.
+ */
+function dayNumber(iso: string): number {
+  let n = dayNumbers.get(iso);
+  if (n === undefined) {
+    const m = ISO_DAY.exec(iso);
+    if (!m) throw new RangeError(`not a calendar day: ${iso}`);
+    n = Date.UTC(Number(m[1]), Number(m[2]) - 1, Number(m[3])) / 86_400_000;
+    if (dayNumbers.size > 50_000) dayNumbers.clear();
+    dayNumbers.set(iso, n);
+  }
+  return n;
+}
+const dayNumbers = new Map<string, number>();

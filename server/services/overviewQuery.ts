@@ -1,7 +1,7 @@
 // The build overview's data in one SQL round trip: every table summed in the database, grouped by
 // upgrade and by date, and sent back as compact JSON arrays (one row, one column per list).
-import { QueryTypes } from 'sequelize';
-import { sequelize } from '../db/sequelize';
+import type pg from 'pg';
+import { queryCounter, sequelize } from '../db/sequelize';
 import type { Area, Disposition, EpisodeState, InstallState, PartState, SegmentState } from '../../shared/domain';
 
 export interface OverviewData {
@@ -41,11 +41,13 @@ WITH
   l AS (SELECT upgrade_id, worked_on, hours::float8 AS hours
           FROM labour_day_totals WHERE build_id = $1 ORDER BY upgrade_id, worked_on),
   p AS (SELECT upgrade_id, state, ordered_on, received_on, fitted_on,
-               sum(quantity::bigint * unit_cost_cents) AS cents
+               sum(quantity::bigint * unit_cost_cents) AS cents,
+               max(expected_arrival) AS expected_on
           FROM parts WHERE build_id = $1 AND state <> 'returned'
          GROUP BY upgrade_id, state, ordered_on, received_on, fitted_on),
-  a AS (SELECT upgrade_id, max(expected_arrival) AS expected_on
-          FROM parts WHERE build_id = $1 AND state IN ('to_order','ordered','backordered') AND expected_arrival IS NOT NULL
+  -- Arrivals from the same scan of parts (p is read twice, so PostgreSQL computes it once).
+  a AS (SELECT upgrade_id, max(expected_on) AS expected_on
+          FROM p WHERE state IN ('to_order','ordered','backordered') AND expected_on IS NOT NULL
          GROUP BY upgrade_id),
   x AS (SELECT upgrade_id, spent_on, sum(amount_cents::bigint) AS cents
           FROM expenses WHERE build_id = $1 GROUP BY upgrade_id, spent_on),
@@ -73,16 +75,36 @@ export const overviewReads = { full: 0, labour: 0 };
 /** Only the labour sums, in the same order and form as loadOverviewData gives them. */
 export async function loadOverviewLabour(buildId: number): Promise<OverviewData['labour']> {
   overviewReads.labour += 1;
-  return sequelize.query<OverviewData['labour'][number]>(
-    `SELECT upgrade_id AS "upgradeId", to_char(worked_on, 'YYYY-MM-DD') AS "workedOn", hours::float8 AS hours
-       FROM labour_day_totals WHERE build_id = $1 ORDER BY upgrade_id, worked_on`,
-    { bind: [buildId], type: QueryTypes.SELECT },
-  );
+  return prepared<OverviewData['labour'][number]>('overview_labour', LABOUR_SQL, [buildId]);
+}
+
+const LABOUR_SQL = `SELECT upgrade_id AS "upgradeId", to_char(worked_on, 'YYYY-MM-DD') AS "workedOn", hours::float8 AS hours
+  FROM labour_day_totals WHERE build_id = $1 ORDER BY upgrade_id, worked_on`;
+
+interface ConnectionManager {
+  getConnection(options: { type: string }): Promise<pg.ClientBase>;
+  releaseConnection(connection: pg.ClientBase): Promise<void>;
+}
+
+/**
+ * Runs one of the overview's fixed queries as a named prepared statement on a connection of
+ * Sequelize's pool: PostgreSQL parses and plans it once per connection instead of on every request
+ * (planning alone was ~0.4 ms of the overview query). Counted like every other query.
+ */
+async function prepared<T>(name: string, text: string, values: unknown[]): Promise<T[]> {
+  queryCounter.count += 1;
+  const manager = sequelize.connectionManager as unknown as ConnectionManager;
+  const connection = await manager.getConnection({ type: 'SELECT' });
+  try {
+    return (await connection.query<T & pg.QueryResultRow>({ name, text, values })).rows;
+  } finally {
+    await manager.releaseConnection(connection);
+  }
 }
 
 export async function loadOverviewData(buildId: number): Promise<OverviewData> {
   overviewReads.full += 1;
-  const [row] = await sequelize.query<Row>(OVERVIEW_SQL, { bind: [buildId], type: QueryTypes.SELECT });
+  const [row] = await prepared<Row>('overview', OVERVIEW_SQL, [buildId]);
   return {
     upgrades: row.upgrades.map(([id, title, area, episodeId, estimatedHours, valueAddedCents, installState, installSegment, demoSegment, installedOn]) => ({
       id: id as number,

@@ -31,6 +31,19 @@ describe('calendar days', () => {
     expect(daysBetween('2026-03-01', '2026-04-01')).toBe(31);
     expect(daysBetween('2026-04-01', '2026-03-01')).toBe(-31);
   });
+
+  it('counts days between calendar days over leap days, DST nights and year ends (counted by hand)', () => {
+    expect(daysBetween('2024-02-28', '2024-03-01')).toBe(2); // 2024 is a leap year: the 29th lies between
+    expect(daysBetween('2025-02-28', '2025-03-01')).toBe(1);
+    expect(daysBetween('2026-03-07', '2026-03-09')).toBe(2); // over the US spring-forward night (8 March 2026)
+    expect(daysBetween('2026-10-31', '2026-11-02')).toBe(2); // over the US fall-back night (1 November 2026)
+    expect(daysBetween('1999-12-31', '2000-01-01')).toBe(1);
+    expect(daysBetween('2025-01-02', '2026-01-02')).toBe(365);
+    expect(daysBetween('2026-05-05', '2026-05-05')).toBe(0);
+    // Asked again (the answer is kept per day): the same.
+    expect(daysBetween('2024-02-28', '2024-03-01')).toBe(2);
+    expect(() => daysBetween('2026-5-5', '2026-05-06')).toThrow(RangeError);
+  });
 });
 
 describe('isValidTimeZone', () => {
