@@ -43,11 +43,14 @@ const KIND_WORD: Record<MediaKind, string> = { photo: 'photos', video: 'videos',
 export const tooLarge = (kind: MediaKind) =>
   new AppError(413, 'too_large', `The file is larger than ${Math.round(limitBytes(kind) / 1024 / 1024)} MB, the limit for ${KIND_WORD[kind]}.`);
 
+// Control characters and the characters file systems refuse.
+// eslint-disable-next-line no-control-regex
+const UNSAFE_IN_NAME = /[\u0000-\u001f\u007f"<>|*?:]/g;
+
 /** The original name as something safe to keep and to send back: no folders, no control characters. */
 export function sanitizeName(raw: string | undefined): string {
   const base = (raw ?? '').replace(/\\/g, '/').split('/').pop() ?? '';
-  // eslint-disable-next-line no-control-regex
-  const clean = base.replace(/[\u0000-\u001f\u007f"<>|*?:]/g, '_').replace(/^\.+/, '').trim().slice(-200);
+  const clean = base.replace(UNSAFE_IN_NAME, '_').replace(/^\.+/, '').trim().slice(-200);
   return clean || 'file';
 }
 
