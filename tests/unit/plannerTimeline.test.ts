@@ -23,6 +23,13 @@ vi.mock('vue-chartjs', () => ({
 
 const { default: PlannerTimeline } = await import('../../src/components/PlannerTimeline.vue');
 const { useBuildStore } = await import('../../src/stores/build');
+const { queryClient } = await import('../../src/queries/client');
+const { keys } = await import('../../src/queries/keys');
+/** Opens build 1 with this time zone, as the app does: the store names the open build, the query cache holds its record. */
+const openBuild = (timeZone: string) => {
+  useBuildStore().open(1);
+  queryClient.setQueryData(keys.buildRecord(1), { id: 1, timeZone });
+};
 
 const episode = (number: number, shootDate: string | null, releaseDate: string | null): EpisodeRecord => ({
   id: number, buildId: 1, number, title: `Episode ${number}`, summary: null, state: 'scheduled', shootDate, releaseDate,
@@ -50,11 +57,11 @@ describe('the planner timeline’s today marker', () => {
     vi.useFakeTimers({ toFake: ['Date'] });
     vi.setSystemTime(new Date('2026-03-15T05:30:00Z')); // 2026-03-14 23:30 MDT (UTC−6)
     setActivePinia(createPinia());
-    useBuildStore().build = { id: 1, timeZone: 'America/Denver' } as never;
+    openBuild('America/Denver');
     const denver = mount(PlannerTimeline, { props: { episodes } });
     expect(lastMarker().label).toBe('Today 2026-03-14');
     expect(denver.get('[data-test="timeline-today"]').text()).toContain('2026-03-14');
-    useBuildStore().build = { id: 1, timeZone: 'UTC' } as never;
+    openBuild('UTC');
     mount(PlannerTimeline, { props: { episodes } });
     expect(lastMarker().label).toBe('Today 2026-03-15');
   });
