@@ -7,6 +7,7 @@
 import { onBeforeUnmount, onMounted, ref, watch, type Ref } from 'vue';
 import { useQueryClient } from '@tanstack/vue-query';
 import { invalidateBuild } from '@/queries/keys';
+import { BuildChange } from '@shared/contracts/events';
 
 const GATHER_MS = 200;
 
@@ -48,11 +49,14 @@ export function useBuildEvents(buildId: Ref<number | null | undefined> | (() => 
       connected.value = true;
     });
     source.addEventListener('change', (e) => {
+      // The notice is read with the shared contract; anything it does not match means "fetch everything".
+      let parsed: ReturnType<typeof BuildChange.safeParse> | null = null;
       try {
-        queue((JSON.parse((e as MessageEvent<string>).data) as { what: string[] }).what);
+        parsed = BuildChange.safeParse(JSON.parse((e as MessageEvent<string>).data));
       } catch {
-        queue(['*']);
+        parsed = null;
       }
+      queue(parsed?.success ? parsed.data.what : ['*']);
     });
     source.addEventListener('error', () => (connected.value = false));
   }

@@ -38,6 +38,8 @@ export const keys = {
   parts: (buildId: number, query?: unknown) => (query === undefined ? keys.of(buildId, 'parts') : keys.of(buildId, 'parts', query)),
   viewerRequests: (buildId: number, state?: string | null) => keys.of(buildId, 'viewer-requests', state ?? 'all'),
   media: (buildId: number, query?: unknown) => keys.of(buildId, 'media', query ?? 'all'),
+  /** One upgrade's history (under the upgrade, so a change to it refreshes the history too). */
+  activity: (buildId: number, upgradeId: number) => [...keys.upgrade(buildId, upgradeId), 'activity'] as const,
   /** Account-wide records (people, invitations, failed mail): not tied to one build. */
   users: () => ['users'] as const,
   failedMail: () => ['users', 'failed-mail'] as const,

@@ -25,6 +25,13 @@ vi.mock('vue-chartjs', () => ({
 
 const { default: PlannerTimeline } = await import('../../src/components/PlannerTimeline.vue');
 const { useBuildStore } = await import('../../src/stores/build');
+const { queryClient } = await import('../../src/queries/client');
+const { keys } = await import('../../src/queries/keys');
+/** Opens build 1 with this time zone, as the app does: the store names the open build, the query cache holds its record. */
+const openBuild = (timeZone: string) => {
+  useBuildStore().open(1);
+  queryClient.setQueryData(keys.buildRecord(1), { id: 1, timeZone });
+};
 
 const episode = (number: number, shootDate: string | null, releaseDate: string | null): EpisodeRecord => ({
   id: number, buildId: 1, number, title: `Episode ${number}`, summary: null, state: 'scheduled', shootDate, releaseDate,
