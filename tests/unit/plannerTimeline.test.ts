@@ -5,8 +5,6 @@ import { describe, it, expect, vi, afterEach } from 'vitest';
 import { defineComponent, h } from 'vue';
 import { mount } from '@vue/test-utils';
 import { createPinia, setActivePinia } from 'pinia';
-import { queryClient } from '@/queries/client';
-import { keys } from '@/queries/keys';
 import type { EpisodeRecord } from '../../shared/domain';
 
 // Chart.js cannot draw under happy-dom: the stand-in keeps what the timeline hands the chart.
@@ -59,12 +57,11 @@ describe('the planner timeline’s today marker', () => {
     vi.useFakeTimers({ toFake: ['Date'] });
     vi.setSystemTime(new Date('2026-03-15T05:30:00Z')); // 2026-03-14 23:30 MDT (UTC−6)
     setActivePinia(createPinia());
-    useBuildStore().open(1);
-    queryClient.setQueryData(keys.buildRecord(1), { id: 1, timeZone: 'America/Denver' });
+    openBuild('America/Denver');
     const denver = mount(PlannerTimeline, { props: { episodes } });
     expect(lastMarker().label).toBe('Today 2026-03-14');
     expect(denver.get('[data-test="timeline-today"]').text()).toContain('2026-03-14');
-    queryClient.setQueryData(keys.buildRecord(1), { id: 1, timeZone: 'UTC' });
+    openBuild('UTC');
     mount(PlannerTimeline, { props: { episodes } });
     expect(lastMarker().label).toBe('Today 2026-03-15');
   });
