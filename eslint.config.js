@@ -17,7 +17,25 @@ import { importX } from 'eslint-plugin-import-x';
 import { createTypeScriptImportResolver } from 'eslint-import-resolver-typescript';
 import globals from 'globals';
 
-const nodeBuiltins = ['node:*', 'fs', 'path', 'os', 'crypto', 'http', 'https', 'net', 'url', 'stream', 'child_process', 'events', 'util', 'buffer', 'zlib', 'module', 'worker_threads'];
+const nodeBuiltins = [
+  'node:*',
+  'fs',
+  'path',
+  'os',
+  'crypto',
+  'http',
+  'https',
+  'net',
+  'url',
+  'stream',
+  'child_process',
+  'events',
+  'util',
+  'buffer',
+  'zlib',
+  'module',
+  'worker_threads',
+];
 
 export default tseslint.config(
   { ignores: ['dist/**', '.data/**', 'node_modules/**', 'public/**', '**/*.d.ts'] },
@@ -26,7 +44,10 @@ export default tseslint.config(
   ...pluginVue.configs['flat/essential'],
   {
     files: ['**/*.vue'],
-    languageOptions: { parser: vueParser, parserOptions: { parser: tseslint.parser, extraFileExtensions: ['.vue'], sourceType: 'module' } },
+    languageOptions: {
+      parser: vueParser,
+      parserOptions: { parser: tseslint.parser, extraFileExtensions: ['.vue'], sourceType: 'module' },
+    },
   },
   {
     languageOptions: {
@@ -47,7 +68,10 @@ export default tseslint.config(
       // Correctness only: these recommended rules are about taste, or TypeScript checks them already.
       '@typescript-eslint/no-explicit-any': 'off',
       // Warnings, not errors: unused code is worth a look but never breaks the build.
-      '@typescript-eslint/no-unused-vars': ['warn', { argsIgnorePattern: '^_', varsIgnorePattern: '^_', caughtErrors: 'none', ignoreRestSiblings: true }],
+      '@typescript-eslint/no-unused-vars': [
+        'warn',
+        { argsIgnorePattern: '^_', varsIgnorePattern: '^_', caughtErrors: 'none', ignoreRestSiblings: true },
+      ],
       '@typescript-eslint/no-non-null-assertion': 'off',
       '@typescript-eslint/no-empty-object-type': 'off',
       '@typescript-eslint/no-unused-expressions': ['warn', { allowShortCircuit: true, allowTernary: true }],
@@ -88,8 +112,16 @@ export default tseslint.config(
         'error',
         {
           zones: [
-            { target: './server/services', from: './server/routes', message: 'A service may not import a route: routes call services, not the other way round.' },
-            { target: './server/services', from: './server/middleware', message: 'A service may not import middleware: take plain values, not req/res.' },
+            {
+              target: './server/services',
+              from: './server/routes',
+              message: 'A service may not import a route: routes call services, not the other way round.',
+            },
+            {
+              target: './server/services',
+              from: './server/middleware',
+              message: 'A service may not import middleware: take plain values, not req/res.',
+            },
           ],
         },
       ],
@@ -111,8 +143,16 @@ export default tseslint.config(
         'error',
         {
           zones: [
-            { target: ['./server/storage', './server/mail'], from: './server/routes', message: 'An adapter may not import a route.' },
-            { target: ['./server/storage', './server/mail'], from: './server/middleware', message: 'An adapter may not import middleware.' },
+            {
+              target: ['./server/storage', './server/mail'],
+              from: './server/routes',
+              message: 'An adapter may not import a route.',
+            },
+            {
+              target: ['./server/storage', './server/mail'],
+              from: './server/middleware',
+              message: 'An adapter may not import middleware.',
+            },
           ],
         },
       ],

@@ -19,7 +19,8 @@ export default defineConfig({
       manifest: {
         name: 'Bayslate',
         short_name: 'Bayslate',
-        description: 'Plan, build, film and publish a vehicle upgrade series; the shop floor works in the bay, offline too.',
+        description:
+          'Plan, build, film and publish a vehicle upgrade series; the shop floor works in the bay, offline too.',
         start_url: '/',
         scope: '/',
         display: 'standalone',

@@ -17,7 +17,13 @@ export default defineConfig({
       {
         extends: true,
         // Two workers: Vitest's default (cores − 1) leaves one of our two cores idle.
-        test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node', sequence: { groupOrder: 0 }, maxWorkers: 2 },
+        test: {
+          name: 'unit',
+          include: ['tests/unit/**/*.test.ts'],
+          environment: 'node',
+          sequence: { groupOrder: 0 },
+          maxWorkers: 2,
+        },
       },
       {
         extends: true,

@@ -29,7 +29,11 @@ const common = {
 await build({ ...common, entryPoints: { index: 'server/index.ts' }, outdir: out });
 await build({ ...common, entryPoints: { 'create-owner': 'scripts/create-owner.ts' }, outdir: out });
 const migrations = readdirSync(path.join(root, 'server/db/migrations')).filter((f) => /^\d{4}-.*\.ts$/.test(f));
-await build({ ...common, entryPoints: migrations.map((f) => `server/db/migrations/${f}`), outdir: path.join(out, 'migrations') });
+await build({
+  ...common,
+  entryPoints: migrations.map((f) => `server/db/migrations/${f}`),
+  outdir: path.join(out, 'migrations'),
+});
 
 // Nothing the production path loads at start-up may come from development only.
 const FORBIDDEN = ['tsx', 's3rver', 'smtp-server', 'mailparser', 'vite', 'vitest'];
@@ -41,4 +45,6 @@ for (const file of ['index.js', 'create-owner.js']) {
   }
   if (/seeders\//.test(code)) throw new Error(`build/server/${file} contains demo seeder code`);
 }
-console.log(`[bayslate] server compiled to ${path.relative(root, out)} (${migrations.length} migrations) in ${((Date.now() - t0) / 1000).toFixed(1)} s`);
+console.log(
+  `[bayslate] server compiled to ${path.relative(root, out)} (${migrations.length} migrations) in ${((Date.now() - t0) / 1000).toFixed(1)} s`,
+);

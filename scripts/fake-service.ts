@@ -15,10 +15,17 @@ async function main() {
   let stop: () => Promise<void>;
   let port: number;
   if (kind === 's3') {
-    const s3 = await startFakeS3({ directory: path.resolve(env.LOCAL_S3_DIR ?? '.data/s3'), bucket: env.S3_BUCKET ?? 'bayslate-media', port: Number(env.LOCAL_S3_PORT ?? 0) });
+    const s3 = await startFakeS3({
+      directory: path.resolve(env.LOCAL_S3_DIR ?? '.data/s3'),
+      bucket: env.S3_BUCKET ?? 'bayslate-media',
+      port: Number(env.LOCAL_S3_PORT ?? 0),
+    });
     ({ stop, port } = s3);
   } else if (kind === 'smtp') {
-    const smtp = await startFakeSmtp({ dir: path.resolve(env.LOCAL_MAIL_DIR ?? '.data/mail'), port: Number(env.LOCAL_SMTP_PORT ?? 0) });
+    const smtp = await startFakeSmtp({
+      dir: path.resolve(env.LOCAL_MAIL_DIR ?? '.data/mail'),
+      port: Number(env.LOCAL_SMTP_PORT ?? 0),
+    });
     ({ stop, port } = smtp);
   } else {
     throw new Error(`unknown fake "${kind}" (s3 or smtp)`);

@@ -17,8 +17,12 @@ try {
   for (const o of r.orphans) console.log(`${remove ? 'removed' : 'leftover'}  ${o.key}  (${o.size} bytes)`);
   const temp = await sweepTempFiles({ remove, graceMs });
   for (const f of temp) console.log(`${remove ? 'removed' : 'leftover'}  ${f}  (temporary upload file)`);
-  console.log(`[media:sweep] ${temp.length} temporary upload files older than the grace period${remove ? ' removed' : ''}.`);
-  console.log(`[media:sweep] ${r.scanned} objects scanned, ${r.orphans.length} without a media row${remove ? `, ${r.removed} removed` : r.orphans.length ? ' — run with --remove to delete them' : ''}.`);
+  console.log(
+    `[media:sweep] ${temp.length} temporary upload files older than the grace period${remove ? ' removed' : ''}.`,
+  );
+  console.log(
+    `[media:sweep] ${r.scanned} objects scanned, ${r.orphans.length} without a media row${remove ? `, ${r.removed} removed` : r.orphans.length ? ' — run with --remove to delete them' : ''}.`,
+  );
 } finally {
   if (usesLocalFake()) await stopLocalS3();
   await sequelize.close();

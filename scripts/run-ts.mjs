@@ -6,5 +6,9 @@ import { devEnvironment } from './lib/dev-env.mjs';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 const { env } = await devEnvironment(root);
-const r = spawnSync(process.execPath, ['--import', 'tsx', ...process.argv.slice(2)], { cwd: root, env, stdio: 'inherit' });
+const r = spawnSync(process.execPath, ['--import', 'tsx', ...process.argv.slice(2)], {
+  cwd: root,
+  env,
+  stdio: 'inherit',
+});
 process.exit(r.status ?? 1);

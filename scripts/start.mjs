@@ -23,7 +23,11 @@ function newestMtime(dir) {
 function clientIsStale() {
   const built = path.join(root, 'dist', 'index.html');
   if (!existsSync(built)) return true;
-  const sources = Math.max(newestMtime(path.join(root, 'src')), newestMtime(path.join(root, 'shared')), statSync(path.join(root, 'index.html')).mtimeMs);
+  const sources = Math.max(
+    newestMtime(path.join(root, 'src')),
+    newestMtime(path.join(root, 'shared')),
+    statSync(path.join(root, 'index.html')).mtimeMs,
+  );
   return sources > statSync(built).mtimeMs;
 }
 
@@ -33,7 +37,10 @@ try {
   ensureNodeModules(root);
   if (!dev && clientIsStale()) {
     log('building the client…');
-    execFileSync(process.execPath, [path.join(root, 'node_modules/vite/bin/vite.js'), 'build', '--logLevel', 'warn'], { cwd: root, stdio: 'inherit' });
+    execFileSync(process.execPath, [path.join(root, 'node_modules/vite/bin/vite.js'), 'build', '--logLevel', 'warn'], {
+      cwd: root,
+      stdio: 'inherit',
+    });
   }
 } catch (err) {
   console.error(`[bayslate] ${err.message}`);
@@ -73,7 +80,11 @@ try {
   if (cluster) cluster.stop();
   process.exit(1);
 }
-const server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], { cwd: root, env, stdio: ['ignore', 'pipe', 'inherit'] });
+const server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+  cwd: root,
+  env,
+  stdio: ['ignore', 'pipe', 'inherit'],
+});
 children.push(server);
 server.stdout.on('data', (chunk) => {
   process.stdout.write(chunk);
@@ -82,7 +93,9 @@ server.stdout.on('data', (chunk) => {
     log(`ready in ${((Date.now() - t0) / 1000).toFixed(1)} s`);
     log(`open ${url}`);
     if (env.BAYSLATE_DEMO !== '0') {
-      log('demo sign-ins (password bayslate-demo): owner@cedar-ridge.test, producer@cedar-ridge.test, installer@cedar-ridge.test, marketing@cedar-ridge.test');
+      log(
+        'demo sign-ins (password bayslate-demo): owner@cedar-ridge.test, producer@cedar-ridge.test, installer@cedar-ridge.test, marketing@cedar-ridge.test',
+      );
       log(`public build page: ${url}/b/project-tern    development inbox: http://127.0.0.1:${env.PORT}/dev/mail`);
     }
     log('press Ctrl-C to stop');

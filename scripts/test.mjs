@@ -65,16 +65,29 @@ const timingFile = path.join(mkdtempSync(path.join(os.tmpdir(), 'bayslate-test-'
 log('checks (eslint, per-layer type checks) run beside the tests at low priority; their output follows the tests');
 const checks = Promise.all([
   run('lint', [bin('eslint/bin/eslint.js'), '.'], { capture: true, nice: CHECK_NICENESS }),
-  run('types', [path.join(root, 'scripts/typecheck-layers.mjs'), '--jobs', '4'], { capture: true, nice: CHECK_NICENESS }),
+  run('types', [path.join(root, 'scripts/typecheck-layers.mjs'), '--jobs', '4'], {
+    capture: true,
+    nice: CHECK_NICENESS,
+  }),
 ]);
 
 async function testsLane() {
   log('building the client for the browser tests…');
   const build = await run('build', [bin('vite/bin/vite.js'), 'build', '--logLevel', 'warn']);
   if (!build.ok) return [build];
-  const vitest = await run('vitest', [bin('vitest/vitest.mjs'), 'run', '--reporter=default', `--reporter=${path.join(root, 'scripts/lib/test-timings.mjs')}`, ...extra], {
-    env: { ...process.env, NODE_ENV: 'test', BAYSLATE_TIMINGS: timingFile },
-  });
+  const vitest = await run(
+    'vitest',
+    [
+      bin('vitest/vitest.mjs'),
+      'run',
+      '--reporter=default',
+      `--reporter=${path.join(root, 'scripts/lib/test-timings.mjs')}`,
+      ...extra,
+    ],
+    {
+      env: { ...process.env, NODE_ENV: 'test', BAYSLATE_TIMINGS: timingFile },
+    },
+  );
   return [build, vitest];
 }
 
@@ -92,14 +105,27 @@ const rows = ['setup (packages)', 'lint', 'types', 'build', 'vitest'].filter((n)
 if (existsSync(timingFile)) {
   const t = JSON.parse(readFileSync(timingFile, 'utf8'));
   const names = Object.keys(t.projects).sort((a, b) => t.projects[a].first - t.projects[b].first);
-  if (names.length) rows.push({ name: '  start-up (cluster, template, fakes)', ms: Math.min(...names.map((n) => t.projects[n].first)) - t.started, ok: true });
-  for (const n of names) rows.push({ name: `  ${n} (${t.projects[n].files} files)`, ms: t.projects[n].last - t.projects[n].first, ok: true });
+  if (names.length)
+    rows.push({
+      name: '  start-up (cluster, template, fakes)',
+      ms: Math.min(...names.map((n) => t.projects[n].first)) - t.started,
+      ok: true,
+    });
+  for (const n of names)
+    rows.push({
+      name: `  ${n} (${t.projects[n].files} files)`,
+      ms: t.projects[n].last - t.projects[n].first,
+      ok: true,
+    });
   rows.push({ name: '  slowest files:', ms: null, ok: true });
-  for (const f of [...t.files].sort((a, b) => b.ms - a.ms).slice(0, 5)) rows.push({ name: `    ${f.file}`, ms: f.ms, ok: f.state !== 'failed' });
+  for (const f of [...t.files].sort((a, b) => b.ms - a.ms).slice(0, 5))
+    rows.push({ name: `    ${f.file}`, ms: f.ms, ok: f.state !== 'failed' });
   rmSync(path.dirname(timingFile), { recursive: true, force: true });
 }
 const total = Date.now() - t0;
-console.log(`\n[bayslate] where the time went (s; lint and types run beside build and vitest; load average now ${os.loadavg()[0].toFixed(1)}):`);
+console.log(
+  `\n[bayslate] where the time went (s; lint and types run beside build and vitest; load average now ${os.loadavg()[0].toFixed(1)}):`,
+);
 for (const r of rows) console.log(`  ${r.name.padEnd(46)}${r.ms === null ? '' : secs(r.ms)}${r.ok ? '' : '  FAILED'}`);
 console.log(`  ${'total'.padEnd(46)}${secs(total)}`);
 

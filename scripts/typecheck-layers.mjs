@@ -25,7 +25,10 @@ const parallel = Math.max(1, jobsArg > 0 ? Number(process.argv[jobsArg + 1]) || 
 function run([bin, config]) {
   return new Promise((resolve) => {
     let out = '';
-    const child = spawn(process.execPath, [bin, '--noEmit', '-p', config], { cwd: root, stdio: ['ignore', 'pipe', 'pipe'] });
+    const child = spawn(process.execPath, [bin, '--noEmit', '-p', config], {
+      cwd: root,
+      stdio: ['ignore', 'pipe', 'pipe'],
+    });
     child.stdout.on('data', (c) => (out += c));
     child.stderr.on('data', (c) => (out += c));
     const start = Date.now();

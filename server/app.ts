@@ -39,8 +39,17 @@ export function createApp(): Express {
       contentSecurityPolicy: {
         directives: {
           'default-src': ["'self'"],
-          'img-src': ["'self'", 'data:', 'blob:', ...(c.S3_ENDPOINT ? [new URL(c.S3_ENDPOINT).origin] : ['http://127.0.0.1:*'])],
-          'media-src': ["'self'", 'blob:', ...(c.S3_ENDPOINT ? [new URL(c.S3_ENDPOINT).origin] : ['http://127.0.0.1:*'])],
+          'img-src': [
+            "'self'",
+            'data:',
+            'blob:',
+            ...(c.S3_ENDPOINT ? [new URL(c.S3_ENDPOINT).origin] : ['http://127.0.0.1:*']),
+          ],
+          'media-src': [
+            "'self'",
+            'blob:',
+            ...(c.S3_ENDPOINT ? [new URL(c.S3_ENDPOINT).origin] : ['http://127.0.0.1:*']),
+          ],
           'connect-src': ["'self'", ...(c.S3_ENDPOINT ? [new URL(c.S3_ENDPOINT).origin] : ['http://127.0.0.1:*'])],
           'style-src': ["'self'", "'unsafe-inline'"],
           'script-src': ["'self'"],
@@ -61,7 +70,10 @@ export function createApp(): Express {
   app.use('/api', sameOriginOnly);
   // Several instances (deploy): before answering from its overview cache, an instance reads the
   // change notices PostgreSQL already has for it, so a write made through another instance shows at once.
-  app.use('/api/builds/:buildId/overview', (_req, _res, next) => void catchUpOverviewNotices().then(() => next(), next));
+  app.use(
+    '/api/builds/:buildId/overview',
+    (_req, _res, next) => void catchUpOverviewNotices().then(() => next(), next),
+  );
   // A change sent again with the same Idempotency-Key happens once (the phone's waiting changes).
   app.use('/api', idempotentChanges);
   mountRoutes(app);

@@ -16,8 +16,16 @@ const schema = z.object({
   DATABASE_URL: z.string().min(1, 'DATABASE_URL is required (npm start sets it for the local cluster)'),
   DATABASE_POOL_MAX: z.coerce.number().int().min(1).default(10),
   SESSION_SECRET: z.string().min(16, 'SESSION_SECRET must be at least 16 characters'),
-  SESSION_IDLE_MINUTES: z.coerce.number().int().min(1).default(8 * 60),
-  SESSION_ABSOLUTE_HOURS: z.coerce.number().int().min(1).default(7 * 24),
+  SESSION_IDLE_MINUTES: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .default(8 * 60),
+  SESSION_ABSOLUTE_HOURS: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .default(7 * 24),
   LOGIN_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
   LOGIN_RATE_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
   // Demo data and accounts: off unless asked for (`npm start` and the tests turn it on).
@@ -41,7 +49,12 @@ const schema = z.object({
   UPLOAD_MAX_VIDEO_MB: z.coerce.number().positive().default(4096),
   UPLOAD_MAX_DOCUMENT_MB: z.coerce.number().positive().default(25),
   // How long a presigned media URL stays valid (short: links must not outlive a role change).
-  MEDIA_URL_TTL_SECONDS: z.coerce.number().int().min(10).max(7 * 24 * 3600).default(900),
+  MEDIA_URL_TTL_SECONDS: z.coerce
+    .number()
+    .int()
+    .min(10)
+    .max(7 * 24 * 3600)
+    .default(900),
   // E-mail: with SMTP_URL unset the server runs a local fake SMTP server on loopback.
   SMTP_URL: z.string().optional(),
   MAIL_FROM: z.string().default('Bayslate <no-reply@bayslate.test>'),
@@ -73,7 +86,11 @@ const schema = z.object({
   VIEWER_KEY_SECRET: z.string().min(32, 'VIEWER_KEY_SECRET must be at least 32 characters').optional(),
   // Orphaned uploads: how often the sweeper runs and how old an unreferenced object or temp file must be.
   MEDIA_SWEEP_MINUTES: z.coerce.number().int().min(0).default(60),
-  MEDIA_SWEEP_GRACE_MINUTES: z.coerce.number().int().min(1).default(24 * 60),
+  MEDIA_SWEEP_GRACE_MINUTES: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .default(24 * 60),
   // The public build page's answer: seconds a browser or CDN may reuse it, and serve it stale while refreshing.
   PUBLIC_MAX_AGE_SECONDS: z.coerce.number().int().min(0).default(30),
   PUBLIC_STALE_SECONDS: z.coerce.number().int().min(0).default(60),
@@ -117,7 +134,10 @@ function trustProxySetting(v: string | undefined, https: boolean): boolean | num
 
 function viewerKeySecret(c: z.infer<typeof schema>): string {
   if (c.VIEWER_KEY_SECRET) return c.VIEWER_KEY_SECRET;
-  if (c.NODE_ENV === 'production') throw new Error('Bayslate configuration is not valid:\n  VIEWER_KEY_SECRET: is required in production (32 or more random characters, e.g. `openssl rand -base64 48`)');
+  if (c.NODE_ENV === 'production')
+    throw new Error(
+      'Bayslate configuration is not valid:\n  VIEWER_KEY_SECRET: is required in production (32 or more random characters, e.g. `openssl rand -base64 48`)',
+    );
   // Development and tests: a fixed stand-in (npm start writes a real one under .data).
   return 'bayslate-development-viewer-key-not-for-production';
 }

@@ -21,7 +21,9 @@ async function main() {
   if (c.BAYSLATE_DEMO) {
     await seedDemo();
     if (!(await demoAccountsExist())) {
-      throw new StartupRefused('BAYSLATE_DEMO is on but no demo data could be seeded (the compiled server carries no seeders): use `npm start`.');
+      throw new StartupRefused(
+        'BAYSLATE_DEMO is on but no demo data could be seeded (the compiled server carries no seeders): use `npm start`.',
+      );
     }
   }
   await checkNoDemoAccounts(c);
@@ -34,7 +36,9 @@ async function main() {
   const server = app.listen(c.PORT, c.HOST, () => {
     const addr = server.address();
     const port = typeof addr === 'object' && addr ? addr.port : c.PORT;
-    console.log(`[bayslate] server listening on http://${c.HOST}:${port} (${c.NODE_ENV}${c.BAYSLATE_DEMO ? ', demo data' : ''})`);
+    console.log(
+      `[bayslate] server listening on http://${c.HOST}:${port} (${c.NODE_ENV}${c.BAYSLATE_DEMO ? ', demo data' : ''})`,
+    );
   });
 
   // Graceful stop: readiness turns 503, no new connections, requests in flight get up to
@@ -50,7 +54,13 @@ async function main() {
     const grace = new Promise<void>((resolve) => setTimeout(resolve, c.SHUTDOWN_GRACE_MS).unref());
     await Promise.all([Promise.race([closed, grace]), stopMailWorker()]);
     server.closeAllConnections();
-    await Promise.allSettled([stopMediaSweeper(), stopUserNotices(), stopOverviewCache(), closeSharedPool(), sequelize.close()]);
+    await Promise.allSettled([
+      stopMediaSweeper(),
+      stopUserNotices(),
+      stopOverviewCache(),
+      closeSharedPool(),
+      sequelize.close(),
+    ]);
     console.log('[bayslate] stopped');
     process.exit(0);
   };

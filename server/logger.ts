@@ -19,7 +19,16 @@ export function logger(): pino.Logger {
     base: { service: 'bayslate' },
     // A second guard behind the serializers: these never reach a log line whatever logs them.
     redact: {
-      paths: ['req.headers.cookie', 'req.headers.authorization', 'res.headers["set-cookie"]', '*.password', '*.currentPassword', '*.newPassword', '*.token', '*.passwordHash'],
+      paths: [
+        'req.headers.cookie',
+        'req.headers.authorization',
+        'res.headers["set-cookie"]',
+        '*.password',
+        '*.currentPassword',
+        '*.newPassword',
+        '*.token',
+        '*.passwordHash',
+      ],
       censor: '[removed]',
     },
   });
@@ -27,7 +36,8 @@ export function logger(): pino.Logger {
 }
 
 // Links whose last path segment is a secret: invitations, vote confirmations, unsubscribes, feeds.
-const SECRET_PATHS = /^(\/api\/invitations|\/api\/public\/confirm|\/api\/public\/unsubscribe|\/api\/calendar|\/welcome|\/confirm|\/unsubscribe)\/[^/?#]+/;
+const SECRET_PATHS =
+  /^(\/api\/invitations|\/api\/public\/confirm|\/api\/public\/unsubscribe|\/api\/calendar|\/welcome|\/confirm|\/unsubscribe)\/[^/?#]+/;
 
 /** The URL as it may be logged: the token of a secret link masked, the query string left out. */
 export function loggableUrl(url: string | undefined): string {
@@ -49,10 +59,16 @@ export function requestLogger(log: pino.Logger = logger()) {
       return id;
     },
     serializers: {
-      req: (req: { id: unknown; method: string; url: string; raw?: { ip?: string } }) => ({ id: req.id, method: req.method, url: loggableUrl(req.url), ip: req.raw?.ip }),
+      req: (req: { id: unknown; method: string; url: string; raw?: { ip?: string } }) => ({
+        id: req.id,
+        method: req.method,
+        url: loggableUrl(req.url),
+        ip: req.raw?.ip,
+      }),
       res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
     },
-    customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'warn' : 'info'),
+    customLogLevel: (_req, res, err) =>
+      err || res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'warn' : 'info',
     // Load balancers ask for liveness every few seconds; those lines would drown the rest.
     autoLogging: { ignore: (req) => req.url === '/api/health/live' },
   });

@@ -16,10 +16,14 @@ export function checkSettings(c: Config) {
     );
   }
   if (!c.S3_ENDPOINT) {
-    throw new StartupRefused('S3_ENDPOINT is not set: name the object storage (see README, "Running it for real"). `npm start` runs a local fake S3 and sets it for you.');
+    throw new StartupRefused(
+      'S3_ENDPOINT is not set: name the object storage (see README, "Running it for real"). `npm start` runs a local fake S3 and sets it for you.',
+    );
   }
   if (!c.SMTP_URL) {
-    throw new StartupRefused('SMTP_URL is not set: name the mail server (see README, "Running it for real"). `npm start` runs a local fake SMTP server and sets it for you.');
+    throw new StartupRefused(
+      'SMTP_URL is not set: name the mail server (see README, "Running it for real"). `npm start` runs a local fake SMTP server and sets it for you.',
+    );
   }
 }
 

@@ -9,6 +9,10 @@ export function zodFields(err: ZodError): FieldError[] {
     const keys = i.code === 'unrecognized_keys' ? ((i as { keys?: string[] }).keys ?? []) : [];
     // Belt and braces: a message zod wrote itself never reaches a person.
     const message = RAW_SCHEMA_TEXT.test(i.message) ? 'is not valid' : i.message;
-    return { path: path || keys.join(', ') || '(body)', message, label: keys.length && !path ? 'This form' : fieldLabel(i.path) };
+    return {
+      path: path || keys.join(', ') || '(body)',
+      message,
+      label: keys.length && !path ? 'This form' : fieldLabel(i.path),
+    };
   });
 }

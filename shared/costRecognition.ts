@@ -11,7 +11,8 @@ export const COST_RECOGNITION_LABELS: Record<CostRecognition, string> = {
   receipt: 'At receipt',
 };
 export const COST_RECOGNITION_DESCRIPTIONS: Record<CostRecognition, string> = {
-  fitting: 'A part’s cost counts as actual cost when the part is fitted or its upgrade installed — when its earned value can be credited.',
+  fitting:
+    'A part’s cost counts as actual cost when the part is fitted or its upgrade installed — when its earned value can be credited.',
   receipt: 'A part’s cost counts as actual cost when the part is received (or fitted, or its upgrade installed).',
 };
 
@@ -20,9 +21,22 @@ export interface RecognitionInput {
   /** Status date: money dated after it is not actual yet. */
   asOf: string;
   labourRateCents: number;
-  upgrades: { id: number; estimatedHours: number; installState: InstallState; installedOn: string | null; done: boolean }[];
+  upgrades: {
+    id: number;
+    estimatedHours: number;
+    installState: InstallState;
+    installedOn: string | null;
+    done: boolean;
+  }[];
   /** Part lines (or lines summed per upgrade, state and dates); returned parts left out. */
-  parts: { upgradeId: number; state: PartState; cents: number; orderedOn: string | null; receivedOn: string | null; fittedOn: string | null }[];
+  parts: {
+    upgradeId: number;
+    state: PartState;
+    cents: number;
+    orderedOn: string | null;
+    receivedOn: string | null;
+    fittedOn: string | null;
+  }[];
   labour: { upgradeId: number | null; workedOn: string; hours: number }[];
   expenses: { upgradeId: number | null; spentOn: string; cents: number }[];
   /** Sales of removed parts; an undated sale counts on the status date. */
@@ -167,11 +181,21 @@ export function recogniseCosts(input: RecognitionInput): Recognition {
 
   const perUpgrade: UpgradeEstimateToComplete[] = input.upgrades.map((u) => {
     // An installed upgrade's shop work is done: only its filming is left, which costs no bay hours.
-    const remainingHours = u.done || u.installState === 'installed' ? 0 : Math.max(0, Math.round((u.estimatedHours - (hoursAll.get(u.id) ?? 0)) * 1e6) / 1e6);
+    const remainingHours =
+      u.done || u.installState === 'installed'
+        ? 0
+        : Math.max(0, Math.round((u.estimatedHours - (hoursAll.get(u.id) ?? 0)) * 1e6) / 1e6);
     const labourCents = roundHalfUpCents(remainingHours * rate);
     const partsCents = partsLeft.get(u.id) ?? 0;
     const plannedCents = planned.get(u.id) ?? 0;
-    return { upgradeId: u.id, remainingHours, labourCents, partsCents, plannedCents, etcCents: labourCents + partsCents + plannedCents };
+    return {
+      upgradeId: u.id,
+      remainingHours,
+      labourCents,
+      partsCents,
+      plannedCents,
+      etcCents: labourCents + partsCents + plannedCents,
+    };
   });
   const sum = (k: keyof UpgradeEstimateToComplete) => perUpgrade.reduce((s, u) => s + u[k], 0);
   const unassignedPlanned = planned.get(null) ?? 0;

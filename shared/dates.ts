@@ -43,7 +43,9 @@ export function todayIn(zone: string | null | undefined, now: Date = new Date())
   if (known && t >= known.from && t < known.until) return known.day;
   const wall = toZonedTime(now, z); // the zone's wall clock, in a Date's local fields
   const day = isoOf(wall);
-  const toMidnight = 86_400_000 - (((wall.getHours() * 60 + wall.getMinutes()) * 60 + wall.getSeconds()) * 1000 + wall.getMilliseconds());
+  const toMidnight =
+    86_400_000 -
+    (((wall.getHours() * 60 + wall.getMinutes()) * 60 + wall.getSeconds()) * 1000 + wall.getMilliseconds());
   days.set(z, { day, from: t, until: t + Math.min(1000, toMidnight) });
   return day;
 }

@@ -66,7 +66,11 @@ export function earnedValue({ bac, pv, ev, ac, eac: headline }: EarnedValueInput
 
 export const EV_CREDIT_RULES = [
   { id: '0/100', label: '0/100', description: 'Nothing is earned until an upgrade is done; then its whole budget is.' },
-  { id: '50/50', label: '50/50', description: 'Half of an upgrade’s budget is earned when work starts, the other half when it is done.' },
+  {
+    id: '50/50',
+    label: '50/50',
+    description: 'Half of an upgrade’s budget is earned when work starts, the other half when it is done.',
+  },
   {
     id: 'percent_hours',
     label: 'Percent of hours',

@@ -19,7 +19,8 @@ export interface UnfinishedUpgrade {
 
 export function whatItLacks(u: ReadinessUpgrade): string[] {
   const out: string[] = [];
-  if (u.installState !== 'installed') out.push(`not installed (${INSTALL_STATE_LABELS[u.installState] ?? u.installState})`);
+  if (u.installState !== 'installed')
+    out.push(`not installed (${INSTALL_STATE_LABELS[u.installState] ?? u.installState})`);
   if (u.installSegment !== 'shot') out.push('install segment not shot');
   if (u.demoSegment !== 'shot') out.push('demo segment not shot');
   return out;

@@ -104,7 +104,18 @@ export interface OverviewEarnedValue extends EarnedValueFigures {
 }
 
 export interface BuildOverview {
-  build: { id: number; name: string; slug: string; year: number; make: string; model: string; trim: string; budgetCents: number | null; labourRateCents: number | null; startDate: string };
+  build: {
+    id: number;
+    name: string;
+    slug: string;
+    year: number;
+    make: string;
+    model: string;
+    trim: string;
+    budgetCents: number | null;
+    labourRateCents: number | null;
+    startDate: string;
+  };
   /** The status date the figures are taken on: today in the build's zone. */
   asOf: string;
   timeZone: string;
@@ -155,7 +166,6 @@ const wireRow = (r: OverviewCostRow): WireCostRow => ({
   valueAddedCents: r.valueAddedCents,
 });
 
-
 /** The overview as it travels: columns for the long lists, no derived fields. */
 export function compactOverview(o: BuildOverview): OverviewAnswer {
   const u = o.upgrades;
@@ -181,7 +191,15 @@ export function compactOverview(o: BuildOverview): OverviewAnswer {
       valueAddedCents: u.map((r) => r.valueAddedCents),
     },
     areas: o.areas.map((a) => ({ ...wireRow(a), area: a.area, label: a.label, upgrades: a.upgrades })),
-    episodes: o.episodes.map((e) => ({ ...wireRow(e), episodeId: e.episodeId, number: e.number, title: e.title, state: e.state, shootDate: e.shootDate, upgrades: e.upgrades })),
+    episodes: o.episodes.map((e) => ({
+      ...wireRow(e),
+      episodeId: e.episodeId,
+      number: e.number,
+      title: e.title,
+      state: e.state,
+      shootDate: e.shootDate,
+      upgrades: e.upgrades,
+    })),
     unassigned: wireRow(o.unassigned),
     totals: wireRow(o.totals),
     burndown: {
@@ -221,9 +239,22 @@ export function expandOverview(a: OverviewAnswer): BuildOverview {
       }),
     })),
     areas: a.areas.map((r) => ({ ...costRowOf(r), area: r.area, label: r.label, upgrades: r.upgrades })),
-    episodes: a.episodes.map((e) => ({ ...costRowOf(e), episodeId: e.episodeId, number: e.number, title: e.title, state: e.state, shootDate: e.shootDate, upgrades: e.upgrades })),
+    episodes: a.episodes.map((e) => ({
+      ...costRowOf(e),
+      episodeId: e.episodeId,
+      number: e.number,
+      title: e.title,
+      state: e.state,
+      shootDate: e.shootDate,
+      upgrades: e.upgrades,
+    })),
     unassigned: costRowOf(a.unassigned),
     totals: costRowOf(a.totals),
-    burndown: a.burndown.day.map((d, k) => ({ date: addDays(from, d), planned: a.burndown.planned[k], actual: a.burndown.actual[k], forecast: a.burndown.forecast[k] })),
+    burndown: a.burndown.day.map((d, k) => ({
+      date: addDays(from, d),
+      planned: a.burndown.planned[k],
+      actual: a.burndown.actual[k],
+      forecast: a.burndown.forecast[k],
+    })),
   };
 }

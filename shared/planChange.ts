@@ -14,11 +14,29 @@ export interface PlanSideEpisode {
 
 export interface PlanChangeSummary {
   moved: { upgradeId: number; title: string; from: number | null; to: number | null }[];
-  episodesChanged: { id: number | null; number: number; title: string; added: string[]; removed: string[]; isNew: boolean }[];
-  dateChanges: { id: number; number: number; title: string; state: string | null; shootDate: [string | null, string | null] | null; releaseDate: [string | null, string | null] | null }[];
+  episodesChanged: {
+    id: number | null;
+    number: number;
+    title: string;
+    added: string[];
+    removed: string[];
+    isNew: boolean;
+  }[];
+  dateChanges: {
+    id: number;
+    number: number;
+    title: string;
+    state: string | null;
+    shootDate: [string | null, string | null] | null;
+    releaseDate: [string | null, string | null] | null;
+  }[];
 }
 
-export function summarizePlanChange(before: readonly PlanSideEpisode[], after: readonly PlanSideEpisode[], titleOf: (id: number) => string): PlanChangeSummary {
+export function summarizePlanChange(
+  before: readonly PlanSideEpisode[],
+  after: readonly PlanSideEpisode[],
+  titleOf: (id: number) => string,
+): PlanChangeSummary {
   const keyOf = (e: PlanSideEpisode) => (e.id !== null ? `id${e.id}` : `new${e.number}`);
   const wasIn = new Map<number, PlanSideEpisode>();
   for (const e of before) for (const u of e.upgradeIds) wasIn.set(u, e);
@@ -47,9 +65,19 @@ export function summarizePlanChange(before: readonly PlanSideEpisode[], after: r
       episodesChanged.push({ id: e.id, number: e.number, title: e.title, added, removed, isNew: !old });
     }
     if (old) {
-      const shoot: [string | null, string | null] | null = old.shootDate !== e.shootDate ? [old.shootDate, e.shootDate] : null;
-      const release: [string | null, string | null] | null = old.releaseDate !== e.releaseDate ? [old.releaseDate, e.releaseDate] : null;
-      if (shoot || release) dateChanges.push({ id: old.id!, number: e.number, title: old.title, state: old.state, shootDate: shoot, releaseDate: release });
+      const shoot: [string | null, string | null] | null =
+        old.shootDate !== e.shootDate ? [old.shootDate, e.shootDate] : null;
+      const release: [string | null, string | null] | null =
+        old.releaseDate !== e.releaseDate ? [old.releaseDate, e.releaseDate] : null;
+      if (shoot || release)
+        dateChanges.push({
+          id: old.id!,
+          number: e.number,
+          title: old.title,
+          state: old.state,
+          shootDate: shoot,
+          releaseDate: release,
+        });
     }
   }
   return { moved, episodesChanged, dateChanges };

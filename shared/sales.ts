@@ -93,7 +93,9 @@ export function attributeLines(input: AttributionInput): AttributedLine[] {
   const tag = input.campaignTag.trim().toLowerCase();
   const partsBySku = new Map<string, SalesPartInput[]>();
   for (const p of [...input.parts].sort((a, b) => a.id - b.id)) {
-    for (const code of new Set([p.storeSku, p.partNumber].filter((c): c is string => !!c && c.trim() !== '').map(skuKey))) {
+    for (const code of new Set(
+      [p.storeSku, p.partNumber].filter((c): c is string => !!c && c.trim() !== '').map(skuKey),
+    )) {
       partsBySku.set(code, [...(partsBySku.get(code) ?? []), p]);
     }
   }
@@ -101,16 +103,29 @@ export function attributeLines(input: AttributionInput): AttributedLine[] {
   const episodeById = new Map(input.episodes.map((e) => [e.id, e]));
   const episodeByNumber = new Map(input.episodes.map((e) => [e.number, e]));
 
-  const judge = (line: SaleLineInput): Omit<AttributedLine, keyof SaleLineInput | 'refund' | 'marginCents'> & { part: SalesPartInput | null } => {
+  const judge = (
+    line: SaleLineInput,
+  ): Omit<AttributedLine, keyof SaleLineInput | 'refund' | 'marginCents'> & { part: SalesPartInput | null } => {
     const candidates = partsBySku.get(skuKey(line.sku)) ?? [];
     const campaign = line.campaign?.trim() || null;
-    const none = (reason: string, part: SalesPartInput | null = candidates[0] ?? null) => ({ attribution: 'unattributed' as const, episodeId: null, partId: part?.id ?? null, reason, part });
+    const none = (reason: string, part: SalesPartInput | null = candidates[0] ?? null) => ({
+      attribution: 'unattributed' as const,
+      episodeId: null,
+      partId: part?.id ?? null,
+      reason,
+      part,
+    });
     if (candidates.length === 0) return none('the SKU matches no part of this build', null);
     if (campaign) {
       if (campaign.toLowerCase() !== tag) return none(`tagged for another campaign ("${campaign}")`);
       const n = episodeNumberOf(line.content);
       const ep = n === null ? undefined : episodeByNumber.get(n);
-      if (!ep) return none(line.content?.trim() ? `tagged for this build, but "${line.content.trim()}" names no episode of it` : 'tagged for this build, but no episode is named');
+      if (!ep)
+        return none(
+          line.content?.trim()
+            ? `tagged for this build, but "${line.content.trim()}" names no episode of it`
+            : 'tagged for this build, but no episode is named',
+        );
       const part = candidates.find((p) => upgradeEpisode.get(p.upgradeId) === ep.id) ?? candidates[0]!;
       return { attribution: 'direct', episodeId: ep.id, partId: part.id, reason: null, part };
     }
@@ -121,9 +136,15 @@ export function attributeLines(input: AttributionInput): AttributedLine[] {
       const ep = epId == null ? undefined : episodeById.get(epId);
       if (!ep || ep.state !== 'live' || !ep.releaseDate) continue;
       if (ep.releaseDate > line.soldOn || addDays(ep.releaseDate, input.windowDays) < line.soldOn) continue;
-      if (!best || ep.releaseDate > best.ep.releaseDate! || (ep.releaseDate === best.ep.releaseDate && ep.number > best.ep.number)) best = { ep, part };
+      if (
+        !best ||
+        ep.releaseDate > best.ep.releaseDate! ||
+        (ep.releaseDate === best.ep.releaseDate && ep.number > best.ep.number)
+      )
+        best = { ep, part };
     }
-    if (best) return { attribution: 'assisted', episodeId: best.ep.id, partId: best.part.id, reason: null, part: best.part };
+    if (best)
+      return { attribution: 'assisted', episodeId: best.ep.id, partId: best.part.id, reason: null, part: best.part };
     return none(`untagged, and sold outside ${input.windowDays} days after every live episode showing the part`);
   };
 
@@ -140,7 +161,12 @@ export function attributeLines(input: AttributionInput): AttributedLine[] {
       if (!refund && !saleOf.has(key(l))) saleOf.set(key(l), j);
     }
     const { part, ...rest } = j;
-    out.push({ ...l, ...rest, refund, marginCents: part ? lineMargin(l.revenueCents, part.unitCostCents, l.quantity) : null });
+    out.push({
+      ...l,
+      ...rest,
+      refund,
+      marginCents: part ? lineMargin(l.revenueCents, part.unitCostCents, l.quantity) : null,
+    });
   }
   return out;
 }
@@ -306,7 +332,9 @@ export interface SalesFigures {
 }
 
 /** Every figure of the Sales screen from attributed lines and the build's net cost by day. */
-export function salesFigures(input: AttributionInput & { netCostCents: number; netCostByDay: readonly DatedAmount[] }): SalesFigures {
+export function salesFigures(
+  input: AttributionInput & { netCostCents: number; netCostByDay: readonly DatedAmount[] },
+): SalesFigures {
   const lines = attributeLines(input);
   const byKind = (k: Attribution) => lines.filter((l) => l.attribution === k);
   const episodes = [...input.episodes]
@@ -334,7 +362,14 @@ export function salesFigures(input: AttributionInput & { netCostCents: number; n
     const ep = u.episodeId == null ? undefined : episodeById.get(u.episodeId);
     const release = ep?.releaseDate ?? null;
     const mine = release === null ? [] : (linesOfUpgrade.get(u.id) ?? []).filter((l) => l.soldOn >= release);
-    return { upgradeId: u.id, title: u.title, episodeId: u.episodeId, episodeNumber: ep?.number ?? null, releaseDate: release, sinceRelease: figuresOf(mine) };
+    return {
+      upgradeId: u.id,
+      title: u.title,
+      episodeId: u.episodeId,
+      episodeNumber: ep?.number ?? null,
+      releaseDate: release,
+      sinceRelease: figuresOf(mine),
+    };
   });
   const direct = figuresOf(byKind('direct'));
   const assisted = figuresOf(byKind('assisted'));

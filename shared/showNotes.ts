@@ -52,16 +52,25 @@ export function parseChapterTime(text: string): number | null {
 /** Every problem in a chapter list; [] means it is ready. An empty list is allowed (no chapters). */
 export function validateChapters(chapters: readonly ChapterInput[], runtimeSeconds: number | null): ChapterProblem[] {
   const problems: ChapterProblem[] = [];
-  const runtime = runtimeSeconds !== null && Number.isFinite(runtimeSeconds) && runtimeSeconds > 0 ? runtimeSeconds : null;
+  const runtime =
+    runtimeSeconds !== null && Number.isFinite(runtimeSeconds) && runtimeSeconds > 0 ? runtimeSeconds : null;
   let previous: number | null = null;
 
   chapters.forEach((ch, index) => {
     const start = ch?.startSeconds;
     if (typeof start !== 'number' || !Number.isInteger(start) || start < 0) {
-      problems.push({ index, field: 'startSeconds', message: 'Start time must be a whole number of seconds, 0:00 or later.' });
+      problems.push({
+        index,
+        field: 'startSeconds',
+        message: 'Start time must be a whole number of seconds, 0:00 or later.',
+      });
     } else {
       if (index === 0 && start !== 0) {
-        problems.push({ index, field: 'startSeconds', message: `The first chapter must start at 0:00, not ${formatChapterTime(start)}.` });
+        problems.push({
+          index,
+          field: 'startSeconds',
+          message: `The first chapter must start at 0:00, not ${formatChapterTime(start)}.`,
+        });
       }
       if (index > 0 && previous !== null && start <= previous) {
         problems.push({
@@ -84,7 +93,11 @@ export function validateChapters(chapters: readonly ChapterInput[], runtimeSecon
     if (!title) {
       problems.push({ index, field: 'title', message: 'A chapter title is required.' });
     } else if (title.length > MAX_CHAPTER_TITLE) {
-      problems.push({ index, field: 'title', message: `Title is ${title.length} characters; keep it to ${MAX_CHAPTER_TITLE}.` });
+      problems.push({
+        index,
+        field: 'title',
+        message: `Title is ${title.length} characters; keep it to ${MAX_CHAPTER_TITLE}.`,
+      });
     }
   });
   return problems;
@@ -119,7 +132,10 @@ export function tagProductUrl(url: string, tags: UtmTags): string | null {
       return raw;
     }
   };
-  const kept = u.search.replace(/^\?/, '').split('&').filter((p) => p !== '' && !/^utm_/i.test(keyOf(p)));
+  const kept = u.search
+    .replace(/^\?/, '')
+    .split('&')
+    .filter((p) => p !== '' && !/^utm_/i.test(keyOf(p)));
   const added = (
     [
       ['utm_source', tags.source],
@@ -206,15 +222,24 @@ export function buildShowNotes(input: ShowNotesInput): ShowNotes {
   }
   if (chapters.length > 0) {
     if (chapters.length < PLATFORM_MIN_CHAPTERS) {
-      problems.push(`Video platforms usually need at least ${PLATFORM_MIN_CHAPTERS} chapters before they show chapter markers.`);
+      problems.push(
+        `Video platforms usually need at least ${PLATFORM_MIN_CHAPTERS} chapters before they show chapter markers.`,
+      );
     }
     chapters.forEach((ch, i) => {
-      const next = i + 1 < chapters.length ? chapters[i + 1]!.startSeconds : input.runtimeSeconds ?? null;
+      const next = i + 1 < chapters.length ? chapters[i + 1]!.startSeconds : (input.runtimeSeconds ?? null);
       if (next !== null && next > ch.startSeconds && next - ch.startSeconds < PLATFORM_MIN_CHAPTER_SECONDS) {
-        problems.push(`Chapter ${i + 1} lasts under ${PLATFORM_MIN_CHAPTER_SECONDS} seconds; video platforms may ignore the chapter list.`);
+        problems.push(
+          `Chapter ${i + 1} lasts under ${PLATFORM_MIN_CHAPTER_SECONDS} seconds; video platforms may ignore the chapter list.`,
+        );
       }
     });
-    sections.push(['Chapters', ...chapters.map((c) => `${formatChapterTime(c.startSeconds)} ${(c.title ?? '').trim()}`.trimEnd())].join('\n'));
+    sections.push(
+      [
+        'Chapters',
+        ...chapters.map((c) => `${formatChapterTime(c.startSeconds)} ${(c.title ?? '').trim()}`.trimEnd()),
+      ].join('\n'),
+    );
   }
 
   // Parts: each part number once (first wins), only for upgrades shown in this episode.
@@ -273,7 +298,12 @@ export function buildShowNotes(input: ShowNotesInput): ShowNotes {
       return `- ${c.label} (${which.join(', ')}): ${c.caution.replace(SAFETY_DEFERRAL, '').trim()}`;
     });
     sections.push(
-      ['Safety', 'This series shows work on one demonstration vehicle; it is not a repair manual.', ...lines, SAFETY_DEFERRAL].join('\n'),
+      [
+        'Safety',
+        'This series shows work on one demonstration vehicle; it is not a repair manual.',
+        ...lines,
+        SAFETY_DEFERRAL,
+      ].join('\n'),
     );
   }
 
@@ -287,7 +317,9 @@ export function buildShowNotes(input: ShowNotesInput): ShowNotes {
 
   const text = sections.join('\n\n');
   if (text.length > PLATFORM_MAX_DESCRIPTION) {
-    problems.push(`The description is ${text.length} characters; video platforms commonly allow ${PLATFORM_MAX_DESCRIPTION}.`);
+    problems.push(
+      `The description is ${text.length} characters; video platforms commonly allow ${PLATFORM_MAX_DESCRIPTION}.`,
+    );
   }
   return { text, problems };
 }

@@ -108,9 +108,12 @@ export function parseTireSize(text: string): TireParseResult {
     const aspect = Number(m[3]);
     const rimIn = Number(m[5]);
     // Ranges cover every road tire we expect on a car, SUV or light truck; outside them a typo is likelier.
-    if (widthMm < 115 || widthMm > 395) return { ok: false, error: `Section width ${widthMm} mm is outside 115–395 mm; check the first number.` };
-    if (aspect < 20 || aspect > 95) return { ok: false, error: `Aspect ratio ${aspect} is outside 20–95; check the number after the slash.` };
-    if (rimIn < 10 || rimIn > 30) return { ok: false, error: `Rim diameter ${rimIn} in is outside 10–30 in; check the number after the R.` };
+    if (widthMm < 115 || widthMm > 395)
+      return { ok: false, error: `Section width ${widthMm} mm is outside 115–395 mm; check the first number.` };
+    if (aspect < 20 || aspect > 95)
+      return { ok: false, error: `Aspect ratio ${aspect} is outside 20–95; check the number after the slash.` };
+    if (rimIn < 10 || rimIn > 30)
+      return { ok: false, error: `Rim diameter ${rimIn} in is outside 10–30 in; check the number after the R.` };
     const sectionWidthIn = widthMm / MM_PER_INCH;
     const sidewallIn = (widthMm * aspect) / 100 / MM_PER_INCH;
     return {
@@ -134,10 +137,20 @@ export function parseTireSize(text: string): TireParseResult {
     const diameterIn = Number(f[1]);
     const widthIn = Number(f[2]);
     const rimIn = Number(f[4]);
-    if (rimIn < 10 || rimIn > 30) return { ok: false, error: `Rim diameter ${rimIn} in is outside 10–30 in; check the number after the R.` };
-    if (diameterIn <= rimIn + 2) return { ok: false, error: `Overall diameter ${diameterIn} in leaves no room for a sidewall on a ${rimIn} in rim; the first number is the tire's height.` };
-    if (diameterIn > 46) return { ok: false, error: `Overall diameter ${diameterIn} in is larger than any road tire; check the first number.` };
-    if (widthIn < 6 || widthIn > 20) return { ok: false, error: `Section width ${widthIn} in is outside 6–20 in; check the number after the x.` };
+    if (rimIn < 10 || rimIn > 30)
+      return { ok: false, error: `Rim diameter ${rimIn} in is outside 10–30 in; check the number after the R.` };
+    if (diameterIn <= rimIn + 2)
+      return {
+        ok: false,
+        error: `Overall diameter ${diameterIn} in leaves no room for a sidewall on a ${rimIn} in rim; the first number is the tire's height.`,
+      };
+    if (diameterIn > 46)
+      return {
+        ok: false,
+        error: `Overall diameter ${diameterIn} in is larger than any road tire; check the first number.`,
+      };
+    if (widthIn < 6 || widthIn > 20)
+      return { ok: false, error: `Section width ${widthIn} in is outside 6–20 in; check the number after the x.` };
     return {
       ok: true,
       size: finish({
@@ -156,7 +169,10 @@ export function parseTireSize(text: string): TireParseResult {
   }
 
   if (/^\D*\d{3}\s*\/\s*\d{2}\s*\d/.test(t)) {
-    return { ok: false, error: `"${raw}" is missing the construction letter between the aspect ratio and the rim (R for radial). ${FORMS_HINT}` };
+    return {
+      ok: false,
+      error: `"${raw}" is missing the construction letter between the aspect ratio and the rim (R for radial). ${FORMS_HINT}`,
+    };
   }
   return { ok: false, error: `"${raw}" is not a tire size we can read. ${FORMS_HINT}` };
 }

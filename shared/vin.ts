@@ -21,9 +21,29 @@ export const VIN_LENGTH = 17;
 // Letter values from the regulation's transliteration table. I, O and Q are absent on purpose:
 // they are never used in a VIN because they are too easily confused with 1 and 0.
 const LETTER_VALUES: Readonly<Record<string, number>> = {
-  A: 1, B: 2, C: 3, D: 4, E: 5, F: 6, G: 7, H: 8,
-  J: 1, K: 2, L: 3, M: 4, N: 5, P: 7, R: 9,
-  S: 2, T: 3, U: 4, V: 5, W: 6, X: 7, Y: 8, Z: 9,
+  A: 1,
+  B: 2,
+  C: 3,
+  D: 4,
+  E: 5,
+  F: 6,
+  G: 7,
+  H: 8,
+  J: 1,
+  K: 2,
+  L: 3,
+  M: 4,
+  N: 5,
+  P: 7,
+  R: 9,
+  S: 2,
+  T: 3,
+  U: 4,
+  V: 5,
+  W: 6,
+  X: 7,
+  Y: 8,
+  Z: 9,
 };
 
 // Weight per position 1..17; position 9 (the check digit itself) weighs 0 so it drops out of the sum.
@@ -83,7 +103,9 @@ function characterProblems(vin: string): string[] {
       const hint = ch === 'I' ? '1' : '0';
       problems.push(`position ${pos}: the letter ${ch} is never used in a VIN (did you mean ${hint}?)`);
     } else {
-      problems.push(`position ${pos}: ${describeChar(ch)} is not allowed (only digits and letters other than I, O and Q)`);
+      problems.push(
+        `position ${pos}: ${describeChar(ch)} is not allowed (only digits and letters other than I, O and Q)`,
+      );
     }
   }
   return problems;
@@ -98,7 +120,9 @@ const MAX_LISTED_PROBLEMS = 3;
  * vehicles built for markets outside North America do not use a check digit at all.
  */
 export function checkVin(text: string): VinCheck {
-  const normalized = String(text ?? '').trim().toUpperCase();
+  const normalized = String(text ?? '')
+    .trim()
+    .toUpperCase();
   if (normalized.length === 0) {
     return { valid: false, checkDigit: '', modelYears: [], reason: 'Enter a VIN (17 characters).', normalized };
   }
@@ -120,7 +144,13 @@ export function checkVin(text: string): VinCheck {
 
   if (problems.length > 0) {
     const reason = problems.join('; ');
-    return { valid: false, checkDigit, modelYears, reason: reason[0]!.toUpperCase() + reason.slice(1) + '.', normalized };
+    return {
+      valid: false,
+      checkDigit,
+      modelYears,
+      reason: reason[0]!.toUpperCase() + reason.slice(1) + '.',
+      normalized,
+    };
   }
 
   const found = normalized[8]!;

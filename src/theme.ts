@@ -65,7 +65,12 @@ export const lightOverrides: GlobalThemeOverrides = {
     fontSize: '14px',
   },
   Layout: { siderColor: palette.graphite800, headerColor: palette.chalk100 },
-  DataTable: { thColor: palette.chalk100, thFontWeight: '600', thTextColor: palette.graphite900, tdTextColor: palette.graphite900 },
+  DataTable: {
+    thColor: palette.chalk100,
+    thFontWeight: '600',
+    thTextColor: palette.graphite900,
+    tdTextColor: palette.graphite900,
+  },
 };
 
 export const darkOverrides: GlobalThemeOverrides = {
@@ -105,7 +110,9 @@ export function formatDollarsTick(v: string | number): string {
 /** A line total with its unit price beside it: "4 × $185.00 = $740.00" (one piece: "$185.00"). */
 export function formatLineTotal(quantity: number, unitCents: number | null | undefined): string {
   if (unitCents === null || unitCents === undefined || !Number.isFinite(unitCents)) return '—';
-  return quantity === 1 ? formatCents(unitCents) : `${quantity} × ${formatCents(unitCents)} = ${formatCents(Math.round(unitCents * quantity))}`;
+  return quantity === 1
+    ? formatCents(unitCents)
+    : `${quantity} × ${formatCents(unitCents)} = ${formatCents(Math.round(unitCents * quantity))}`;
 }
 
 /** Colours and type for charts and overview cards in each theme (text, grid, panels). */
@@ -312,6 +319,7 @@ export function themeVars(dark: boolean): ThemeVars {
 /** `themeVars` as CSS custom properties: `{ '--bs-on-primary': '#fff', … }`. */
 export function themeCssVars(dark: boolean): Record<string, string> {
   const out: Record<string, string> = {};
-  for (const [k, v] of Object.entries(themeVars(dark))) out[`--bs-${k.replace(/[A-Z]/g, (c) => `-${c.toLowerCase()}`)}`] = v;
+  for (const [k, v] of Object.entries(themeVars(dark)))
+    out[`--bs-${k.replace(/[A-Z]/g, (c) => `-${c.toLowerCase()}`)}`] = v;
   return out;
 }

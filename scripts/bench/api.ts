@@ -122,18 +122,40 @@ async function round(url: string, headers: Record<string, string>, seconds: numb
   const cpu0 = serverCpuMs(pid);
   const autocannon = (await import('autocannon')).default;
   const latencies: number[] = [];
-  const inst = autocannon({ url, connections: CONNECTIONS, duration: seconds, headers, timeout: 10 }) as unknown as Promise<autocannon.Result> & { on: (ev: 'response', fn: (...a: never[]) => void) => void };
+  const inst = autocannon({
+    url,
+    connections: CONNECTIONS,
+    duration: seconds,
+    headers,
+    timeout: 10,
+  }) as unknown as Promise<autocannon.Result> & { on: (ev: 'response', fn: (...a: never[]) => void) => void };
   inst.on('response', (_c: unknown, _status: number, _bytes: number, ms: number) => latencies.push(ms));
   const r = await inst;
-  return { latencies, requests: r.requests.total, non2xx: r.non2xx, errors: r.errors + r.timeouts, cpuMs: serverCpuMs(pid) - cpu0 };
+  return {
+    latencies,
+    requests: r.requests.total,
+    non2xx: r.non2xx,
+    errors: r.errors + r.timeouts,
+    cpuMs: serverCpuMs(pid) - cpu0,
+  };
 }
 
 function figures(rounds: Awaited<ReturnType<typeof round>>[], seconds: number): Figures {
   const latencies = rounds.flatMap((r) => r.latencies).sort((a, b) => a - b);
-  const pct = (p: number) => (latencies.length ? latencies[Math.min(latencies.length - 1, Math.ceil((p / 100) * latencies.length) - 1)] : NaN);
+  const pct = (p: number) =>
+    latencies.length ? latencies[Math.min(latencies.length - 1, Math.ceil((p / 100) * latencies.length) - 1)] : NaN;
   const requests = rounds.reduce((s, r) => s + r.requests, 0);
   const cpuMs = rounds.reduce((s, r) => s + r.cpuMs, 0);
-  return { p50: pct(50), p95: pct(95), p99: pct(99), rps: requests / seconds, requests, cpuUsPerRequest: requests ? (cpuMs * 1000) / requests : NaN, non2xx: rounds.reduce((s, r) => s + r.non2xx, 0), errors: rounds.reduce((s, r) => s + r.errors, 0) };
+  return {
+    p50: pct(50),
+    p95: pct(95),
+    p99: pct(99),
+    rps: requests / seconds,
+    requests,
+    cpuUsPerRequest: requests ? (cpuMs * 1000) / requests : NaN,
+    non2xx: rounds.reduce((s, r) => s + r.non2xx, 0),
+    errors: rounds.reduce((s, r) => s + r.errors, 0),
+  };
 }
 
 /**
@@ -162,13 +184,22 @@ async function compare(targets: Target[]) {
 }
 
 /** One writer logging an hour every WRITE_EVERY_MS through the API, as the shop floor does. */
-function writer(url: string, headers: Record<string, string>, upgradeId: number, counts: { ok: number; failed: number }) {
+function writer(
+  url: string,
+  headers: Record<string, string>,
+  upgradeId: number,
+  counts: { ok: number; failed: number },
+) {
   return () => {
     let day = 0;
     const inFlight = new Set<Promise<void>>();
     const timer = setInterval(() => {
       const workedOn = new Date(Date.UTC(2025, 0, 2 + (day++ % 300))).toISOString().slice(0, 10);
-      const p = fetch(url, { method: 'POST', headers: { ...headers, 'content-type': 'application/json' }, body: JSON.stringify({ upgradeId, workedOn, hours: 1, personName: 'Bench writer' }) })
+      const p = fetch(url, {
+        method: 'POST',
+        headers: { ...headers, 'content-type': 'application/json' },
+        body: JSON.stringify({ upgradeId, workedOn, hours: 1, personName: 'Bench writer' }),
+      })
         .then((r) => void (r.ok ? counts.ok++ : counts.failed++))
         .catch(() => void counts.failed++)
         .finally(() => inFlight.delete(p));
@@ -182,7 +213,15 @@ function writer(url: string, headers: Record<string, string>, upgradeId: number,
 }
 
 async function startServer(env: NodeJS.ProcessEnv) {
-  const child = fork(fileURLToPath(import.meta.url), ['--serve'], { env, execArgv: ['--import', 'tsx', ...(process.env.BENCH_CPU_PROFILE ? ['--cpu-prof', `--cpu-prof-dir=${process.env.BENCH_CPU_PROFILE}`] : [])], stdio: ['ignore', 'inherit', 'inherit', 'ipc'] });
+  const child = fork(fileURLToPath(import.meta.url), ['--serve'], {
+    env,
+    execArgv: [
+      '--import',
+      'tsx',
+      ...(process.env.BENCH_CPU_PROFILE ? ['--cpu-prof', `--cpu-prof-dir=${process.env.BENCH_CPU_PROFILE}`] : []),
+    ],
+    stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
+  });
   const port = await new Promise<number>((resolve, reject) => {
     child.once('message', (m: { port: number }) => resolve(m.port));
     child.once('exit', (code) => reject(new Error(`the server exited with ${code}`)));
@@ -197,7 +236,10 @@ async function signIn(base: string) {
     body: JSON.stringify({ email: 'owner@cedar-ridge.test', password: 'bayslate-demo' }),
   });
   if (!login.ok) throw new Error(`sign-in answered ${login.status}`);
-  return login.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+  return login.headers
+    .getSetCookie()
+    .map((c) => c.split(';')[0])
+    .join('; ');
 }
 
 async function warm(url: string, headers: Record<string, string>) {
@@ -220,14 +262,37 @@ async function main() {
   const children: ChildProcess[] = [];
   try {
     // Everything below reads its settings from this environment (server/config.ts).
-    Object.assign(process.env, { DATABASE_URL: benchUrl.toString(), NODE_ENV: 'production', BAYSLATE_DEMO: '1', SERVE_CLIENT: '0', MAIL_WORKER: '0', LOG_REQUESTS: '0', LOG_LEVEL: 'warn', ALLOWED_HOSTS: '127.0.0.1', DATABASE_POOL_MAX: process.env.DATABASE_POOL_MAX ?? '10' });
+    Object.assign(process.env, {
+      DATABASE_URL: benchUrl.toString(),
+      NODE_ENV: 'production',
+      BAYSLATE_DEMO: '1',
+      SERVE_CLIENT: '0',
+      MAIL_WORKER: '0',
+      LOG_REQUESTS: '0',
+      LOG_LEVEL: 'warn',
+      ALLOWED_HOSTS: '127.0.0.1',
+      DATABASE_POOL_MAX: process.env.DATABASE_POOL_MAX ?? '10',
+    });
     const { migrate } = await import('../../server/db/migrate');
     const { sequelize, Build } = await import('../../server/models');
     await migrate();
     // Only the demo people (to sign in with; they sign in in demo mode only); the benchmark's build is generated below.
     const { up: seedUsers } = await import('../../server/db/seeders/0001-demo-users');
     await seedUsers({ context: { sequelize, queryInterface: sequelize.getQueryInterface() } });
-    const build = await Build.create({ slug: 'bench-build', name: 'Benchmark build', year: 2019, make: 'Halvorsen', model: 'Tern', vin: null, mileage: null, budgetCents: 4_500_000_00, labourRateCents: 9_500, campaign: null, summary: null, startDate: '2025-01-02' });
+    const build = await Build.create({
+      slug: 'bench-build',
+      name: 'Benchmark build',
+      year: 2019,
+      make: 'Halvorsen',
+      model: 'Tern',
+      vin: null,
+      mileage: null,
+      budgetCents: 4_500_000_00,
+      labourRateCents: 9_500,
+      campaign: null,
+      summary: null,
+      startDate: '2025-01-02',
+    });
     const t0 = performance.now();
     await generate(build.id, (sql) => sequelize.query(sql));
     await sequelize.query('ANALYZE');
@@ -235,8 +300,12 @@ async function main() {
       `SELECT (SELECT count(*) FROM upgrades WHERE build_id = ${build.id})::int AS upgrades, (SELECT count(*) FROM parts WHERE build_id = ${build.id})::int AS parts,
               (SELECT count(*) FROM labour_entries WHERE build_id = ${build.id})::int AS labour`,
     )) as [Array<{ upgrades: number; parts: number; labour: number }>, unknown];
-    const [[{ id: firstUpgrade }]] = (await sequelize.query(`SELECT min(id) AS id FROM upgrades WHERE build_id = ${build.id}`)) as [Array<{ id: number }>, unknown];
-    console.log(`generated ${n.upgrades} upgrades, ${n.parts} parts, ${n.labour} labour entries in ${Math.round(performance.now() - t0)} ms (database ${dbName})`);
+    const [[{ id: firstUpgrade }]] = (await sequelize.query(
+      `SELECT min(id) AS id FROM upgrades WHERE build_id = ${build.id}`,
+    )) as [Array<{ id: number }>, unknown];
+    console.log(
+      `generated ${n.upgrades} upgrades, ${n.parts} parts, ${n.labour} labour entries in ${Math.round(performance.now() - t0)} ms (database ${dbName})`,
+    );
     await sequelize.close();
 
     // Two servers on the same database: one as configured (cache on unless OVERVIEW_CACHE=0), one
@@ -275,7 +344,12 @@ async function main() {
     ];
     if (!onlyUncached) {
       targets.push({ name: 'uncached', url: uncachedUrl, headers: headersUncached, pid: uncachedServer.child.pid });
-      targets.push({ name: 'mixed', url: overviewUrl, headers, beside: writer(`${base}/api/builds/${build.id}/labour`, headers, firstUpgrade, writes) });
+      targets.push({
+        name: 'mixed',
+        url: overviewUrl,
+        headers,
+        beside: writer(`${base}/api/builds/${build.id}/labour`, headers, firstUpgrade, writes),
+      });
     }
     const results = await compare(targets);
     const overview = results.get('overview')!;
@@ -290,26 +364,45 @@ async function main() {
     });
     const row = (name: string, f: Figures) =>
       `${name.padEnd(26)} ${f.p50.toFixed(1).padStart(7)} ${f.p95.toFixed(1).padStart(7)} ${f.p99.toFixed(1).padStart(7)} ${f.rps.toFixed(0).padStart(8)} ${f.cpuUsPerRequest.toFixed(0).padStart(9)} ${String(f.non2xx + f.errors).padStart(7)}`;
-    console.log(`\n${CONNECTIONS} connections, ${SECONDS} s each (${ROUNDS} alternating rounds), loopback, OVERVIEW_CACHE=${process.env.OVERVIEW_CACHE ?? '1'}`);
-    console.log(`${'route'.padEnd(26)} ${'p50 ms'.padStart(7)} ${'p95 ms'.padStart(7)} ${'p99 ms'.padStart(7)} ${'req/s'.padStart(8)} ${'cpu µs/r'.padStart(9)} ${'failed'.padStart(7)}`);
+    console.log(
+      `\n${CONNECTIONS} connections, ${SECONDS} s each (${ROUNDS} alternating rounds), loopback, OVERVIEW_CACHE=${process.env.OVERVIEW_CACHE ?? '1'}`,
+    );
+    console.log(
+      `${'route'.padEnd(26)} ${'p50 ms'.padStart(7)} ${'p95 ms'.padStart(7)} ${'p99 ms'.padStart(7)} ${'req/s'.padStart(8)} ${'cpu µs/r'.padStart(9)} ${'failed'.padStart(7)}`,
+    );
     console.log(row(onlyUncached ? 'GET overview (uncached)' : 'GET overview (cached)', overview));
     if (uncached) console.log(row('GET overview (uncached)', uncached));
     if (mixed) console.log(row('GET overview (mixed)', mixed));
     console.log(row('bare SELECT 1', bare));
     console.log(row('signed-in /api/auth/me', me));
-    console.log(`overview answers from the cache: ${stats.cache.hit} of ${stats.cache.hit + stats.cache.miss} (the mixed run included)`);
+    console.log(
+      `overview answers from the cache: ${stats.cache.hit} of ${stats.cache.hit + stats.cache.miss} (the mixed run included)`,
+    );
     let met = overview.non2xx + overview.errors === 0;
     if (onlyUncached) {
-      console.log(`uncached throughput ratio: ${(ratio * 100).toFixed(1)} % (target ≥ ${TARGET_UNCACHED_RATIO * 100} %)`);
+      console.log(
+        `uncached throughput ratio: ${(ratio * 100).toFixed(1)} % (target ≥ ${TARGET_UNCACHED_RATIO * 100} %)`,
+      );
       met &&= ratio >= TARGET_UNCACHED_RATIO;
     } else {
       const uRatio = uncached!.rps / bare.rps;
       console.log(`cached throughput ratio: ${(ratio * 100).toFixed(1)} % (target ≥ ${TARGET_RATIO * 100} %)`);
       console.log(`cached p95: ${overview.p95.toFixed(1)} ms (target < ${TARGET_P95_MS} ms)`);
-      console.log(`uncached throughput ratio: ${(uRatio * 100).toFixed(1)} % (target ≥ ${TARGET_UNCACHED_RATIO * 100} %)`);
-      console.log(`mixed p95: ${mixed!.p95.toFixed(1)} ms (target < ${TARGET_MIXED_P95_MS} ms); hours logged ${writes.ok}, failed writes ${writes.failed}`);
-      met &&= overview.p95 < TARGET_P95_MS && ratio >= TARGET_RATIO && uRatio >= TARGET_UNCACHED_RATIO && mixed!.p95 < TARGET_MIXED_P95_MS;
-      met &&= uncached!.non2xx + uncached!.errors + mixed!.non2xx + mixed!.errors === 0 && writes.failed === 0 && writes.ok > 0;
+      console.log(
+        `uncached throughput ratio: ${(uRatio * 100).toFixed(1)} % (target ≥ ${TARGET_UNCACHED_RATIO * 100} %)`,
+      );
+      console.log(
+        `mixed p95: ${mixed!.p95.toFixed(1)} ms (target < ${TARGET_MIXED_P95_MS} ms); hours logged ${writes.ok}, failed writes ${writes.failed}`,
+      );
+      met &&=
+        overview.p95 < TARGET_P95_MS &&
+        ratio >= TARGET_RATIO &&
+        uRatio >= TARGET_UNCACHED_RATIO &&
+        mixed!.p95 < TARGET_MIXED_P95_MS;
+      met &&=
+        uncached!.non2xx + uncached!.errors + mixed!.non2xx + mixed!.errors === 0 &&
+        writes.failed === 0 &&
+        writes.ok > 0;
     }
     console.log(met ? 'targets met' : 'targets NOT met');
     process.exitCode = met ? 0 : 1;

@@ -19,7 +19,12 @@ async function main() {
   const url = new URL(baseUrl);
   url.pathname = `/${dbName}`;
   try {
-    Object.assign(process.env, { DATABASE_URL: url.toString(), NODE_ENV: 'production', LOG_LEVEL: 'warn', ALLOWED_HOSTS: '127.0.0.1' });
+    Object.assign(process.env, {
+      DATABASE_URL: url.toString(),
+      NODE_ENV: 'production',
+      LOG_LEVEL: 'warn',
+      ALLOWED_HOSTS: '127.0.0.1',
+    });
     const { migrate } = await import('../../server/db/migrate');
     const { sequelize, Build } = await import('../../server/models');
     const { generate } = await import('./api');
@@ -27,10 +32,33 @@ async function main() {
     const { computeOverview } = await import('../../server/services/overview');
     const { compactOverview } = await import('../../shared/overview');
     await migrate();
-    const build = await Build.create({ slug: 'phases', name: 'Phases', year: 2019, make: 'Halvorsen', model: 'Tern', vin: null, mileage: null, budgetCents: 4_500_000_00, labourRateCents: 9_500, campaign: null, summary: null, startDate: '2025-01-02' });
+    const build = await Build.create({
+      slug: 'phases',
+      name: 'Phases',
+      year: 2019,
+      make: 'Halvorsen',
+      model: 'Tern',
+      vin: null,
+      mileage: null,
+      budgetCents: 4_500_000_00,
+      labourRateCents: 9_500,
+      campaign: null,
+      summary: null,
+      startDate: '2025-01-02',
+    });
     await generate(build.id, (sql) => sequelize.query(sql));
     await sequelize.query('ANALYZE');
-    const spans: Record<string, number[]> = { sql: [], compute: [], compact: [], stringify: [], gzip1: [], gzip6: [], 'full JSON': [], 'full gzip6': [], 'labour-only sql': [] };
+    const spans: Record<string, number[]> = {
+      sql: [],
+      compute: [],
+      compact: [],
+      stringify: [],
+      gzip1: [],
+      gzip6: [],
+      'full JSON': [],
+      'full gzip6': [],
+      'labour-only sql': [],
+    };
     let fullSize = 0;
     let size = 0;
     for (let i = 0; i < RUNS; i++) {
@@ -63,15 +91,25 @@ async function main() {
       await loadOverviewLabour(build.id);
       lap('labour-only sql');
     }
-    const [plan] = (await sequelize.query(`EXPLAIN (ANALYZE, FORMAT JSON) ${OVERVIEW_SQL}`, { bind: [build.id] })) as [Array<{ 'QUERY PLAN': Array<{ 'Execution Time': number }> }>, unknown];
+    const [plan] = (await sequelize.query(`EXPLAIN (ANALYZE, FORMAT JSON) ${OVERVIEW_SQL}`, { bind: [build.id] })) as [
+      Array<{ 'QUERY PLAN': Array<{ 'Execution Time': number }> }>,
+      unknown,
+    ];
     if (process.env.BENCH_PLAN) {
-      const [text] = (await sequelize.query(`EXPLAIN (ANALYZE) ${OVERVIEW_SQL}`, { bind: [build.id] })) as [Array<{ 'QUERY PLAN': string }>, unknown];
+      const [text] = (await sequelize.query(`EXPLAIN (ANALYZE) ${OVERVIEW_SQL}`, { bind: [build.id] })) as [
+        Array<{ 'QUERY PLAN': string }>,
+        unknown,
+      ];
       console.log(text.map((r) => r['QUERY PLAN']).join('\n'));
     }
     const med = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
-    console.log(`answer ${(size / 1024).toFixed(1)} KiB (expanded rows: ${(fullSize / 1024).toFixed(1)} KiB); medians over ${RUNS} runs (ms):`);
+    console.log(
+      `answer ${(size / 1024).toFixed(1)} KiB (expanded rows: ${(fullSize / 1024).toFixed(1)} KiB); medians over ${RUNS} runs (ms):`,
+    );
     for (const [k, xs] of Object.entries(spans)) console.log(`  ${k.padEnd(10)} ${med(xs).toFixed(2)}`);
-    console.log(`  PostgreSQL execution of the overview query: ${plan[0]['QUERY PLAN'][0]['Execution Time'].toFixed(2)} ms`);
+    console.log(
+      `  PostgreSQL execution of the overview query: ${plan[0]['QUERY PLAN'][0]['Execution Time'].toFixed(2)} ms`,
+    );
     await sequelize.close();
   } finally {
     await adminClient.query(`DROP DATABASE IF EXISTS ${dbName} WITH (FORCE)`);

@@ -34,17 +34,26 @@ export function generate(n: number, seed: number): PlannerInput {
     if (k > 1 && rand() < 0.2) pre.add(1 + Math.floor(rand() * k));
     const late = rand() < 0.25;
     upgrades.push({
-      id: k + 1, title: `U${k + 1}`, area: AREAS[Math.floor(rand() * AREAS.length)],
-      estimatedHours: 1 + Math.floor(rand() * 11) / 2, priority: 1 + Math.floor(rand() * 5), votes: Math.floor(rand() * 30),
-      installState: 'queued', partsDueDate: late ? addDays(startDate, Math.floor(rand() * Math.max(2, n / 2)) * cadence + 1 + Math.floor(rand() * 6)) : null,
-      prerequisiteIds: [...pre], fixedEpisode: null,
+      id: k + 1,
+      title: `U${k + 1}`,
+      area: AREAS[Math.floor(rand() * AREAS.length)],
+      estimatedHours: 1 + Math.floor(rand() * 11) / 2,
+      priority: 1 + Math.floor(rand() * 5),
+      votes: Math.floor(rand() * 30),
+      installState: 'queued',
+      partsDueDate: late
+        ? addDays(startDate, Math.floor(rand() * Math.max(2, n / 2)) * cadence + 1 + Math.floor(rand() * 6))
+        : null,
+      prerequisiteIds: [...pre],
+      fixedEpisode: null,
     });
   }
   return { startDate, shootHoursPerEpisode: 8, releaseCadenceDays: cadence, shopHoursPerWeek: 20, upgrades };
 }
 
 /** Slot of an episode: its shoot day is startDate + slot × cadence. */
-export const slotOf = (input: PlannerInput, shootDate: string) => (toDay(shootDate) - toDay(input.startDate)) / input.releaseCadenceDays;
+export const slotOf = (input: PlannerInput, shootDate: string) =>
+  (toDay(shootDate) - toDay(input.startDate)) / input.releaseCadenceDays;
 
 /**
  * The exact earliest last slot: x[i,k] = upgrade i in the episode of slot k (1..K), each upgrade in
@@ -58,7 +67,8 @@ export function exactModel(input: PlannerInput, K: number): string {
   const x = (i: number, k: number) => `x_${i}_${k}`;
   const slotsOf = (u: PlannerUpgrade) => {
     const list: number[] = [];
-    for (let k = 1; k <= K; k++) if (!u.partsDueDate || toDay(u.partsDueDate) <= start + k * input.releaseCadenceDays) list.push(k);
+    for (let k = 1; k <= K; k++)
+      if (!u.partsDueDate || toDay(u.partsDueDate) <= start + k * input.releaseCadenceDays) list.push(k);
     return list;
   };
   const allowed = ups.map(slotsOf);
@@ -75,7 +85,9 @@ export function exactModel(input: PlannerInput, K: number): string {
   ups.forEach((u, s) => {
     for (const pid of u.prerequisiteIds) {
       const p = index.get(pid)!;
-      rows.push(` pre_${p}_${s}: ${allowed[s].map((k) => `${k} ${x(s, k)}`).join(' + ')} ${allowed[p].map((k) => `- ${k} ${x(p, k)}`).join(' ')} >= 0`);
+      rows.push(
+        ` pre_${p}_${s}: ${allowed[s].map((k) => `${k} ${x(s, k)}`).join(' + ')} ${allowed[p].map((k) => `- ${k} ${x(p, k)}`).join(' ')} >= 0`,
+      );
     }
   });
   const bins = ups.flatMap((_, i) => allowed[i].map((k) => x(i, k)));
@@ -88,10 +100,17 @@ async function main() {
     { name: '6–10 upgrades', min: 6, max: 10, target: 0.95 },
     { name: '20–40 upgrades', min: 20, max: 40, target: 0.8 },
   ];
-  console.log(`plan quality: ${BUILDS} seeded builds per class, exact optimum by HiGHS (time limit ${TIME_LIMIT} s per build)`);
+  console.log(
+    `plan quality: ${BUILDS} seeded builds per class, exact optimum by HiGHS (time limit ${TIME_LIMIT} s per build)`,
+  );
   let failed = false;
   for (const c of classes) {
-    let optimal = 0, solved = 0, gapSum = 0, gapMax = 0, broken = 0, timeouts = 0;
+    let optimal = 0,
+      solved = 0,
+      gapSum = 0,
+      gapMax = 0,
+      broken = 0,
+      timeouts = 0;
     for (let b = 0; b < BUILDS; b++) {
       const seed = 1000 * c.min + b;
       const n = c.min + Math.floor(rng(seed)() * (c.max - c.min + 1));
@@ -122,4 +141,4 @@ async function main() {
   if (failed) process.exitCode = 1;
 }
 
-if (process.argv[1]?.endsWith("planQuality.ts")) await main();
+if (process.argv[1]?.endsWith('planQuality.ts')) await main();

@@ -25,7 +25,9 @@ const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..')
 async function serve() {
   const { createApp } = await import('../../server/app');
   const { config } = await import('../../server/config');
-  const server = createApp().listen(config().PORT, '127.0.0.1', () => process.send!({ port: (server.address() as AddressInfo).port }));
+  const server = createApp().listen(config().PORT, '127.0.0.1', () =>
+    process.send!({ port: (server.address() as AddressInfo).port }),
+  );
   process.on('disconnect', () => process.exit(0));
   process.on('SIGTERM', () => process.exit(0));
 }
@@ -55,8 +57,20 @@ let serverPid: number | undefined;
 async function round(url: string, headers: Record<string, string>, seconds: number) {
   const run = (await import('autocannon')).default;
   const cpu0 = serverCpuMs(serverPid);
-  const r = (await run({ url, connections: CONNECTIONS, duration: seconds, headers, timeout: 10 })) as autocannon.Result;
-  return { cpuMs: serverCpuMs(serverPid) - cpu0, requests: r.requests.total, p50: r.latency.p50, p95: r.latency.p97_5 ?? r.latency.p99, failed: r.non2xx + r.errors + r.timeouts };
+  const r = (await run({
+    url,
+    connections: CONNECTIONS,
+    duration: seconds,
+    headers,
+    timeout: 10,
+  })) as autocannon.Result;
+  return {
+    cpuMs: serverCpuMs(serverPid) - cpu0,
+    requests: r.requests.total,
+    p50: r.latency.p50,
+    p95: r.latency.p97_5 ?? r.latency.p99,
+    failed: r.non2xx + r.errors + r.timeouts,
+  };
 }
 
 /** Routes take turns in short rounds, so the machine's other load falls on all of them alike. */
@@ -71,7 +85,14 @@ async function compare(targets: { name: string; url: string }[], headers: Record
     // Median of the rounds' percentiles: autocannon gives no raw latencies to merge.
     const mid = (xs: number[]) => xs.sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
     const cpuMs = rs.reduce((s, r) => s + r.cpuMs, 0);
-    out.set(t.name, { cpuUs: requests ? (cpuMs * 1000) / requests : NaN, rps: requests / SECONDS, requests, p50: mid(rs.map((r) => r.p50)), p95: mid(rs.map((r) => r.p95)), failed: rs.reduce((s, r) => s + r.failed, 0) });
+    out.set(t.name, {
+      cpuUs: requests ? (cpuMs * 1000) / requests : NaN,
+      rps: requests / SECONDS,
+      requests,
+      p50: mid(rs.map((r) => r.p50)),
+      p95: mid(rs.map((r) => r.p95)),
+      failed: rs.reduce((s, r) => s + r.failed, 0),
+    });
   }
   return out;
 }
@@ -93,7 +114,10 @@ async function main() {
   const dist = path.join(root, 'dist');
   if (!existsSync(path.join(dist, 'index.html'))) {
     console.log('building the client (dist/ is missing)…');
-    execFileSync(process.execPath, [path.join(root, 'node_modules/vite/bin/vite.js'), 'build', '--logLevel', 'warn'], { cwd: root, stdio: 'inherit' });
+    execFileSync(process.execPath, [path.join(root, 'node_modules/vite/bin/vite.js'), 'build', '--logLevel', 'warn'], {
+      cwd: root,
+      stdio: 'inherit',
+    });
   }
   const dbName = `bench_${randomBytes(4).toString('hex')}`;
   const admin = new URL(baseUrl);
@@ -124,14 +148,25 @@ async function main() {
     await migrate();
     // The Project Tern build, its episodes and viewer requests (no media: no object store needed).
     const context = { sequelize, queryInterface: sequelize.getQueryInterface() };
-    for (const name of ['0001-demo-users', '0002-project-tern', '0003-project-tern-episodes', '0005-project-tern-requests']) {
-      const { up } = (await import(`../../server/db/seeders/${name}.ts`)) as { up: (a: { context: typeof context }) => Promise<void> };
+    for (const name of [
+      '0001-demo-users',
+      '0002-project-tern',
+      '0003-project-tern-episodes',
+      '0005-project-tern-requests',
+    ]) {
+      const { up } = (await import(`../../server/db/seeders/${name}.ts`)) as {
+        up: (a: { context: typeof context }) => Promise<void>;
+      };
       await up({ context });
     }
     await sequelize.query(`UPDATE builds SET is_public = TRUE WHERE slug = 'project-tern'`);
     await sequelize.close();
 
-    child = fork(fileURLToPath(import.meta.url), ['--serve'], { env: process.env, execArgv: ['--import', 'tsx'], stdio: ['ignore', 'ignore', 'inherit', 'ipc'] });
+    child = fork(fileURLToPath(import.meta.url), ['--serve'], {
+      env: process.env,
+      execArgv: ['--import', 'tsx'],
+      stdio: ['ignore', 'ignore', 'inherit', 'ipc'],
+    });
     await new Promise<number>((resolve, reject) => {
       child!.once('message', (m: { port: number }) => resolve(m.port));
       child!.once('exit', (code) => reject(new Error(`the server exited with ${code}`)));
@@ -148,20 +183,30 @@ async function main() {
       const r = await fetch(t.url, { headers });
       if (!r.ok) throw new Error(`${t.name} answered ${r.status}`);
       const size = (await r.arrayBuffer()).byteLength;
-      console.log(`${t.name}: ${r.status}, ${size} bytes, Content-Encoding ${r.headers.get('content-encoding') ?? 'none'}, Cache-Control ${r.headers.get('cache-control') ?? 'none'}`);
+      console.log(
+        `${t.name}: ${r.status}, ${size} bytes, Content-Encoding ${r.headers.get('content-encoding') ?? 'none'}, Cache-Control ${r.headers.get('cache-control') ?? 'none'}`,
+      );
     }
     const run = (await import('autocannon')).default;
     for (const t of targets) await run({ url: t.url, connections: 10, duration: 1, headers });
     const results = await compare(targets, headers);
     const [pub, live, stat] = targets.map((t) => results.get(t.name)!) as [Figures, Figures, Figures];
-    console.log(`\n${CONNECTIONS} connections, ${SECONDS} s per route (${ROUNDS} alternating rounds), loopback, gzip accepted`);
-    console.log(`${'route'.padEnd(20)} ${'req/s'.padStart(8)} ${'p50 ms'.padStart(7)} ${'p97.5 ms'.padStart(9)} ${'cpu µs/r'.padStart(9)} ${'failed'.padStart(7)}`);
+    console.log(
+      `\n${CONNECTIONS} connections, ${SECONDS} s per route (${ROUNDS} alternating rounds), loopback, gzip accepted`,
+    );
+    console.log(
+      `${'route'.padEnd(20)} ${'req/s'.padStart(8)} ${'p50 ms'.padStart(7)} ${'p97.5 ms'.padStart(9)} ${'cpu µs/r'.padStart(9)} ${'failed'.padStart(7)}`,
+    );
     for (const t of targets) {
       const f = results.get(t.name)!;
-      console.log(`${t.name.padEnd(20)} ${f.rps.toFixed(0).padStart(8)} ${f.p50.toFixed(1).padStart(7)} ${f.p95.toFixed(1).padStart(9)} ${f.cpuUs.toFixed(0).padStart(9)} ${String(f.failed).padStart(7)}`);
+      console.log(
+        `${t.name.padEnd(20)} ${f.rps.toFixed(0).padStart(8)} ${f.p50.toFixed(1).padStart(7)} ${f.p95.toFixed(1).padStart(9)} ${f.cpuUs.toFixed(0).padStart(9)} ${String(f.failed).padStart(7)}`,
+      );
     }
     // On a busy machine throughput follows the other load; the server's CPU per request does not.
-    console.log(`by server CPU per request (capacity on an idle core): public ${((stat.cpuUs / pub.cpuUs) * 100).toFixed(1)} %, live ${((stat.cpuUs / live.cpuUs) * 100).toFixed(1)} % of static`);
+    console.log(
+      `by server CPU per request (capacity on an idle core): public ${((stat.cpuUs / pub.cpuUs) * 100).toFixed(1)} %, live ${((stat.cpuUs / live.cpuUs) * 100).toFixed(1)} % of static`,
+    );
     const rPublic = pub.rps / stat.rps;
     const rLive = live.rps / stat.rps;
     console.log(`public JSON / static: ${(rPublic * 100).toFixed(1)} % (target ≥ ${TARGET_PUBLIC * 100} %)`);

@@ -36,8 +36,15 @@ async function serveApp() {
   process.on('disconnect', () => process.exit(0));
 }
 
-function child(args: string[], env: NodeJS.ProcessEnv): Promise<{ proc: ChildProcess; msg: Record<string, string | number> }> {
-  const proc = fork(here, args, { env, execArgv: ['--import', 'tsx', '--no-warnings'], stdio: ['ignore', 'inherit', 'inherit', 'ipc'] });
+function child(
+  args: string[],
+  env: NodeJS.ProcessEnv,
+): Promise<{ proc: ChildProcess; msg: Record<string, string | number> }> {
+  const proc = fork(here, args, {
+    env,
+    execArgv: ['--import', 'tsx', '--no-warnings'],
+    stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
+  });
   return new Promise((resolve, reject) => {
     proc.once('message', (msg: Record<string, string | number>) => resolve({ proc, msg }));
     proc.once('exit', (code) => reject(new Error(`${args[0]} exited with ${code}`)));
@@ -68,17 +75,28 @@ function rssMb(pid: number): number {
 }
 
 /** Streams the file as multipart/form-data with a known length, like a browser's form upload. */
-function uploadThroughApi(url: URL, cookie: string, file: string, fields: Record<string, string>): Promise<{ status: number; body: string }> {
+function uploadThroughApi(
+  url: URL,
+  cookie: string,
+  file: string,
+  fields: Record<string, string>,
+): Promise<{ status: number; body: string }> {
   const boundary = `----bayslate-bench-${randomBytes(8).toString('hex')}`;
   let head = '';
-  for (const [k, v] of Object.entries(fields)) head += `--${boundary}\r\nContent-Disposition: form-data; name="${k}"\r\n\r\n${v}\r\n`;
+  for (const [k, v] of Object.entries(fields))
+    head += `--${boundary}\r\nContent-Disposition: form-data; name="${k}"\r\n\r\n${v}\r\n`;
   head += `--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="bench-1gb.mp4"\r\nContent-Type: video/mp4\r\n\r\n`;
   const tail = `\r\n--${boundary}--\r\n`;
   const length = Buffer.byteLength(head) + statSync(file).size + Buffer.byteLength(tail);
   return new Promise((resolve, reject) => {
     const req = http.request(url, {
       method: 'POST',
-      headers: { 'Content-Type': `multipart/form-data; boundary=${boundary}`, 'Content-Length': length, cookie, 'X-Requested-With': 'Bayslate' },
+      headers: {
+        'Content-Type': `multipart/form-data; boundary=${boundary}`,
+        'Content-Length': length,
+        cookie,
+        'X-Requested-With': 'Bayslate',
+      },
     });
     req.on('response', (res) => {
       let body = '';
@@ -135,7 +153,19 @@ async function main() {
     await migrate();
     const { up: seedUsers } = await import('../../server/db/seeders/0001-demo-users');
     await seedUsers({ context: { sequelize, queryInterface: sequelize.getQueryInterface() } });
-    const build = await Build.create({ slug: 'bench-upload', name: 'Upload benchmark', year: 2019, make: 'Halvorsen', model: 'Tern', vin: null, mileage: null, budgetCents: null, labourRateCents: null, campaign: null, summary: null });
+    const build = await Build.create({
+      slug: 'bench-upload',
+      name: 'Upload benchmark',
+      year: 2019,
+      make: 'Halvorsen',
+      model: 'Tern',
+      vin: null,
+      mileage: null,
+      budgetCents: null,
+      labourRateCents: null,
+      campaign: null,
+      summary: null,
+    });
 
     const app = await child(['--serve'], env);
     children.push(app.proc);
@@ -146,7 +176,10 @@ async function main() {
       body: JSON.stringify({ email: 'installer@cedar-ridge.test', password: 'bayslate-demo' }),
     });
     if (!login.ok) throw new Error(`sign-in answered ${login.status}`);
-    const cookie = login.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+    const cookie = login.headers
+      .getSetCookie()
+      .map((c) => c.split(';')[0])
+      .join('; ');
 
     // 1) Direct multipart upload of the same file to the fake S3 (the reference).
     const { configureStorage, putFile, removeObject } = await import('../../server/storage');
@@ -168,18 +201,24 @@ async function main() {
       }
     }, 50);
     t = performance.now();
-    const res = await uploadThroughApi(new URL(`${base}/api/builds/${build.id}/media`), cookie, file, { stage: 'during', caption: 'Benchmark take' });
+    const res = await uploadThroughApi(new URL(`${base}/api/builds/${build.id}/media`), cookie, file, {
+      stage: 'during',
+      caption: 'Benchmark take',
+    });
     const apiS = (performance.now() - t) / 1000;
     clearInterval(sampler);
     peak = Math.max(peak, rssMb(pid));
     if (res.status !== 201) throw new Error(`the API answered ${res.status}: ${res.body.slice(0, 300)}`);
     const media = JSON.parse(res.body).media as { sha256: string; sizeBytes: number };
-    if (media.sha256 !== sha || media.sizeBytes !== SIZE_MB * 1024 * 1024) throw new Error('the stored upload does not match the file');
+    if (media.sha256 !== sha || media.sizeBytes !== SIZE_MB * 1024 * 1024)
+      throw new Error('the stored upload does not match the file');
 
     const mbps = (s: number) => SIZE_MB / s;
     const ratio = mbps(apiS) / mbps(directS);
     console.log(`\nfile: ${SIZE_MB} MiB, loopback, fake S3 (s3rver) in its own process`);
-    console.log(`direct multipart Upload to S3:   ${mbps(directS).toFixed(1).padStart(7)} MiB/s  (${directS.toFixed(1)} s)`);
+    console.log(
+      `direct multipart Upload to S3:   ${mbps(directS).toFixed(1).padStart(7)} MiB/s  (${directS.toFixed(1)} s)`,
+    );
     console.log(`through POST /media (API):       ${mbps(apiS).toFixed(1).padStart(7)} MiB/s  (${apiS.toFixed(1)} s)`);
     console.log(`throughput ratio: ${(ratio * 100).toFixed(1)} % (target ≥ ${TARGET_RATIO * 100} %)`);
     console.log(`server RSS: idle ${idleRss.toFixed(0)} MB, peak ${peak.toFixed(0)} MB (target < ${TARGET_RSS_MB} MB)`);

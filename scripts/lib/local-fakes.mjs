@@ -35,7 +35,9 @@ export async function keepFakeRunning(root, kind, env, port = 0) {
         if (!ready) return reject(new Error(`the local fake ${kind} did not start (exit ${code ?? signal})`));
         if (stopped) return;
         restarts += 1;
-        log(`the local fake ${kind === 's3' ? 'S3' : 'SMTP'} stopped (${signal ?? `exit ${code}`}); starting it again on port ${port} (restart ${restarts})`);
+        log(
+          `the local fake ${kind === 's3' ? 'S3' : 'SMTP'} stopped (${signal ?? `exit ${code}`}); starting it again on port ${port} (restart ${restarts})`,
+        );
         setTimeout(() => launch().catch((err) => log(err.message)), Math.min(500 * restarts, 5000));
       });
     });

@@ -11,5 +11,11 @@ export interface Cluster {
   resume: () => void;
 }
 export function freePort(): Promise<number>;
-export function startCluster(opts: { home: string; port: number; database?: string; fast?: boolean; throwaway?: boolean }): Promise<Cluster>;
+export function startCluster(opts: {
+  home: string;
+  port: number;
+  database?: string;
+  fast?: boolean;
+  throwaway?: boolean;
+}): Promise<Cluster>;
 export function startThrowawayCluster(): Promise<Cluster>;

@@ -76,7 +76,16 @@ export async function startCluster({ home, port, database = 'bayslate', fast = f
     writeFileSync(initPw, readFileSync(pwFile, 'utf8'));
     chownToPostgres(dataRoot);
     const r = asOwner(path.join(bin, 'initdb'), [
-      '-D', dataDir, '-U', SUPERUSER, '--pwfile', initPw, '--auth=scram-sha-256', '-E', 'UTF8', '--locale=C.UTF-8',
+      '-D',
+      dataDir,
+      '-U',
+      SUPERUSER,
+      '--pwfile',
+      initPw,
+      '--auth=scram-sha-256',
+      '-E',
+      'UTF8',
+      '--locale=C.UTF-8',
     ]);
     rmSync(initPw, { force: true });
     if (r.status !== 0) throw new Error(`initdb failed:\n${r.stderr || r.stdout}`);
@@ -88,7 +97,18 @@ export async function startCluster({ home, port, database = 'bayslate', fast = f
     const opts = [`-c listen_addresses=127.0.0.1`, `-p ${port}`, `-k ${sockDir}`];
     if (fast) opts.push('-c fsync=off', '-c synchronous_commit=off', '-c full_page_writes=off');
     chownToPostgres(dataRoot);
-    const r = asOwner(path.join(bin, 'pg_ctl'), ['-D', dataDir, '-l', logFile, '-w', '-t', '30', '-o', opts.join(' '), 'start']);
+    const r = asOwner(path.join(bin, 'pg_ctl'), [
+      '-D',
+      dataDir,
+      '-l',
+      logFile,
+      '-w',
+      '-t',
+      '30',
+      '-o',
+      opts.join(' '),
+      'start',
+    ]);
     if (r.status !== 0) {
       const tail = existsSync(logFile) ? readFileSync(logFile, 'utf8').split('\n').slice(-15).join('\n') : '';
       throw new Error(`PostgreSQL did not start:\n${r.stderr || r.stdout}\n${tail}`);
@@ -103,11 +123,29 @@ export async function startCluster({ home, port, database = 'bayslate', fast = f
   }
 
   const env = { ...process.env, PGPASSWORD: password };
-  const exists = spawnSync(path.join(bin, 'psql'), ['-h', '127.0.0.1', '-p', String(port), '-U', SUPERUSER, '-d', 'postgres', '-tAc',
-    `SELECT 1 FROM pg_database WHERE datname='${database}'`], { env, encoding: 'utf8' });
+  const exists = spawnSync(
+    path.join(bin, 'psql'),
+    [
+      '-h',
+      '127.0.0.1',
+      '-p',
+      String(port),
+      '-U',
+      SUPERUSER,
+      '-d',
+      'postgres',
+      '-tAc',
+      `SELECT 1 FROM pg_database WHERE datname='${database}'`,
+    ],
+    { env, encoding: 'utf8' },
+  );
   if (exists.status !== 0) throw new Error(`cannot reach the database: ${exists.stderr}`);
   if (exists.stdout.trim() !== '1') {
-    const c = spawnSync(path.join(bin, 'createdb'), ['-h', '127.0.0.1', '-p', String(port), '-U', SUPERUSER, database], { env, encoding: 'utf8' });
+    const c = spawnSync(
+      path.join(bin, 'createdb'),
+      ['-h', '127.0.0.1', '-p', String(port), '-U', SUPERUSER, database],
+      { env, encoding: 'utf8' },
+    );
     if (c.status !== 0) throw new Error(`createdb failed: ${c.stderr}`);
   }
 

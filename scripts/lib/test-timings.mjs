@@ -21,12 +21,20 @@ export default class TestTimings {
     p.last = Math.max(p.last, Date.now());
     p.files += 1;
     p.fileMs += ms;
-    this.files.push({ project: name, file: mod.relativeModuleId ?? mod.moduleId, ms: Math.round(ms), state: mod.state() });
+    this.files.push({
+      project: name,
+      file: mod.relativeModuleId ?? mod.moduleId,
+      ms: Math.round(ms),
+      state: mod.state(),
+    });
   }
 
   onTestRunEnd() {
     const out = process.env.BAYSLATE_TIMINGS;
     if (!out) return;
-    writeFileSync(out, JSON.stringify({ started: this.started, ended: Date.now(), projects: this.projects, files: this.files }, null, 1));
+    writeFileSync(
+      out,
+      JSON.stringify({ started: this.started, ended: Date.now(), projects: this.projects, files: this.files }, null, 1),
+    );
   }
 }

@@ -12,14 +12,21 @@ export function logPoolError(name: string) {
   return (err: Error & { code?: string }) => {
     if (Date.now() - lastLogged < 10_000) return;
     lastLogged = Date.now();
-    console.error(`[bayslate] ${name}: a database connection was lost (${err.code ?? err.message}); new requests reconnect`);
+    console.error(
+      `[bayslate] ${name}: a database connection was lost (${err.code ?? err.message}); new requests reconnect`,
+    );
   };
 }
 
 export function sharedPool(): pg.Pool {
   if (pool) return pool;
   const c = config();
-  pool = new pg.Pool({ connectionString: c.DATABASE_URL, max: c.DATABASE_POOL_MAX, connectionTimeoutMillis: 5000, idleTimeoutMillis: 30_000 });
+  pool = new pg.Pool({
+    connectionString: c.DATABASE_URL,
+    max: c.DATABASE_POOL_MAX,
+    connectionTimeoutMillis: 5000,
+    idleTimeoutMillis: 30_000,
+  });
   pool.on('error', logPoolError('session pool'));
   return pool;
 }

@@ -63,7 +63,18 @@ export async function listFailedMails(): Promise<FailedMail[]> {
     `SELECT id::int AS id, kind, to_address, subject, attempts, last_error, created_at, scrub_after_send
      FROM mail_outbox WHERE state = 'failed' ORDER BY created_at DESC, id DESC LIMIT 100`,
   );
-  return (rows as { id: number; kind: string; to_address: string | null; subject: string; attempts: number; last_error: string | null; created_at: Date; scrub_after_send: boolean }[]).map((r) => ({
+  return (
+    rows as {
+      id: number;
+      kind: string;
+      to_address: string | null;
+      subject: string;
+      attempts: number;
+      last_error: string | null;
+      created_at: Date;
+      scrub_after_send: boolean;
+    }[]
+  ).map((r) => ({
     id: r.id,
     kind: r.kind,
     to: r.to_address ? (r.scrub_after_send ? maskAddress(r.to_address) : r.to_address) : '(removed)',

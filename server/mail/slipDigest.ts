@@ -1,7 +1,13 @@
 // The words of the daily slip digest to producers: which releases are at risk and why.
 import type { EpisodeSlip } from '../../shared/planner/slips';
 
-export function slipDigestMail(p: { buildName: string; day: string; slips: EpisodeSlip[]; overdue: { partNumber: string; description: string; upgradeTitle: string; expectedArrival: string }[]; plannerUrl: string }) {
+export function slipDigestMail(p: {
+  buildName: string;
+  day: string;
+  slips: EpisodeSlip[];
+  overdue: { partNumber: string; description: string; upgradeTitle: string; expectedArrival: string }[];
+  plannerUrl: string;
+}) {
   const lines: string[] = [];
   for (const s of p.slips) {
     const c = s.cause!;
@@ -10,9 +16,14 @@ export function slipDigestMail(p: { buildName: string; day: string; slips: Episo
         ` Waiting on ${c.partNumber} (${c.description}) for ${c.upgradeTitle}, ${c.overdue ? `overdue since ${c.expectedArrival}` : `due ${c.expectedArrival}`}.`,
     );
   }
-  const overdue = p.overdue.map((o) => `  - ${o.partNumber} (${o.description}) for ${o.upgradeTitle}: expected ${o.expectedArrival}, not received.`);
+  const overdue = p.overdue.map(
+    (o) => `  - ${o.partNumber} (${o.description}) for ${o.upgradeTitle}: expected ${o.expectedArrival}, not received.`,
+  );
   return {
-    subject: `${p.buildName}: ${p.slips.length} release${p.slips.length === 1 ? '' : 's'} at risk (${p.day})`.slice(0, 300),
+    subject: `${p.buildName}: ${p.slips.length} release${p.slips.length === 1 ? '' : 's'} at risk (${p.day})`.slice(
+      0,
+      300,
+    ),
     text:
       `Parts have moved on the ${p.buildName} build. As of ${p.day}:\n\n` +
       (lines.length ? `Releases at risk:\n${lines.join('\n')}\n\n` : 'No release is at risk.\n\n') +

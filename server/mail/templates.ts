@@ -20,7 +20,13 @@ export function quoteViewerText(s: string, max = 200): string {
   return `“${flat}”`;
 }
 
-export function confirmVoteMail(p: { buildName: string; requestTitle: string; link: string; hours: number; isNewRequest: boolean }) {
+export function confirmVoteMail(p: {
+  buildName: string;
+  requestTitle: string;
+  link: string;
+  hours: number;
+  isNewRequest: boolean;
+}) {
   return {
     // Fixed words and the shop's own build name only: a stranger's text never reaches the subject.
     subject: `Confirm your vote on the ${p.buildName} build`.slice(0, 300),
@@ -33,7 +39,15 @@ export function confirmVoteMail(p: { buildName: string; requestTitle: string; li
   };
 }
 
-export function upgradeLiveMail(p: { buildName: string; episodeTitle: string; episodeNumber: number; upgradeTitles: string[]; videoUrl: string | null; pageUrl: string; unsubscribeLink: string }) {
+export function upgradeLiveMail(p: {
+  buildName: string;
+  episodeTitle: string;
+  episodeNumber: number;
+  upgradeTitles: string[];
+  videoUrl: string | null;
+  pageUrl: string;
+  unsubscribeLink: string;
+}) {
   const watch = p.videoUrl ? `Watch it here:\n${p.videoUrl}\n\n` : '';
   return {
     subject: `It is live: ${p.upgradeTitles.join(', ')}`.slice(0, 300),

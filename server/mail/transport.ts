@@ -13,7 +13,15 @@ export function useLocalSmtp(port: number | null) {
 
 /** A transport for the fake SMTP on loopback (plain SMTP: its bundled certificate has expired). */
 export function fakeTransport(port: number): Transporter {
-  return nodemailer.createTransport({ host: '127.0.0.1', port, secure: false, ignoreTLS: true, connectionTimeout: 5000, greetingTimeout: 5000, socketTimeout: 10_000 });
+  return nodemailer.createTransport({
+    host: '127.0.0.1',
+    port,
+    secure: false,
+    ignoreTLS: true,
+    connectionTimeout: 5000,
+    greetingTimeout: 5000,
+    socketTimeout: 10_000,
+  });
 }
 
 export function mailTransport(): Transporter | null {

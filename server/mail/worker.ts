@@ -66,7 +66,16 @@ async function sendOne(transport: Transporter): Promise<Outcome> {
          state = CASE WHEN :failed THEN 'failed' ELSE 'queued' END,
          next_attempt_at = now() + (:delay || ' milliseconds')::interval
        WHERE id = :id AND claim_id = :claim AND state = 'queued'`,
-      { replacements: { id: row.id, claim: row.claim_id, attempts, error: String((err as Error)?.message ?? err).slice(0, 500), failed, delay: String(backoffMs(attempts)) } },
+      {
+        replacements: {
+          id: row.id,
+          claim: row.claim_id,
+          attempts,
+          error: String((err as Error)?.message ?? err).slice(0, 500),
+          failed,
+          delay: String(backoffMs(attempts)),
+        },
+      },
     );
     return failed ? 'failed' : 'retry';
   }
@@ -101,7 +110,9 @@ export async function processDueMail(opts: { transport?: Transporter | null; lim
  * request that was never confirmed goes once it has no pending vote left.
  */
 export async function pruneUnconfirmed() {
-  await sequelize.query(`DELETE FROM viewer_votes WHERE confirmed_at IS NULL AND expires_at < now() - interval '1 day'`);
+  await sequelize.query(
+    `DELETE FROM viewer_votes WHERE confirmed_at IS NULL AND expires_at < now() - interval '1 day'`,
+  );
   await sequelize.query(
     `DELETE FROM viewer_requests r WHERE r.confirmed_at IS NULL AND r.created_at < now() - interval '1 day'
        AND NOT EXISTS (SELECT 1 FROM viewer_votes v WHERE v.request_id = r.id)`,

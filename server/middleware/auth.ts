@@ -47,7 +47,12 @@ export async function verifyPassword(email: string, password: string) {
 export function installAuth(app: Express, pool: pg.Pool) {
   const c = config();
   const PgStore = connectPgSimple(session);
-  const store = new PgStore({ pool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: c.isTest ? false : 600 });
+  const store = new PgStore({
+    pool,
+    tableName: 'session',
+    createTableIfMissing: false,
+    pruneSessionInterval: c.isTest ? false : 600,
+  });
   throttleTouches(store);
   app.use(
     session({
@@ -189,8 +194,17 @@ export function accountSignInLimiter(store?: Store): RequestHandler {
     legacyHeaders: false,
     skipSuccessfulRequests: true,
     ...(store ? { store } : {}),
-    keyGenerator: (req) => `account:${String(req.body?.email ?? '').trim().toLowerCase()}`,
+    keyGenerator: (req) =>
+      `account:${String(req.body?.email ?? '')
+        .trim()
+        .toLowerCase()}`,
     handler: (_req, _res, next) =>
-      next(new AppError(429, 'too_many_attempts', 'Too many sign-in attempts for this account. Wait a few minutes and try again.')),
+      next(
+        new AppError(
+          429,
+          'too_many_attempts',
+          'Too many sign-in attempts for this account. Wait a few minutes and try again.',
+        ),
+      ),
   });
 }

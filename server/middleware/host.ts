@@ -6,13 +6,19 @@ import { AppError } from '../errors';
 
 const LOOPBACK = new Set(['127.0.0.1', 'localhost', '[::1]']);
 
-const withoutPort = (host: string) => (host.startsWith('[') ? host.slice(0, host.indexOf(']') + 1) : host.split(':')[0]!);
+const withoutPort = (host: string) =>
+  host.startsWith('[') ? host.slice(0, host.indexOf(']') + 1) : host.split(':')[0]!;
 
 const allowedSets = new WeakMap<Config, Set<string>>();
 function allowedOf(c: Config) {
   let set = allowedSets.get(c);
   if (!set) {
-    set = new Set([new URL(c.publicUrl).host.toLowerCase(), ...c.ALLOWED_HOSTS.split(',').map((h) => h.trim().toLowerCase()).filter(Boolean)]);
+    set = new Set([
+      new URL(c.publicUrl).host.toLowerCase(),
+      ...c.ALLOWED_HOSTS.split(',')
+        .map((h) => h.trim().toLowerCase())
+        .filter(Boolean),
+    ]);
     allowedSets.set(c, set);
   }
   return set;
@@ -30,5 +36,7 @@ export function hostAllowed(host: string | undefined, c: Config): boolean {
 export const ownHostOnly: RequestHandler = (req, _res, next) => {
   const host = req.headers.host;
   if (hostAllowed(host, config())) return next();
-  next(new AppError(421, 'wrong_host', `This server does not answer for the host "${String(host ?? '').slice(0, 100)}".`));
+  next(
+    new AppError(421, 'wrong_host', `This server does not answer for the host "${String(host ?? '').slice(0, 100)}".`),
+  );
 };

@@ -12,7 +12,8 @@ const KEY = /^[A-Za-z0-9_-]{8,100}$/;
 export function idempotentChanges(req: Request, res: Response, next: NextFunction) {
   const key = req.get('Idempotency-Key');
   if (key === undefined || !CHANGES.has(req.method) || !req.user) return next();
-  if (!KEY.test(key)) return next(badRequest('The Idempotency-Key header must be 8 to 100 letters, digits, hyphens or underscores.'));
+  if (!KEY.test(key))
+    return next(badRequest('The Idempotency-Key header must be 8 to 100 letters, digits, hyphens or underscores.'));
   const userId = req.user.id;
   const path = req.originalUrl.split('?')[0];
   void claimReceipt(userId, key, req.method, path).then((claim) => {
@@ -22,7 +23,11 @@ export function idempotentChanges(req: Request, res: Response, next: NextFunctio
     }
     if (claim.state === 'busy') return next(conflict('This change is still being saved; try again in a moment.'));
     if (claim.state === 'mismatch') {
-      return next(unprocessable(`This Idempotency-Key was already used for ${claim.method} ${claim.path}; use a new key for a different change.`));
+      return next(
+        unprocessable(
+          `This Idempotency-Key was already used for ${claim.method} ${claim.path}; use a new key for a different change.`,
+        ),
+      );
     }
     let body: unknown = null;
     const json = res.json.bind(res);

@@ -44,7 +44,10 @@ export class PgRateLimitStore implements Store {
   }
 
   async decrement(key: string): Promise<void> {
-    await sharedPool().query('UPDATE rate_limit_counters SET hits = GREATEST(hits - 1, 0) WHERE key = $1 AND reset_at > now()', [this.k(key)]);
+    await sharedPool().query(
+      'UPDATE rate_limit_counters SET hits = GREATEST(hits - 1, 0) WHERE key = $1 AND reset_at > now()',
+      [this.k(key)],
+    );
   }
 
   async resetKey(key: string): Promise<void> {
@@ -59,7 +62,9 @@ export class PgRateLimitStore implements Store {
   private sweepNow() {
     if (Date.now() - lastSweep < 60_000) return;
     lastSweep = Date.now();
-    sharedPool().query('DELETE FROM rate_limit_counters WHERE reset_at < now()').catch(() => undefined);
+    sharedPool()
+      .query('DELETE FROM rate_limit_counters WHERE reset_at < now()')
+      .catch(() => undefined);
   }
 }
 

@@ -9,9 +9,23 @@ const CONNECTION_ERRORS = new Set([
   'SequelizeHostNotReachableError',
   'SequelizeConnectionAcquireTimeoutError',
 ]);
-const MESSAGES = [/Connection terminated/i, /terminating connection/i, /timeout exceeded when trying to connect/i, /Client has encountered a connection error/i, /the database system is (starting up|shutting down)/i];
+const MESSAGES = [
+  /Connection terminated/i,
+  /terminating connection/i,
+  /timeout exceeded when trying to connect/i,
+  /Client has encountered a connection error/i,
+  /the database system is (starting up|shutting down)/i,
+];
 
-type Err = { name?: string; code?: string; message?: string; parent?: unknown; original?: unknown; cause?: unknown; errors?: unknown[] };
+type Err = {
+  name?: string;
+  code?: string;
+  message?: string;
+  parent?: unknown;
+  original?: unknown;
+  cause?: unknown;
+  errors?: unknown[];
+};
 
 /** True when `err` says the database cannot be reached right now (not a bad query). */
 export function isDatabaseUnavailable(err: unknown, depth = 0): boolean {
@@ -21,7 +35,8 @@ export function isDatabaseUnavailable(err: unknown, depth = 0): boolean {
   if (e.code && (PG_DOWN_CODES.has(e.code) || NET_DOWN_CODES.has(e.code))) return true;
   if (e.message && MESSAGES.some((m) => m.test(e.message!))) return true;
   // AggregateError (a refused connection on every address) and wrapped errors.
-  for (const inner of [e.parent, e.original, e.cause, ...(Array.isArray(e.errors) ? e.errors : [])]) if (inner && isDatabaseUnavailable(inner, depth + 1)) return true;
+  for (const inner of [e.parent, e.original, e.cause, ...(Array.isArray(e.errors) ? e.errors : [])])
+    if (inner && isDatabaseUnavailable(inner, depth + 1)) return true;
   return false;
 }
 

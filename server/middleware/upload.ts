@@ -49,7 +49,13 @@ class InspectingDiskStorage implements StorageEngine {
       .then(async () => {
         const u = upload as StreamUpload | null;
         if (u) await u.done.catch(() => Promise.reject(storageUnavailable()));
-        cb(null, { path: dest, size: inspector.size, sha256: inspector.hash.digest('hex'), detected: inspector.detected!, stored: u ? { key: u.key } : undefined });
+        cb(null, {
+          path: dest,
+          size: inspector.size,
+          sha256: inspector.hash.digest('hex'),
+          detected: inspector.detected!,
+          stored: u ? { key: u.key } : undefined,
+        });
       })
       .catch(async (err) => {
         const u = upload as StreamUpload | null;
@@ -69,7 +75,11 @@ class InspectingDiskStorage implements StorageEngine {
     const stored = (file as Partial<ReceivedFile>).stored;
     Promise.all([
       file.path ? unlink(file.path).catch(() => undefined) : undefined,
-      stored ? removeObject(stored.key).catch((err) => console.error(`[media] could not remove ${stored.key}; the sweep will:`, err?.message ?? err)) : undefined,
+      stored
+        ? removeObject(stored.key).catch((err) =>
+            console.error(`[media] could not remove ${stored.key}; the sweep will:`, err?.message ?? err),
+          )
+        : undefined,
     ]).then(() => cb(null));
   }
 }
@@ -87,8 +97,16 @@ export function receiveOneFile(onDetected?: OnDetected) {
       if (!err) return next();
       await (req as UploadRequest).uploadSettled?.catch(() => undefined);
       if (err instanceof multer.MulterError) {
-        if (err.code === 'LIMIT_FILE_SIZE') return next(new AppError(413, 'too_large', `The file is larger than the largest upload allowed (${Math.round(largestLimit() / 1024 / 1024)} MB).`));
-        if (err.code === 'LIMIT_UNEXPECTED_FILE' || err.code === 'LIMIT_FILE_COUNT') return next(new AppError(400, 'bad_request', 'Send one file per upload, in the form field "file".'));
+        if (err.code === 'LIMIT_FILE_SIZE')
+          return next(
+            new AppError(
+              413,
+              'too_large',
+              `The file is larger than the largest upload allowed (${Math.round(largestLimit() / 1024 / 1024)} MB).`,
+            ),
+          );
+        if (err.code === 'LIMIT_UNEXPECTED_FILE' || err.code === 'LIMIT_FILE_COUNT')
+          return next(new AppError(400, 'bad_request', 'Send one file per upload, in the form field "file".'));
         return next(new AppError(400, 'bad_request', `The upload form is not valid: ${err.message}.`));
       }
       next(err);

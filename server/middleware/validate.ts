@@ -9,7 +9,8 @@ import { zodFields } from '../zodFields';
 // zodFields lives beside the errors so services can word a check of their own the same way.
 export { zodFields };
 
-const labelOf = (f: FieldError) => f.label ?? fieldLabel(f.path.split('.').map((p) => (/^\d+$/.test(p) ? Number(p) : p)));
+const labelOf = (f: FieldError) =>
+  f.label ?? fieldLabel(f.path.split('.').map((p) => (/^\d+$/.test(p) ? Number(p) : p)));
 
 /** The fields with their words added, for answers a service built by hand. */
 export const labelled = (fields: FieldError[]): FieldError[] => fields.map((f) => ({ ...f, label: labelOf(f) }));

@@ -4,7 +4,15 @@ import { sequelize } from '../db/sequelize';
 
 /** The plan as far as a revision restores it: episodes in series order, with their dates and upgrades. */
 export interface PlanSnapshot {
-  episodes: { id: number; number: number; title: string; state: string; shootDate: string | null; releaseDate: string | null; upgradeIds: number[] }[];
+  episodes: {
+    id: number;
+    number: number;
+    title: string;
+    state: string;
+    shootDate: string | null;
+    releaseDate: string | null;
+    upgradeIds: number[];
+  }[];
   /** Segments per upgrade when the snapshot was taken, to tell what was filmed since. */
   segments: Record<number, { installSegment: string; demoSegment: string }>;
 }

@@ -47,7 +47,10 @@ type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
 
 /** The middleware chain of one build-scoped route, in the fixed order. */
 export function scopedChain(spec: ScopedRoute): RequestHandler[] {
-  const chain: RequestHandler[] = [spec.roles === 'signed-in' ? requireSignedIn : requireRole(...spec.roles), loadBuild];
+  const chain: RequestHandler[] = [
+    spec.roles === 'signed-in' ? requireSignedIn : requireRole(...spec.roles),
+    loadBuild,
+  ];
   if (spec.record) chain.push(spec.record);
   if (spec.params) chain.push(validate(spec.params, 'params'));
   if (spec.query) chain.push(validate(spec.query, 'query'));
@@ -72,10 +75,19 @@ export interface BuildScopedRouter {
 export function buildScopedRouter(): BuildScopedRouter {
   const router = Router({ mergeParams: true });
   // The handlers run after the fixed chain (an upload's body parser, then the handler).
-  const add = (method: Method) => (path: string, spec: ScopedRoute, ...handlers: RequestHandler[]) => {
-    router[method](path, ...scopedChain(spec), ...handlers);
-    return scoped;
+  const add =
+    (method: Method) =>
+    (path: string, spec: ScopedRoute, ...handlers: RequestHandler[]) => {
+      router[method](path, ...scopedChain(spec), ...handlers);
+      return scoped;
+    };
+  const scoped: BuildScopedRouter = {
+    router,
+    get: add('get'),
+    post: add('post'),
+    put: add('put'),
+    patch: add('patch'),
+    delete: add('delete'),
   };
-  const scoped: BuildScopedRouter = { router, get: add('get'), post: add('post'), put: add('put'), patch: add('patch'), delete: add('delete') };
   return scoped;
 }

@@ -4,7 +4,8 @@ import { AppError } from '../errors';
 import type { ImportResult } from '../services/csv/common';
 
 export function csvBody(req: Request): string {
-  if (typeof req.body !== 'string') throw new AppError(415, 'unsupported_type', 'Send the file as CSV (Content-Type: text/csv).');
+  if (typeof req.body !== 'string')
+    throw new AppError(415, 'unsupported_type', 'Send the file as CSV (Content-Type: text/csv).');
   return req.body;
 }
 
@@ -19,6 +20,10 @@ export function sendImportResult<P>(res: Response, r: ImportResult<P>) {
   if (r.ok) return res.status(201).json(body);
   res.status(400).json({
     ...body,
-    error: { code: 'bad_csv', message: `${r.errors.length} problem(s) in the file; nothing was imported.`, fields: r.errors.map((e) => ({ path: `line ${e.line}: ${e.field}`, message: e.message })) },
+    error: {
+      code: 'bad_csv',
+      message: `${r.errors.length} problem(s) in the file; nothing was imported.`,
+      fields: r.errors.map((e) => ({ path: `line ${e.line}: ${e.field}`, message: e.message })),
+    },
   });
 }

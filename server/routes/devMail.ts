@@ -16,7 +16,10 @@ const simpleParser: Parser = (async (source: Buffer) => {
 }) as Parser;
 
 const esc = (s: unknown) =>
-  String(s ?? '').replace(/[&<>"']/g, (ch) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[ch]!);
+  String(s ?? '').replace(
+    /[&<>"']/g,
+    (ch) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[ch]!,
+  );
 
 const NAME = /^[0-9A-Za-z_-]{1,80}\.eml$/;
 const LINK = /https?:\/\/[^\s<>"')]+/g;
@@ -32,7 +35,10 @@ th{background:#f1ede4}a{color:#30485c}pre{white-space:pre-wrap;background:#fff;b
 
 async function listFiles(dir: string) {
   try {
-    return (await readdir(dir)).filter((n) => NAME.test(n)).sort().reverse();
+    return (await readdir(dir))
+      .filter((n) => NAME.test(n))
+      .sort()
+      .reverse();
   } catch {
     return [];
   }
@@ -51,7 +57,9 @@ function linkify(text: string) {
 
 export function devMailRouter() {
   const router = Router();
-  router.use((_req, res, next) => (config().BAYSLATE_DEMO ? next() : res.status(404).type('text/plain').send('Not found')));
+  router.use((_req, res, next) =>
+    config().BAYSLATE_DEMO ? next() : res.status(404).type('text/plain').send('Not found'),
+  );
   router.get('/', async (_req, res) => {
     const dir = path.resolve(config().LOCAL_MAIL_DIR);
     const files = (await listFiles(dir)).slice(0, 200);
@@ -59,16 +67,22 @@ export function devMailRouter() {
     for (const f of files) {
       const m = await simpleParser(await readFile(path.join(dir, f))).catch(() => null);
       if (!m) continue;
-      const to = Array.isArray(m.to) ? m.to.map((a) => a.text).join(', ') : m.to?.text ?? '';
-      rows.push(`<tr><td>${esc(m.date?.toISOString().replace('T', ' ').slice(0, 19) ?? '')}</td><td>${esc(to)}</td><td><a href="/dev/mail/${esc(f)}">${esc(m.subject ?? '(no subject)')}</a></td></tr>`);
+      const to = Array.isArray(m.to) ? m.to.map((a) => a.text).join(', ') : (m.to?.text ?? '');
+      rows.push(
+        `<tr><td>${esc(m.date?.toISOString().replace('T', ' ').slice(0, 19) ?? '')}</td><td>${esc(to)}</td><td><a href="/dev/mail/${esc(f)}">${esc(m.subject ?? '(no subject)')}</a></td></tr>`,
+      );
     }
-    res.type('html').send(
-      page(
-        'Inbox',
-        `<h1>Development inbox</h1><p class="note">Mail the local fake SMTP server received (demo mode only), newest first. Folder: ${esc(dir)}</p>` +
-          (rows.length ? `<table><thead><tr><th scope="col">Received</th><th scope="col">To</th><th scope="col">Subject</th></tr></thead><tbody>${rows.join('')}</tbody></table>` : '<p>No mail yet. Request or vote on a public build page and the confirmation mail shows up here.</p>'),
-      ),
-    );
+    res
+      .type('html')
+      .send(
+        page(
+          'Inbox',
+          `<h1>Development inbox</h1><p class="note">Mail the local fake SMTP server received (demo mode only), newest first. Folder: ${esc(dir)}</p>` +
+            (rows.length
+              ? `<table><thead><tr><th scope="col">Received</th><th scope="col">To</th><th scope="col">Subject</th></tr></thead><tbody>${rows.join('')}</tbody></table>`
+              : '<p>No mail yet. Request or vote on a public build page and the confirmation mail shows up here.</p>'),
+        ),
+      );
   });
   router.get('/:file', async (req, res) => {
     const file = String(req.params.file);
@@ -76,7 +90,7 @@ export function devMailRouter() {
     const raw = await readFile(path.join(path.resolve(config().LOCAL_MAIL_DIR), file)).catch(() => null);
     if (!raw) return res.status(404).type('text/plain').send('Not found');
     const m = await simpleParser(raw);
-    const to = Array.isArray(m.to) ? m.to.map((a) => a.text).join(', ') : m.to?.text ?? '';
+    const to = Array.isArray(m.to) ? m.to.map((a) => a.text).join(', ') : (m.to?.text ?? '');
     res.type('html').send(
       page(
         m.subject ?? 'Mail',

@@ -21,9 +21,15 @@ export function episodesRouter() {
     .post('/', { roles: ['producer'], body: createEpisodeSchema }, async (req, res) => {
       send(res, EpisodeAnswer, { episode: await episodes.createEpisode(req.user!, buildOf(req), req.body) }, 201);
     })
-    .patch('/:episodeId', { roles: ['producer', 'installer'], record: episodeInBuild, body: updateEpisodeSchema }, async (req, res) => {
-      send(res, EpisodeAnswer, { episode: await episodes.updateEpisode(req.user!, buildOf(req), episodeId(req), req.body) });
-    })
+    .patch(
+      '/:episodeId',
+      { roles: ['producer', 'installer'], record: episodeInBuild, body: updateEpisodeSchema },
+      async (req, res) => {
+        send(res, EpisodeAnswer, {
+          episode: await episodes.updateEpisode(req.user!, buildOf(req), episodeId(req), req.body),
+        });
+      },
+    )
     .delete('/:episodeId', { roles: ['producer'], record: episodeInBuild }, async (req, res) => {
       await episodes.deleteEpisode(req.user!, buildOf(req), episodeId(req));
       res.status(204).end();

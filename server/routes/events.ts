@@ -21,7 +21,8 @@ export function eventsRouter() {
       'X-Accel-Buffering': 'no',
     });
     let n = 0;
-    const send = (what: string[]) => res.write(`id: ${++n}\nevent: change\ndata: ${JSON.stringify(allow(BuildChange, { what }))}\n\n`);
+    const send = (what: string[]) =>
+      res.write(`id: ${++n}\nevent: change\ndata: ${JSON.stringify(allow(BuildChange, { what }))}\n\n`);
     const stop = await subscribe(buildOf(req).id, send);
     res.write(`retry: 2000\nevent: ready\ndata: {}\n\n`);
     const beat = setInterval(() => res.write(': still here\n\n'), HEARTBEAT_MS);

@@ -22,9 +22,15 @@ export function expensesRouter() {
     .post('/', { roles: ['producer'], body: createExpenseSchema }, async (req, res) => {
       send(res, ExpenseAnswer, { expense: await service.createExpense(req.user!, buildOf(req), req.body) }, 201);
     })
-    .patch('/:expenseId', { roles: ['producer'], record: expenseInBuild, body: updateExpenseSchema }, async (req, res) => {
-      send(res, ExpenseAnswer, { expense: await service.updateExpense(req.user!, buildOf(req), recordId(req), req.body) });
-    })
+    .patch(
+      '/:expenseId',
+      { roles: ['producer'], record: expenseInBuild, body: updateExpenseSchema },
+      async (req, res) => {
+        send(res, ExpenseAnswer, {
+          expense: await service.updateExpense(req.user!, buildOf(req), recordId(req), req.body),
+        });
+      },
+    )
     .delete('/:expenseId', { roles: ['producer'], record: expenseInBuild }, async (req, res) => {
       await service.deleteExpense(req.user!, buildOf(req), recordId(req));
       res.status(204).end();

@@ -28,7 +28,13 @@ export function markDraining() {
 }
 
 /** failedMails: mail that used up its attempts (the owner resends it); counted, not a reason to stop traffic. */
-type Readiness = { ok: boolean; db: boolean; checkedAt: string; checks: Record<string, boolean>; failedMails: number | null };
+type Readiness = {
+  ok: boolean;
+  db: boolean;
+  checkedAt: string;
+  checks: Record<string, boolean>;
+  failedMails: number | null;
+};
 const REUSE_MS = 1000;
 let last: { at: number; result: Promise<Readiness> } | null = null;
 
@@ -37,7 +43,10 @@ async function runChecks(): Promise<Readiness> {
   const checks = healthChecks();
   const names = ['db', ...checks.keys()];
   const [results, failedMails] = await Promise.all([
-    Promise.all([safe(async () => (await sequelize.query('SELECT 1')) !== null, ms), ...[...checks.values()].map((c) => safe(c, ms))]),
+    Promise.all([
+      safe(async () => (await sequelize.query('SELECT 1')) !== null, ms),
+      ...[...checks.values()].map((c) => safe(c, ms)),
+    ]),
     countFailedMails().catch(() => null),
   ]);
   const each: Record<string, boolean> = {};

@@ -76,7 +76,11 @@ export function mountRoutes(app: Express) {
   }
 }
 
-type Layer = { route?: { path: string | string[]; methods: Record<string, boolean> }; handle?: { stack?: Layer[] }; matchers?: unknown };
+type Layer = {
+  route?: { path: string | string[]; methods: Record<string, boolean> };
+  handle?: { stack?: Layer[] };
+  matchers?: unknown;
+};
 
 function routesOf(router: Router, prefix: string): { method: string; path: string }[] {
   const out: { method: string; path: string }[] = [];
@@ -85,7 +89,8 @@ function routesOf(router: Router, prefix: string): { method: string; path: strin
     const paths = Array.isArray(layer.route.path) ? layer.route.path : [layer.route.path];
     for (const p of paths) {
       for (const [method, on] of Object.entries(layer.route.methods)) {
-        if (on && method !== '_all') out.push({ method: method.toUpperCase(), path: (prefix + (p === '/' ? '' : p)) || '/' });
+        if (on && method !== '_all')
+          out.push({ method: method.toUpperCase(), path: prefix + (p === '/' ? '' : p) || '/' });
       }
     }
   }

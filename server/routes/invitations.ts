@@ -23,7 +23,8 @@ export function invitationsRouter() {
     limit: config().LOGIN_RATE_LIMIT * 5,
     standardHeaders: 'draft-7',
     legacyHeaders: false,
-    handler: (_req, _res, next) => next(new AppError(429, 'rate_limited', 'Too many attempts. Wait a few minutes and try again.')),
+    handler: (_req, _res, next) =>
+      next(new AppError(429, 'rate_limited', 'Too many attempts. Wait a few minutes and try again.')),
   });
   router.get('/:token', limiter, validate(token, 'params'), async (req, res) => {
     send(res, InvitationWho, await readInvitation(String(req.params.token)));

@@ -23,9 +23,15 @@ export function labourRouter() {
     .post('/', { roles: ['producer', 'installer'], body: createLabourSchema }, async (req, res) => {
       send(res, LabourAnswer, { labourEntry: await service.createLabour(req.user!, buildOf(req), req.body) }, 201);
     })
-    .patch('/:labourId', { roles: ['producer', 'installer'], record: labourInBuild, body: updateLabourSchema }, async (req, res) => {
-      send(res, LabourAnswer, { labourEntry: await service.updateLabour(req.user!, buildOf(req), recordId(req), req.body) });
-    })
+    .patch(
+      '/:labourId',
+      { roles: ['producer', 'installer'], record: labourInBuild, body: updateLabourSchema },
+      async (req, res) => {
+        send(res, LabourAnswer, {
+          labourEntry: await service.updateLabour(req.user!, buildOf(req), recordId(req), req.body),
+        });
+      },
+    )
     .delete('/:labourId', { roles: ['producer', 'installer'], record: labourInBuild }, async (req, res) => {
       await service.deleteLabour(req.user!, buildOf(req), recordId(req));
       res.status(204).end();

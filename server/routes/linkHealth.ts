@@ -19,10 +19,17 @@ export function campaignRouter() {
   return buildScopedRouter()
     .get('/', { roles: ROLES }, async (req, res) => {
       const b = buildOf(req);
-      send(res, Campaign, { campaign: b.campaign, effective: publishing.effectiveCampaign(b), publicPageUrl: publishing.publicPageUrl(b) });
+      send(res, Campaign, {
+        campaign: b.campaign,
+        effective: publishing.effectiveCampaign(b),
+        publicPageUrl: publishing.publicPageUrl(b),
+      });
     })
     .put('/', { roles: ROLES, body: campaignSchema }, async (req, res) => {
       const b = buildOf(req);
-      send(res, Campaign, { ...(await publishing.setCampaign(req.user!, b, req.body.campaign)), publicPageUrl: publishing.publicPageUrl(b) });
+      send(res, Campaign, {
+        ...(await publishing.setCampaign(req.user!, b, req.body.campaign)),
+        publicPageUrl: publishing.publicPageUrl(b),
+      });
     }).router;
 }

@@ -22,8 +22,17 @@ export function mailRouter() {
   router.post('/:mailId/resend', validate(z.object({ mailId: id }), 'params'), async (req, res) => {
     const mailId = Number(req.params.mailId);
     await sequelize.transaction(async (t) => {
-      if (!(await resendMail(mailId, t))) throw new AppError(404, 'not_found', 'No failed mail with this number (it may have been sent again already).');
-      await record(t, { actor: req.user!, buildId: null, entity: 'mail', entityId: mailId, action: 'resend', summary: `Queued failed mail ${mailId} again`, changes: {} });
+      if (!(await resendMail(mailId, t)))
+        throw new AppError(404, 'not_found', 'No failed mail with this number (it may have been sent again already).');
+      await record(t, {
+        actor: req.user!,
+        buildId: null,
+        entity: 'mail',
+        entityId: mailId,
+        action: 'resend',
+        summary: `Queued failed mail ${mailId} again`,
+        changes: {},
+      });
     });
     send(res, OkAnswer, { ok: true });
   });

@@ -28,7 +28,13 @@ const mediaInBuild: RequestHandler = async (req, res, next) => {
 const mediaOf = (res: Response) => res.locals.media as Media;
 
 const multipartOnly: RequestHandler = (req, _res, next) =>
-  req.is('multipart/form-data') ? next() : next(badRequest('Send the file as multipart/form-data in the field "file".', [{ path: 'file', message: 'is required' }]));
+  req.is('multipart/form-data')
+    ? next()
+    : next(
+        badRequest('Send the file as multipart/form-data in the field "file".', [
+          { path: 'file', message: 'is required' },
+        ]),
+      );
 /** The file streams into storage once its type is known and the fields sent before it check out. */
 const receiveFile = receiveOneFile((req, detected) => media.prepareStream(buildOf(req), req.user!, req.body, detected));
 
@@ -41,9 +47,13 @@ export function mediaRouter() {
       const record = await media.storeUpload(buildOf(req), req.user!, req.file as ReceivedFile | undefined, req.body);
       send(res, MediaAnswer, { media: record }, 201);
     })
-    .patch('/:mediaId', { roles: ['producer', 'installer'], record: mediaInBuild, body: mediaPatch }, async (req, res) => {
-      send(res, MediaAnswer, { media: await media.updateMedia(buildOf(req), req.user!, mediaOf(res), req.body) });
-    })
+    .patch(
+      '/:mediaId',
+      { roles: ['producer', 'installer'], record: mediaInBuild, body: mediaPatch },
+      async (req, res) => {
+        send(res, MediaAnswer, { media: await media.updateMedia(buildOf(req), req.user!, mediaOf(res), req.body) });
+      },
+    )
     .delete('/:mediaId', { roles: ['producer', 'installer'], record: mediaInBuild }, async (req, res) => {
       await media.deleteMedia(buildOf(req), req.user!, mediaOf(res));
       res.status(204).end();

@@ -29,9 +29,13 @@ export function partsRouter() {
       const dryRun = ['1', 'true'].includes(validQuery<{ dryRun?: string }>(req).dryRun ?? '');
       sendImportResult(res, await importPartsCsv(req.user!, buildOf(req), csvBody(req), dryRun));
     })
-    .patch('/:partId', { roles: ['producer', 'marketing', 'installer'], record: partInBuild, body: updatePartSchema }, async (req, res) => {
-      sendFor(req, res, PartAnswer, { part: await parts.updatePart(req.user!, buildOf(req), partId(req), req.body) });
-    })
+    .patch(
+      '/:partId',
+      { roles: ['producer', 'marketing', 'installer'], record: partInBuild, body: updatePartSchema },
+      async (req, res) => {
+        sendFor(req, res, PartAnswer, { part: await parts.updatePart(req.user!, buildOf(req), partId(req), req.body) });
+      },
+    )
     .delete('/:partId', { roles: ['producer'], record: partInBuild }, async (req, res) => {
       await parts.deletePart(req.user!, buildOf(req), partId(req));
       res.status(204).end();

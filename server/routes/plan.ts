@@ -5,7 +5,14 @@ import { planSchema, proposalSchema, undoPlanSchema } from '../../shared/schemas
 import { listRevisions } from '../services/planRevisions';
 import * as plan from '../services/plan';
 import { send } from './send';
-import { PlanApplied, PlanCheck, PlanOverview, PlanRevisions, PlanUndone, ProposalAnswer } from '../../shared/contracts/plan';
+import {
+  PlanApplied,
+  PlanCheck,
+  PlanOverview,
+  PlanRevisions,
+  PlanUndone,
+  ProposalAnswer,
+} from '../../shared/contracts/plan';
 
 const producer = { roles: ['producer'] } as const;
 

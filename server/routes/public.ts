@@ -16,7 +16,12 @@ import { emailHash } from '../services/viewerPrivacy';
 import { Accepted, Confirmed } from '../../shared/contracts/public';
 import { send } from './send';
 
-const slug = z.object({ slug: z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'is not a build address').max(60) });
+const slug = z.object({
+  slug: z
+    .string()
+    .regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'is not a build address')
+    .max(60),
+});
 const token = z.object({ token: z.string().regex(/^[A-Za-z0-9_.-]{20,200}$/, 'is not a link of ours') });
 const tooMany = (_req: unknown, _res: unknown, next: (e: unknown) => void) =>
   next(new AppError(429, 'rate_limited', 'Too many requests from here. Wait a few minutes and try again.'));
@@ -28,7 +33,10 @@ const tooMany = (_req: unknown, _res: unknown, next: (e: unknown) => void) =>
 function sendPublic(req: Request, res: Response, entry: PublicEntry, hit: boolean) {
   const c = config();
   res.set('X-Public-Cache', hit ? 'hit' : 'miss');
-  res.set('Cache-Control', `public, max-age=${c.PUBLIC_MAX_AGE_SECONDS}, stale-while-revalidate=${c.PUBLIC_STALE_SECONDS}`);
+  res.set(
+    'Cache-Control',
+    `public, max-age=${c.PUBLIC_MAX_AGE_SECONDS}, stale-while-revalidate=${c.PUBLIC_STALE_SECONDS}`,
+  );
   res.set('ETag', entry.etag);
   res.vary('Accept-Encoding');
   if (req.fresh) return void res.status(304).end();
@@ -50,10 +58,23 @@ export function publicRouter() {
   const c = config();
   const router = Router({ mergeParams: true });
   const windowMs = c.PUBLIC_RATE_WINDOW_MINUTES * 60_000;
-  const perAddress = rateLimit({ store: pgRateLimitStore('public-write'), windowMs, limit: c.PUBLIC_WRITE_RATE_LIMIT, standardHeaders: 'draft-7', legacyHeaders: false, handler: tooMany });
+  const perAddress = rateLimit({
+    store: pgRateLimitStore('public-write'),
+    windowMs,
+    limit: c.PUBLIC_WRITE_RATE_LIMIT,
+    standardHeaders: 'draft-7',
+    legacyHeaders: false,
+    handler: tooMany,
+  });
   // Reads keep their counter in this process (a flood guard): a shared counter would cost a
   // database write per page view on the page that must serve an audience.
-  const readPerAddress = rateLimit({ windowMs, limit: c.PUBLIC_WRITE_RATE_LIMIT * 20, standardHeaders: 'draft-7', legacyHeaders: false, handler: tooMany });
+  const readPerAddress = rateLimit({
+    windowMs,
+    limit: c.PUBLIC_WRITE_RATE_LIMIT * 20,
+    standardHeaders: 'draft-7',
+    legacyHeaders: false,
+    handler: tooMany,
+  });
   // Per e-mail (by its keyed hash), so one inbox cannot be flooded with confirmation mail.
   const perEmail = rateLimit({
     store: pgRateLimitStore('public-email'),
@@ -71,12 +92,26 @@ export function publicRouter() {
     const { entry, hit } = await publicBuildAnswer(String(req.params.slug));
     sendPublic(req, res, entry, hit);
   });
-  router.post('/builds/:slug/requests', perAddress, validate(slug, 'params'), validate(publicRequestSchema), perEmail, async (req, res) => {
-    send(res, Accepted, await votes.createRequest(String(req.params.slug), req.body), 202);
-  });
-  router.post('/builds/:slug/requests/:requestId/votes', perAddress, validate(slug.extend({ requestId: id }), 'params'), validate(publicVoteSchema), perEmail, async (req, res) => {
-    send(res, Accepted, await votes.addVote(String(req.params.slug), Number(req.params.requestId), req.body), 202);
-  });
+  router.post(
+    '/builds/:slug/requests',
+    perAddress,
+    validate(slug, 'params'),
+    validate(publicRequestSchema),
+    perEmail,
+    async (req, res) => {
+      send(res, Accepted, await votes.createRequest(String(req.params.slug), req.body), 202);
+    },
+  );
+  router.post(
+    '/builds/:slug/requests/:requestId/votes',
+    perAddress,
+    validate(slug.extend({ requestId: id }), 'params'),
+    validate(publicVoteSchema),
+    perEmail,
+    async (req, res) => {
+      send(res, Accepted, await votes.addVote(String(req.params.slug), Number(req.params.requestId), req.body), 202);
+    },
+  );
   router.get('/confirm/:token', readPerAddress, validate(token, 'params'), async (req, res) => {
     send(res, Confirmed, await votes.confirmVote(String(req.params.token)));
   });

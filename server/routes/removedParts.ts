@@ -16,14 +16,28 @@ const recordId = (req: Request) => Number(req.params.removedPartId);
 export function removedPartsRouter() {
   return buildScopedRouter()
     .get('/', { roles: ANY_ROLE, query: upgradeFilterQuery }, async (req, res) => {
-      sendFor(req, res, RemovedPartList, { removedParts: await service.listRemovedParts(buildOf(req), validQuery(req)) });
+      sendFor(req, res, RemovedPartList, {
+        removedParts: await service.listRemovedParts(buildOf(req), validQuery(req)),
+      });
     })
     .post('/', { roles: ['producer'], body: createRemovedPartSchema }, async (req, res) => {
-      sendFor(req, res, RemovedPartAnswer, { removedPart: await service.createRemovedPart(req.user!, buildOf(req), req.body) }, 201);
+      sendFor(
+        req,
+        res,
+        RemovedPartAnswer,
+        { removedPart: await service.createRemovedPart(req.user!, buildOf(req), req.body) },
+        201,
+      );
     })
-    .patch('/:removedPartId', { roles: ['producer'], record: removedPartInBuild, body: updateRemovedPartSchema }, async (req, res) => {
-      sendFor(req, res, RemovedPartAnswer, { removedPart: await service.updateRemovedPart(req.user!, buildOf(req), recordId(req), req.body) });
-    })
+    .patch(
+      '/:removedPartId',
+      { roles: ['producer'], record: removedPartInBuild, body: updateRemovedPartSchema },
+      async (req, res) => {
+        sendFor(req, res, RemovedPartAnswer, {
+          removedPart: await service.updateRemovedPart(req.user!, buildOf(req), recordId(req), req.body),
+        });
+      },
+    )
     .delete('/:removedPartId', { roles: ['producer'], record: removedPartInBuild }, async (req, res) => {
       await service.deleteRemovedPart(req.user!, buildOf(req), recordId(req));
       res.status(204).end();

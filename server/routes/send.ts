@@ -10,11 +10,21 @@ export function send<S extends z.ZodType>(res: Response, contract: S, value: z.i
 }
 
 /** Sends `value` (typed as the widest answer) as the contract of the caller's audience allows it. */
-export function sendFor<A extends Audiences>(req: Request, res: Response, contracts: A, value: z.input<A['money']>, status = 200): void {
+export function sendFor<A extends Audiences>(
+  req: Request,
+  res: Response,
+  contracts: A,
+  value: z.input<A['money']>,
+  status = 200,
+): void {
   res.status(status).json(allow(contracts[audienceOf(req.user?.roles)], value as never));
 }
 
 /** The allowed copy of one record for a person (for values that are not whole answers: conflict bodies, events). */
-export function allowFor<A extends Audiences>(contracts: A, roles: readonly string[] | undefined, value: z.input<A['money']>): unknown {
+export function allowFor<A extends Audiences>(
+  contracts: A,
+  roles: readonly string[] | undefined,
+  value: z.input<A['money']>,
+): unknown {
   return allow(contracts[audienceOf(roles)], value as never);
 }

@@ -23,13 +23,28 @@ const ROLES = ['installer', 'producer'] as const;
 export function shopFloorRouter() {
   return buildScopedRouter()
     .get('/', { roles: ROLES, query }, async (req, res) => {
-      sendFor(req, res, ShopFloor, await shopFloor(buildOf(req), req.user!, validQuery<z.infer<typeof query>>(req).episodeId));
+      sendFor(
+        req,
+        res,
+        ShopFloor,
+        await shopFloor(buildOf(req), req.user!, validQuery<z.infer<typeof query>>(req).episodeId),
+      );
     })
-    .post('/upgrades/:upgradeId/step-back', { roles: ROLES, record: upgradeInBuild, body: stepBackSchema }, async (req, res) => {
-      sendFor(req, res, UpgradeAnswer, { upgrade: await stepBack(req.user!, buildOf(req), upgradeId(req), req.body) });
-    })
-    .post('/upgrades/:upgradeId/caution-read', { roles: ROLES, record: upgradeInBuild, body: noBody }, async (req, res) => {
-      await cautionRead(req.user!, buildOf(req), upgradeId(req));
-      res.status(204).end();
-    }).router;
+    .post(
+      '/upgrades/:upgradeId/step-back',
+      { roles: ROLES, record: upgradeInBuild, body: stepBackSchema },
+      async (req, res) => {
+        sendFor(req, res, UpgradeAnswer, {
+          upgrade: await stepBack(req.user!, buildOf(req), upgradeId(req), req.body),
+        });
+      },
+    )
+    .post(
+      '/upgrades/:upgradeId/caution-read',
+      { roles: ROLES, record: upgradeInBuild, body: noBody },
+      async (req, res) => {
+        await cautionRead(req.user!, buildOf(req), upgradeId(req));
+        res.status(204).end();
+      },
+    ).router;
 }

@@ -5,7 +5,13 @@ import { ANY_ROLE } from '../middleware/roles';
 import { validQuery } from '../middleware/validate';
 import { buildOf } from '../middleware/build';
 import { buildScopedRouter, recordInBuild } from './buildScoped';
-import { createUpgradeSchema, prerequisitesSchema, updateUpgradeSchema, upgradeListQuery, type UpgradeListQuery } from '../../shared/schemas/upgrade';
+import {
+  createUpgradeSchema,
+  prerequisitesSchema,
+  updateUpgradeSchema,
+  upgradeListQuery,
+  type UpgradeListQuery,
+} from '../../shared/schemas/upgrade';
 import { ActivityAnswer, UpgradeAnswer, UpgradeDetail, UpgradePage } from '../../shared/contracts/upgrade';
 import { send, sendFor } from './send';
 import * as upgrades from '../services/upgrades';
@@ -26,7 +32,13 @@ export function upgradesRouter() {
       sendFor(req, res, UpgradePage, await upgrades.listUpgrades(buildOf(req), validQuery<UpgradeListQuery>(req)));
     })
     .post('/', { roles: ['producer'], body: createUpgradeSchema }, async (req, res) => {
-      sendFor(req, res, UpgradeAnswer, { upgrade: await upgrades.createUpgrade(req.user!, buildOf(req), req.body) }, 201);
+      sendFor(
+        req,
+        res,
+        UpgradeAnswer,
+        { upgrade: await upgrades.createUpgrade(req.user!, buildOf(req), req.body) },
+        201,
+      );
     })
     .post('/import', { roles: ['producer'], query: importQuery }, async (req, res) => {
       sendImportResult(res, await importUpgradesCsv(req.user!, buildOf(req), csvBody(req), dryRun(req)));
@@ -34,17 +46,32 @@ export function upgradesRouter() {
     .get('/:upgradeId', { roles: ANY_ROLE, record: upgradeInBuild }, async (req, res) => {
       sendFor(req, res, UpgradeDetail, await upgrades.getUpgradeDetail(buildOf(req), upgradeId(req), req.user!));
     })
-    .patch('/:upgradeId', { roles: ['producer', 'installer'], record: upgradeInBuild, body: updateUpgradeSchema }, async (req, res) => {
-      sendFor(req, res, UpgradeAnswer, { upgrade: await upgrades.updateUpgrade(req.user!, buildOf(req), upgradeId(req), req.body) });
-    })
+    .patch(
+      '/:upgradeId',
+      { roles: ['producer', 'installer'], record: upgradeInBuild, body: updateUpgradeSchema },
+      async (req, res) => {
+        sendFor(req, res, UpgradeAnswer, {
+          upgrade: await upgrades.updateUpgrade(req.user!, buildOf(req), upgradeId(req), req.body),
+        });
+      },
+    )
     .delete('/:upgradeId', { roles: ['producer'], record: upgradeInBuild }, async (req, res) => {
       await upgrades.deleteUpgrade(req.user!, buildOf(req), upgradeId(req));
       res.status(204).end();
     })
-    .put('/:upgradeId/prerequisites', { roles: ['producer'], record: upgradeInBuild, body: prerequisitesSchema }, async (req, res) => {
-      const upgrade = await upgrades.setPrerequisites(req.user!, buildOf(req), upgradeId(req), req.body.prerequisiteIds);
-      sendFor(req, res, UpgradeAnswer, { upgrade });
-    })
+    .put(
+      '/:upgradeId/prerequisites',
+      { roles: ['producer'], record: upgradeInBuild, body: prerequisitesSchema },
+      async (req, res) => {
+        const upgrade = await upgrades.setPrerequisites(
+          req.user!,
+          buildOf(req),
+          upgradeId(req),
+          req.body.prerequisiteIds,
+        );
+        sendFor(req, res, UpgradeAnswer, { upgrade });
+      },
+    )
     .get('/:upgradeId/activity', { roles: ANY_ROLE, record: upgradeInBuild }, async (req, res) => {
       send(res, ActivityAnswer, { activity: await upgrades.upgradeActivity(buildOf(req), upgradeId(req), req.user!) });
     }).router;
@@ -60,4 +87,3 @@ export function backlogCsvRouter() {
       sendCsv(res, `${buildOf(req).slug}-parts.csv`, await exportPartsCsv(buildOf(req)));
     }).router;
 }
-

@@ -18,9 +18,18 @@ export function viewerRequestsRouter() {
     .get('/', { roles: ['marketing', 'producer'], query: viewerRequestQuery }, async (req, res) => {
       const q = validQuery<{ state?: RequestState }>(req);
       const b = buildOf(req);
-      send(res, StaffRequestList, { requests: await requests.listRequests(b.id, q.state), votesByUpgrade: await votesByUpgrade(b.id) });
+      send(res, StaffRequestList, {
+        requests: await requests.listRequests(b.id, q.state),
+        votesByUpgrade: await votesByUpgrade(b.id),
+      });
     })
-    .patch('/:requestId', { roles: ['marketing', 'producer'], record: requestInBuild, body: triageSchema }, async (req, res) => {
-      send(res, StaffRequestAnswer, { request: await requests.triage(req.user!, buildOf(req).id, Number(req.params.requestId), req.body) });
-    }).router;
+    .patch(
+      '/:requestId',
+      { roles: ['marketing', 'producer'], record: requestInBuild, body: triageSchema },
+      async (req, res) => {
+        send(res, StaffRequestAnswer, {
+          request: await requests.triage(req.user!, buildOf(req).id, Number(req.params.requestId), req.body),
+        });
+      },
+    ).router;
 }

@@ -60,7 +60,8 @@ export interface ReadableChange {
 }
 
 /** Record keys nobody needs to read: ids, versions, positions and timestamps. */
-const INTERNAL = /^(id|version|createdAt|updatedAt|episodePosition|position|emailHash|confirmTokenHash|emailSealed)$|Ids?$/;
+const INTERNAL =
+  /^(id|version|createdAt|updatedAt|episodePosition|position|emailHash|confirmTokenHash|emailSealed)$|Ids?$/;
 const money = new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD' });
 
 function readableValue(key: string, v: unknown): string {
@@ -68,7 +69,12 @@ function readableValue(key: string, v: unknown): string {
   if (/Cents$/.test(key) && typeof v === 'number') return money.format(v / 100);
   if (typeof v === 'boolean') return v ? 'Yes' : 'No';
   if (Array.isArray(v)) return v.length ? v.map((x) => readableValue(key, x)).join(', ') : '—';
-  if (typeof v === 'string' && /^[a-z]+(_[a-z]+)*$/.test(v) && /(state|segment|Segment|State|area|kind|stage|condition|disposition|category|action)$/i.test(key)) return valueWords(v);
+  if (
+    typeof v === 'string' &&
+    /^[a-z]+(_[a-z]+)*$/.test(v) &&
+    /(state|segment|Segment|State|area|kind|stage|condition|disposition|category|action)$/i.test(key)
+  )
+    return valueWords(v);
   if (typeof v === 'object') return JSON.stringify(v);
   return String(v);
 }
@@ -77,7 +83,10 @@ function readableValue(key: string, v: unknown): string {
  * The changes of one history entry in words: field labels, states in words, money formatted for
  * those who may see it and left out for the rest, internal fields (ids, versions) left out.
  */
-export function readableChanges(changes: Record<string, [unknown, unknown]> | null | undefined, may: { money: boolean; retail: boolean }): ReadableChange[] {
+export function readableChanges(
+  changes: Record<string, [unknown, unknown]> | null | undefined,
+  may: { money: boolean; retail: boolean },
+): ReadableChange[] {
   const out: ReadableChange[] = [];
   for (const [key, pair] of Object.entries(changes ?? {})) {
     if (INTERNAL.test(key)) continue;

@@ -113,16 +113,26 @@ export function toExpenseRecord(e: Expense): Plain<ExpenseRecord> {
 
 /** The upgrade `id` of build `buildId`, or 404 (a record of another build is "not found"). */
 export async function findUpgrade(buildId: number, id: number, t?: Transaction, lock = false) {
-  const u = await Upgrade.findOne({ where: { id, buildId }, transaction: t, ...(lock && t ? { lock: t.LOCK.UPDATE } : {}) });
+  const u = await Upgrade.findOne({
+    where: { id, buildId },
+    transaction: t,
+    ...(lock && t ? { lock: t.LOCK.UPDATE } : {}),
+  });
   if (!u) throw notFound('Upgrade');
   return u;
 }
 
 /** An upgrade id named in a body must belong to the build: otherwise 400 naming the field. */
-export async function requireUpgradeInBuild(buildId: number, id: number | null | undefined, field = 'upgradeId', t?: Transaction) {
+export async function requireUpgradeInBuild(
+  buildId: number,
+  id: number | null | undefined,
+  field = 'upgradeId',
+  t?: Transaction,
+) {
   if (id === null || id === undefined) return null;
   const u = await Upgrade.findOne({ where: { id, buildId }, transaction: t });
-  if (!u) throw badRequest(`Check these fields: ${field}.`, [{ path: field, message: 'is not an upgrade of this build' }]);
+  if (!u)
+    throw badRequest(`Check these fields: ${field}.`, [{ path: field, message: 'is not an upgrade of this build' }]);
   return u;
 }
 
@@ -150,9 +160,15 @@ export async function upgradeRecord(u: Upgrade, t?: Transaction) {
  * contracts, with money removed per role), so the client can reload or re-apply.
  */
 export function stale(current: Record<string, unknown>, viewer: Viewer, contracts?: Audiences) {
-  return new AppError(409, 'stale', 'Someone else changed this record since you loaded it. Reload to see their change, or re-apply yours.', undefined, {
-    current: contracts ? allow(contracts[audienceOf(viewer.roles)], current as never) : forViewer(current, viewer),
-  });
+  return new AppError(
+    409,
+    'stale',
+    'Someone else changed this record since you loaded it. Reload to see their change, or re-apply yours.',
+    undefined,
+    {
+      current: contracts ? allow(contracts[audienceOf(viewer.roles)], current as never) : forViewer(current, viewer),
+    },
+  );
 }
 
 /** The record contract of each entity the backlog's history holds: its fields are the allow-list of a change. */
@@ -174,11 +190,16 @@ const allowedKeys = (entity: string, audience: Audience): ReadonlySet<string> | 
  * person's contract for that record names (an allow-list); for others, money figures removed.
  */
 export function activityView(rows: Activity[], viewer: Viewer) {
-  const hidden = new Set<string>([...(seesMoney(viewer) ? [] : SHOP_MONEY_FIELDS), ...(seesRetail(viewer) ? [] : RETAIL_FIELDS)]);
+  const hidden = new Set<string>([
+    ...(seesMoney(viewer) ? [] : SHOP_MONEY_FIELDS),
+    ...(seesRetail(viewer) ? [] : RETAIL_FIELDS),
+  ]);
   const audience = audienceOf(viewer.roles);
   const visible = (entity: string, changes: Activity['changes']) => {
     const allowed = allowedKeys(entity, audience);
-    return Object.fromEntries(Object.entries(changes ?? {}).filter(([k]) => (allowed ? allowed.has(k) : !hidden.has(k))));
+    return Object.fromEntries(
+      Object.entries(changes ?? {}).filter(([k]) => (allowed ? allowed.has(k) : !hidden.has(k))),
+    );
   };
   return rows.map((a) => ({
     id: Number(a.id),

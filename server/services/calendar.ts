@@ -21,7 +21,10 @@ export const calendarUrl = (token: string) => `${config().publicUrl}/api/calenda
 export async function buildForToken(token: string): Promise<Build> {
   if (!TOKEN_SHAPE.test(token)) throw notFound('Calendar');
   const hash = createHash('sha256').update(token).digest('hex');
-  const rows = await sequelize.query<{ id: number }>('SELECT id FROM builds WHERE calendar_token_hash = :hash', { replacements: { hash }, type: QueryTypes.SELECT });
+  const rows = await sequelize.query<{ id: number }>('SELECT id FROM builds WHERE calendar_token_hash = :hash', {
+    replacements: { hash },
+    type: QueryTypes.SELECT,
+  });
   const build = rows[0] ? await Build.findByPk(rows[0].id) : null;
   const given = Buffer.from(token);
   const mine = Buffer.from(build?.calendarToken ?? '');
@@ -84,9 +87,20 @@ export async function rotateCalendar(actor: Actor, build: Build) {
   return sequelize.transaction(async (t) => {
     const token = newCalendarToken();
     // A plain UPDATE: the token is not a field of the build form, so its version stays put.
-    await sequelize.query('UPDATE builds SET calendar_token = :token WHERE id = :id', { replacements: { token, id: build.id }, transaction: t });
+    await sequelize.query('UPDATE builds SET calendar_token = :token WHERE id = :id', {
+      replacements: { token, id: build.id },
+      transaction: t,
+    });
     // The secret itself never goes into the activity record.
-    await record(t, { actor, buildId: build.id, entity: 'build', entityId: build.id, action: 'calendar_rotate', summary: 'Replaced the calendar feed address; the old one no longer works', changes: {} });
+    await record(t, {
+      actor,
+      buildId: build.id,
+      entity: 'build',
+      entityId: build.id,
+      action: 'calendar_rotate',
+      summary: 'Replaced the calendar feed address; the old one no longer works',
+      changes: {},
+    });
     return { url: calendarUrl(token) };
   });
 }

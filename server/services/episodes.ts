@@ -81,7 +81,15 @@ export async function renumber(buildId: number, orderedIds: number[], t: Transac
 }
 
 async function orderedIds(buildId: number, t: Transaction): Promise<number[]> {
-  const rows = await Episode.findAll({ where: { buildId }, attributes: ['id'], order: [['number', 'ASC'], ['id', 'ASC']], transaction: t });
+  const rows = await Episode.findAll({
+    where: { buildId },
+    attributes: ['id'],
+    order: [
+      ['number', 'ASC'],
+      ['id', 'ASC'],
+    ],
+    transaction: t,
+  });
   return rows.map((r) => r.id);
 }
 
@@ -95,7 +103,10 @@ async function moveTo(buildId: number, id: number, number: number, t: Transactio
 
 async function lockSeries(buildId: number, t: Transaction) {
   // One writer at a time per build's series, so two renumberings cannot interleave.
-  await sequelize.query('SELECT id FROM builds WHERE id = :buildId FOR UPDATE', { replacements: { buildId }, transaction: t });
+  await sequelize.query('SELECT id FROM builds WHERE id = :buildId FOR UPDATE', {
+    replacements: { buildId },
+    transaction: t,
+  });
 }
 
 export async function createEpisode(actor: Actor, build: Build, input: CreateEpisodeInput): Promise<EpisodeRecord> {
@@ -119,14 +130,27 @@ export async function createEpisode(actor: Actor, build: Build, input: CreateEpi
     if (input.number && input.number <= count) await moveTo(build.id, ep.id, input.number, t);
     await ep.reload({ transaction: t });
     const rec = toRecord(ep, []);
-    await record(t, { actor, buildId: build.id, entity: 'episode', entityId: ep.id, action: 'create', summary: `Added episode ${ep.number}: ${ep.title}`, after: rec as unknown as Record<string, unknown> });
+    await record(t, {
+      actor,
+      buildId: build.id,
+      entity: 'episode',
+      entityId: ep.id,
+      action: 'create',
+      summary: `Added episode ${ep.number}: ${ep.title}`,
+      after: rec as unknown as Record<string, unknown>,
+    });
     return rec;
   });
 }
 
 const INSTALLER_FIELDS = new Set(['state', 'version']);
 
-export async function updateEpisode(actor: EpisodeActor, build: Build, episodeId: number, input: UpdateEpisodeInput): Promise<EpisodeRecord> {
+export async function updateEpisode(
+  actor: EpisodeActor,
+  build: Build,
+  episodeId: number,
+  input: UpdateEpisodeInput,
+): Promise<EpisodeRecord> {
   const producer = isProducer(actor);
   if (!producer) {
     // The installer marks an episode shot from the shop floor; everything else is the producer's.
@@ -139,14 +163,24 @@ export async function updateEpisode(actor: EpisodeActor, build: Build, episodeId
     const ids = (await upgradeIdsByEpisode(build.id, t)).get(ep.id) ?? [];
     const before = toRecord(ep, ids);
     if (ep.version !== input.version) {
-      throw new AppError(409, 'stale', 'Someone else changed this episode since you loaded it. Their version is shown.', undefined, { current: before });
+      throw new AppError(
+        409,
+        'stale',
+        'Someone else changed this episode since you loaded it. Their version is shown.',
+        undefined,
+        { current: before },
+      );
     }
     const to = input.state ?? ep.state;
     const goesLive = to === 'live' && ep.state !== 'live';
     // The same rule as the publishing route: who may, and only a finished episode (or a reason).
     if (goesLive) await assertMayGoLive(t, actor, ep, input.overrideReason);
     if (stateRank(to) < stateRank(ep.state) && !producer) {
-      throw new AppError(409, 'backward_move', `Episode ${ep.number} is ${label(ep.state)}; only a producer or owner may move it back to ${label(to)}.`);
+      throw new AppError(
+        409,
+        'backward_move',
+        `Episode ${ep.number} is ${label(ep.state)}; only a producer or owner may move it back to ${label(to)}.`,
+      );
     }
     if (input.title !== undefined) ep.title = input.title;
     if (input.summary !== undefined) ep.summary = input.summary;
@@ -155,13 +189,19 @@ export async function updateEpisode(actor: EpisodeActor, build: Build, episodeId
     if (input.videoUrl !== undefined) ep.videoUrl = input.videoUrl;
     if (input.runtimeSeconds !== undefined) ep.runtimeSeconds = input.runtimeSeconds;
     if (ep.shootDate && ep.releaseDate && ep.releaseDate < ep.shootDate) {
-      throw badRequest('The release date must be on or after the shoot date.', [{ path: 'releaseDate', message: 'must be on or after the shoot date' }]);
+      throw badRequest('The release date must be on or after the shoot date.', [
+        { path: 'releaseDate', message: 'must be on or after the shoot date' },
+      ]);
     }
     if (stateRank(to) >= stateRank('scheduled') && !ep.shootDate) {
-      throw badRequest(`Give episode ${ep.number} a shoot date before it is ${label(to)}.`, [{ path: 'shootDate', message: `is needed once the episode is ${label(to)}` }]);
+      throw badRequest(`Give episode ${ep.number} a shoot date before it is ${label(to)}.`, [
+        { path: 'shootDate', message: `is needed once the episode is ${label(to)}` },
+      ]);
     }
     if (to === 'live' && !ep.videoUrl) {
-      throw badRequest('An episode goes live with its video address.', [{ path: 'videoUrl', message: 'is needed to go live' }]);
+      throw badRequest('An episode goes live with its video address.', [
+        { path: 'videoUrl', message: 'is needed to go live' },
+      ]);
     }
     ep.state = to;
     if (goesLive && !ep.publishedAt) ep.publishedAt = new Date();
@@ -173,7 +213,11 @@ export async function updateEpisode(actor: EpisodeActor, build: Build, episodeId
     const after = toRecord(ep, ids);
     if (before.state !== after.state) {
       await record(t, {
-        actor, buildId: build.id, entity: 'episode', entityId: ep.id, action: 'state',
+        actor,
+        buildId: build.id,
+        entity: 'episode',
+        entityId: ep.id,
+        action: 'state',
         summary: `Episode ${ep.number} moved from ${label(before.state)} to ${label(after.state)}`,
         changes: { state: [before.state, after.state] },
       });
@@ -182,7 +226,16 @@ export async function updateEpisode(actor: EpisodeActor, build: Build, episodeId
     const { state: _b, ...restBefore } = before;
     const changes = JSON.stringify(rest) !== JSON.stringify(restBefore);
     if (changes) {
-      await record(t, { actor, buildId: build.id, entity: 'episode', entityId: ep.id, action: 'update', summary: `Changed episode ${ep.number}: ${ep.title}`, before: restBefore, after: rest });
+      await record(t, {
+        actor,
+        buildId: build.id,
+        entity: 'episode',
+        entityId: ep.id,
+        action: 'update',
+        summary: `Changed episode ${ep.number}: ${ep.title}`,
+        before: restBefore,
+        after: rest,
+      });
     }
     if (goesLive) await afterGoLive(t, ep);
     return after;
@@ -194,7 +247,11 @@ export async function deleteEpisode(actor: Actor, build: Build, episodeId: numbe
     await lockSeries(build.id, t);
     const ep = await findEpisode(build.id, episodeId, t);
     if (LOCKED_STATES.includes(ep.state)) {
-      throw new AppError(409, 'episode_locked', `Episode ${ep.number} is ${label(ep.state)}: it has been filmed and stays in the series.`);
+      throw new AppError(
+        409,
+        'episode_locked',
+        `Episode ${ep.number} is ${label(ep.state)}: it has been filmed and stays in the series.`,
+      );
     }
     const ids = (await upgradeIdsByEpisode(build.id, t)).get(ep.id) ?? [];
     await sequelize.query(
@@ -205,7 +262,14 @@ export async function deleteEpisode(actor: Actor, build: Build, episodeId: numbe
     const before = toRecord(ep, ids);
     await ep.destroy({ transaction: t });
     await renumber(build.id, await orderedIds(build.id, t), t);
-    await record(t, { actor, buildId: build.id, entity: 'episode', entityId: episodeId, action: 'delete', summary: `Deleted episode ${before.number}: ${before.title}${ids.length ? ` (${ids.length} upgrades back to unplanned)` : ''}`, before: before as unknown as Record<string, unknown> });
+    await record(t, {
+      actor,
+      buildId: build.id,
+      entity: 'episode',
+      entityId: episodeId,
+      action: 'delete',
+      summary: `Deleted episode ${before.number}: ${before.title}${ids.length ? ` (${ids.length} upgrades back to unplanned)` : ''}`,
+      before: before as unknown as Record<string, unknown>,
+    });
   });
 }
-

@@ -8,7 +8,13 @@ import type { CreateExpenseInput, UpdateExpenseInput } from '../../shared/schema
 export async function listExpenses(build: Build, q: { upgradeId?: number }) {
   const where: Record<string, unknown> = { buildId: build.id };
   if (q.upgradeId) where.upgradeId = q.upgradeId;
-  const rows = await Expense.findAll({ where, order: [['spentOn', 'DESC'], ['id', 'DESC']] });
+  const rows = await Expense.findAll({
+    where,
+    order: [
+      ['spentOn', 'DESC'],
+      ['id', 'DESC'],
+    ],
+  });
   return rows.map(toExpenseRecord);
 }
 
@@ -21,9 +27,20 @@ async function find(buildId: number, id: number, t: import('sequelize').Transact
 export async function createExpense(actor: Person, build: Build, input: CreateExpenseInput) {
   return sequelize.transaction(async (t) => {
     await requireUpgradeInBuild(build.id, input.upgradeId, 'upgradeId', t);
-    const e = await Expense.create({ ...(input as Required<CreateExpenseInput>), upgradeId: input.upgradeId ?? null, buildId: build.id }, { transaction: t });
+    const e = await Expense.create(
+      { ...(input as Required<CreateExpenseInput>), upgradeId: input.upgradeId ?? null, buildId: build.id },
+      { transaction: t },
+    );
     const rec = toExpenseRecord(e);
-    await record(t, { actor, buildId: build.id, entity: 'expense', entityId: e.id, action: 'create', summary: `Added expense ${e.description}`, after: rec });
+    await record(t, {
+      actor,
+      buildId: build.id,
+      entity: 'expense',
+      entityId: e.id,
+      action: 'create',
+      summary: `Added expense ${e.description}`,
+      after: rec,
+    });
     return rec;
   });
 }
@@ -37,7 +54,15 @@ export async function updateExpense(actor: Person, build: Build, id: number, inp
     await e.save({ transaction: t });
     const after = toExpenseRecord(e);
     const changes = diff(before, after);
-    await record(t, { actor, buildId: build.id, entity: 'expense', entityId: e.id, action: 'update', summary: `Changed expense ${e.description}: ${changedFields(changes)}`, changes });
+    await record(t, {
+      actor,
+      buildId: build.id,
+      entity: 'expense',
+      entityId: e.id,
+      action: 'update',
+      summary: `Changed expense ${e.description}: ${changedFields(changes)}`,
+      changes,
+    });
     return after;
   });
 }
@@ -47,6 +72,14 @@ export async function deleteExpense(actor: Person, build: Build, id: number) {
     const e = await find(build.id, id, t);
     const before = toExpenseRecord(e);
     await e.destroy({ transaction: t });
-    await record(t, { actor, buildId: build.id, entity: 'expense', entityId: e.id, action: 'delete', summary: `Deleted expense ${e.description}`, before });
+    await record(t, {
+      actor,
+      buildId: build.id,
+      entity: 'expense',
+      entityId: e.id,
+      action: 'delete',
+      summary: `Deleted expense ${e.description}`,
+      before,
+    });
   });
 }

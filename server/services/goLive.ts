@@ -17,11 +17,18 @@ export interface LiveActor extends Actor {
 
 export const mayPublish = (a: LiveActor) => a.roles.some((r) => (PUBLISHER_ROLES as readonly string[]).includes(r));
 
-export async function unfinishedUpgrades(buildId: number, episodeId: number, t?: Transaction): Promise<UnfinishedUpgrade[]> {
+export async function unfinishedUpgrades(
+  buildId: number,
+  episodeId: number,
+  t?: Transaction,
+): Promise<UnfinishedUpgrade[]> {
   const rows = await Upgrade.findAll({
     where: { buildId, episodeId },
     attributes: ['id', 'title', 'installState', 'installSegment', 'demoSegment'],
-    order: [['episodePosition', 'ASC'], ['id', 'ASC']],
+    order: [
+      ['episodePosition', 'ASC'],
+      ['id', 'ASC'],
+    ],
     transaction: t,
   });
   return unfinishedOf(rows);
@@ -51,10 +58,21 @@ export async function assertMayGoLive(t: Transaction, actor: LiveActor, ep: Epis
       { unfinished },
     );
   }
-  if (reason.length > 1000) throw badRequest('Reason: keep it to 1000 characters.', [{ path: 'overrideReason', message: 'Reason: keep it to 1000 characters' }]);
+  if (reason.length > 1000)
+    throw badRequest('Reason: keep it to 1000 characters.', [
+      { path: 'overrideReason', message: 'Reason: keep it to 1000 characters' },
+    ]);
   await record(t, {
-    actor, buildId: ep.buildId, entity: 'episode', entityId: ep.id, action: 'publish_anyway',
-    summary: `Published episode ${ep.number} anyway, unfinished (${unfinished.map((u) => u.title).join(', ')}). Reason: ${reason}`.slice(0, 1000),
+    actor,
+    buildId: ep.buildId,
+    entity: 'episode',
+    entityId: ep.id,
+    action: 'publish_anyway',
+    summary:
+      `Published episode ${ep.number} anyway, unfinished (${unfinished.map((u) => u.title).join(', ')}). Reason: ${reason}`.slice(
+        0,
+        1000,
+      ),
     changes: {},
   });
 }

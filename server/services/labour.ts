@@ -11,7 +11,13 @@ const managesLabour = (p: Person) => p.roles.some((r) => r === 'owner' || r === 
 export async function listLabour(build: Build, q: { upgradeId?: number }) {
   const where: Record<string, unknown> = { buildId: build.id };
   if (q.upgradeId) where.upgradeId = q.upgradeId;
-  const rows = await LabourEntry.findAll({ where, order: [['workedOn', 'DESC'], ['id', 'DESC']] });
+  const rows = await LabourEntry.findAll({
+    where,
+    order: [
+      ['workedOn', 'DESC'],
+      ['id', 'DESC'],
+    ],
+  });
   return rows.map(toLabourRecord);
 }
 
@@ -22,7 +28,12 @@ async function find(buildId: number, id: number, t: import('sequelize').Transact
 }
 
 /** Whose hours these are: yourself unless you manage labour, in which case any known person. */
-async function personFor(actor: Person, userId: number | null | undefined, personName: string | undefined, t: import('sequelize').Transaction) {
+async function personFor(
+  actor: Person,
+  userId: number | null | undefined,
+  personName: string | undefined,
+  t: import('sequelize').Transaction,
+) {
   if (!managesLabour(actor)) {
     if (userId !== undefined && userId !== actor.id) throw forbidden('You may log only your own hours.');
     if (personName !== undefined && personName !== actor.name) throw forbidden('You may log only your own hours.');
@@ -30,7 +41,10 @@ async function personFor(actor: Person, userId: number | null | undefined, perso
   }
   if (userId === undefined) return { userId: actor.id, personName: personName ?? actor.name };
   if (userId === null) {
-    if (!personName) throw badRequest('Check these fields: personName.', [{ path: 'personName', message: 'is required when the hours are not by a user' }]);
+    if (!personName)
+      throw badRequest('Check these fields: personName.', [
+        { path: 'personName', message: 'is required when the hours are not by a user' },
+      ]);
     return { userId: null, personName };
   }
   const u = await User.findByPk(userId, { transaction: t });
@@ -43,11 +57,27 @@ export async function createLabour(actor: Person, build: Build, input: CreateLab
     const u = await requireUpgradeInBuild(build.id, input.upgradeId, 'upgradeId', t);
     const who = await personFor(actor, input.userId, input.personName, t);
     const l = await LabourEntry.create(
-      { buildId: build.id, upgradeId: input.upgradeId, ...who, workedOn: input.workedOn, hours: input.hours, kind: input.kind ?? 'install', note: input.note ?? null },
+      {
+        buildId: build.id,
+        upgradeId: input.upgradeId,
+        ...who,
+        workedOn: input.workedOn,
+        hours: input.hours,
+        kind: input.kind ?? 'install',
+        note: input.note ?? null,
+      },
       { transaction: t },
     );
     const rec = toLabourRecord(l);
-    await record(t, { actor, buildId: build.id, entity: 'labour', entityId: l.id, action: 'create', summary: `${who.personName} logged ${l.hours} h on ${u!.title}`, after: rec });
+    await record(t, {
+      actor,
+      buildId: build.id,
+      entity: 'labour',
+      entityId: l.id,
+      action: 'create',
+      summary: `${who.personName} logged ${l.hours} h on ${u!.title}`,
+      after: rec,
+    });
     return rec;
   });
 }
@@ -58,13 +88,22 @@ export async function updateLabour(actor: Person, build: Build, id: number, inpu
     if (!managesLabour(actor) && l.userId !== actor.id) throw forbidden('You may change only your own hours.');
     if (input.upgradeId !== undefined) await requireUpgradeInBuild(build.id, input.upgradeId, 'upgradeId', t);
     const fields: Partial<LabourEntry> = { ...(input as Partial<LabourEntry>) };
-    if (input.userId !== undefined || input.personName !== undefined) Object.assign(fields, await personFor(actor, input.userId, input.personName, t));
+    if (input.userId !== undefined || input.personName !== undefined)
+      Object.assign(fields, await personFor(actor, input.userId, input.personName, t));
     const before = toLabourRecord(l);
     l.set(fields);
     await l.save({ transaction: t });
     const after = toLabourRecord(l);
     const changes = diff(before, after);
-    await record(t, { actor, buildId: build.id, entity: 'labour', entityId: l.id, action: 'update', summary: `Changed hours of ${l.personName}: ${changedFields(changes)}`, changes });
+    await record(t, {
+      actor,
+      buildId: build.id,
+      entity: 'labour',
+      entityId: l.id,
+      action: 'update',
+      summary: `Changed hours of ${l.personName}: ${changedFields(changes)}`,
+      changes,
+    });
     return after;
   });
 }
@@ -75,6 +114,14 @@ export async function deleteLabour(actor: Person, build: Build, id: number) {
     if (!managesLabour(actor) && l.userId !== actor.id) throw forbidden('You may delete only your own hours.');
     const before = toLabourRecord(l);
     await l.destroy({ transaction: t });
-    await record(t, { actor, buildId: build.id, entity: 'labour', entityId: l.id, action: 'delete', summary: `Deleted ${l.hours} h of ${l.personName}`, before });
+    await record(t, {
+      actor,
+      buildId: build.id,
+      entity: 'labour',
+      entityId: l.id,
+      action: 'delete',
+      summary: `Deleted ${l.hours} h of ${l.personName}`,
+      before,
+    });
   });
 }

@@ -33,7 +33,8 @@ export const ACCEPTED_DESCRIPTION = 'JPEG, PNG, WebP or HEIC photos, MP4, MOV or
 /** Bytes allowed per kind, from config. */
 export function limitBytes(kind: MediaKind): number {
   const c = config();
-  const mb = kind === 'photo' ? c.UPLOAD_MAX_PHOTO_MB : kind === 'video' ? c.UPLOAD_MAX_VIDEO_MB : c.UPLOAD_MAX_DOCUMENT_MB;
+  const mb =
+    kind === 'photo' ? c.UPLOAD_MAX_PHOTO_MB : kind === 'video' ? c.UPLOAD_MAX_VIDEO_MB : c.UPLOAD_MAX_DOCUMENT_MB;
   return Math.floor(mb * 1024 * 1024);
 }
 export const largestLimit = () => Math.max(limitBytes('photo'), limitBytes('video'), limitBytes('document'));
@@ -41,7 +42,11 @@ export const largestLimit = () => Math.max(limitBytes('photo'), limitBytes('vide
 const KIND_WORD: Record<MediaKind, string> = { photo: 'photos', video: 'videos', document: 'documents' };
 
 export const tooLarge = (kind: MediaKind) =>
-  new AppError(413, 'too_large', `The file is larger than ${Math.round(limitBytes(kind) / 1024 / 1024)} MB, the limit for ${KIND_WORD[kind]}.`);
+  new AppError(
+    413,
+    'too_large',
+    `The file is larger than ${Math.round(limitBytes(kind) / 1024 / 1024)} MB, the limit for ${KIND_WORD[kind]}.`,
+  );
 
 // Control characters and the characters file systems refuse.
 // eslint-disable-next-line no-control-regex
@@ -63,7 +68,11 @@ export function contentDisposition(name: string, type: 'attachment' | 'inline' =
 export type Detected = AllowedType & { mime: string };
 
 export const storageUnavailable = () =>
-  new AppError(503, 'storage_unavailable', 'The file store cannot be reached right now, so nothing was saved. Try again in a minute.');
+  new AppError(
+    503,
+    'storage_unavailable',
+    'The file store cannot be reached right now, so nothing was saved. Try again in a minute.',
+  );
 
 /** A file the upload engine (server/middleware/upload.ts) received. */
 export interface ReceivedFile {
@@ -77,7 +86,6 @@ export interface ReceivedFile {
   /** Set when the file was streamed into the object store while it arrived. */
   stored?: { key: string };
 }
-
 
 const SNIFF_BYTES = 4100; // file-type reads at most this many bytes for the formats we accept
 
@@ -106,7 +114,8 @@ export class Inspector extends Transform {
   }
 
   override _flush(cb: TransformCallback) {
-    if (this.size === 0) return cb(new AppError(400, 'empty_file', 'The file is empty (0 bytes). Choose the file again.'));
+    if (this.size === 0)
+      return cb(new AppError(400, 'empty_file', 'The file is empty (0 bytes). Choose the file again.'));
     if (this.detected) return cb();
     this.release(cb);
   }

@@ -86,7 +86,8 @@ export function startMediaSweeper(opts: SweeperOptions = {}) {
   const pass = async () => {
     const objects = await sweepOrphans({ remove: true, graceMs: opts.objectGraceMs ?? grace });
     const temps = await sweepTempFiles({ remove: true, graceMs: opts.tempGraceMs ?? grace });
-    if (objects.removed || temps.length) console.log(`[media] swept ${objects.removed} leftover object(s) and ${temps.length} temporary file(s)`);
+    if (objects.removed || temps.length)
+      console.log(`[media] swept ${objects.removed} leftover object(s) and ${temps.length} temporary file(s)`);
     opts.onPass?.({ objects: objects.removed, tempFiles: temps.length });
   };
   const tick = () => {

@@ -38,6 +38,13 @@ export async function notifyEpisodeLive(t: Transaction, buildId: number, episode
       pageUrl: `${base}/b/${build.slug}`,
       unsubscribeLink: `${base}/unsubscribe/${unsubscribeToken(v.email_hash)}`,
     });
-    await enqueueMail(t, { kind: 'upgrade_live', to: v.email, subject: mail.subject, text: mail.text, headers: mail.headers, dedupeKey: `live:${episodeId}:${v.email_hash}` });
+    await enqueueMail(t, {
+      kind: 'upgrade_live',
+      to: v.email,
+      subject: mail.subject,
+      text: mail.text,
+      headers: mail.headers,
+      dedupeKey: `live:${episodeId}:${v.email_hash}`,
+    });
   }
 }

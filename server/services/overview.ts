@@ -3,15 +3,30 @@
 import { AREA_LABELS, isUpgradeDone } from '../../shared/domain';
 import { rollUpCosts, type CostRow } from '../../shared/costs';
 import { earnedValue, earnedValueSeries, EV_CREDIT_RULES, type EvCreditRule } from '../../shared/earnedValue';
-import { COST_RECOGNITION_DESCRIPTIONS, COST_RECOGNITION_LABELS, recogniseCosts, type CostRecognition } from '../../shared/costRecognition';
+import {
+  COST_RECOGNITION_DESCRIPTIONS,
+  COST_RECOGNITION_LABELS,
+  recogniseCosts,
+  type CostRecognition,
+} from '../../shared/costRecognition';
 import { DEFAULT_TIME_ZONE, todayIn } from '../../shared/dates';
-import { compactOverview, costRowOf, ratio6, type BuildOverview, type BurndownPoint, type OverviewCostRow } from '../../shared/overview';
+import {
+  compactOverview,
+  costRowOf,
+  ratio6,
+  type BuildOverview,
+  type BurndownPoint,
+  type OverviewCostRow,
+} from '../../shared/overview';
 import type { Build } from '../models';
 import { loadOverviewData, loadOverviewLabour, type OverviewData } from './overviewQuery';
 import { cached, keepInputs, keptInputs, runningFor, singleFlight, stamp, store } from './overviewCache';
 
 /** The build fields the overview reads. */
-export type OverviewBuild = Pick<Build, 'id' | 'name' | 'slug' | 'year' | 'make' | 'model' | 'trim' | 'budgetCents' | 'labourRateCents' | 'startDate'> &
+export type OverviewBuild = Pick<
+  Build,
+  'id' | 'name' | 'slug' | 'year' | 'make' | 'model' | 'trim' | 'budgetCents' | 'labourRateCents' | 'startDate'
+> &
   Partial<Pick<Build, 'timeZone' | 'costRecognition'>>;
 
 /** The credit rule the overview states: an upgrade earns its whole budget the day it is done. */
@@ -24,7 +39,8 @@ const latest = (dates: (string | null | undefined)[]) => dates.reduce<string>((a
 const ratio = ratio6;
 
 /** A roll-up row as the screens read it: derived fields worked out as the client works them out. */
-const costRow = (r: CostRow, labourCosted: boolean): OverviewCostRow => costRowOf({ ...r, labourCents: labourCosted ? r.labourCents : null });
+const costRow = (r: CostRow, labourCosted: boolean): OverviewCostRow =>
+  costRowOf({ ...r, labourCents: labourCosted ? r.labourCents : null });
 
 export async function buildOverview(build: OverviewBuild, now: string = today(build.timeZone)): Promise<BuildOverview> {
   return computeOverview(build, await loadOverviewData(build.id), now);
@@ -42,7 +58,15 @@ export function cachedOverviewBody(buildId: number) {
 export function freshOverviewBody(build: OverviewBuild, before: string) {
   const zone = build.timeZone ?? DEFAULT_TIME_ZONE;
   const now = today(zone);
-  return singleFlight(build.id, `${before}|${now}|${zone}`, async () => store(build.id, now, zone, before, compactOverview(computeOverview(build, await overviewInputs(build.id, before), now))));
+  return singleFlight(build.id, `${before}|${now}|${zone}`, async () =>
+    store(
+      build.id,
+      now,
+      zone,
+      before,
+      compactOverview(computeOverview(build, await overviewInputs(build.id, before), now)),
+    ),
+  );
 }
 
 /**
@@ -90,7 +114,13 @@ export function computeOverview(build: OverviewBuild, d: OverviewData, now: stri
     recognition: recognitionRule,
     asOf,
     labourRateCents: rate,
-    upgrades: d.upgrades.map((u) => ({ id: u.id, estimatedHours: u.estimatedHours, installState: u.installState, installedOn: u.installedOn, done: isUpgradeDone(u) })),
+    upgrades: d.upgrades.map((u) => ({
+      id: u.id,
+      estimatedHours: u.estimatedHours,
+      installState: u.installState,
+      installedOn: u.installedOn,
+      done: isUpgradeDone(u),
+    })),
     parts: d.parts,
     labour: d.labour,
     expenses: d.expenses,
@@ -100,7 +130,8 @@ export function computeOverview(build: OverviewBuild, d: OverviewData, now: stri
   const partsBudget = new Map<number, number>();
   for (const p of d.parts) partsBudget.set(p.upgradeId, (partsBudget.get(p.upgradeId) ?? 0) + p.cents);
   const shootDate = new Map(d.episodes.map((e) => [e.id, e.shootDate]));
-  const shootOf = (u: { episodeId: number | null }) => (u.episodeId !== null ? (shootDate.get(u.episodeId) ?? null) : null);
+  const shootOf = (u: { episodeId: number | null }) =>
+    u.episodeId !== null ? (shootDate.get(u.episodeId) ?? null) : null;
   const forecastFinish = planForecastFinish(d, shootOf, asOf);
   const lastShoot = latest(d.episodes.map((e) => e.shootDate));
   const hasUpgrades = d.upgrades.length > 0;
@@ -138,7 +169,14 @@ export function computeOverview(build: OverviewBuild, d: OverviewData, now: stri
     perEpisode.set(u.episodeId, (perEpisode.get(u.episodeId) ?? 0) + 1);
   }
   const episodeCost = new Map(rollup.episodes.map((e) => [e.episodeId, e]));
-  const zero = rollUpCosts({ labourRateCents: 0, upgrades: [], parts: [], labour: [], expenses: [], removedParts: [] }).build;
+  const zero = rollUpCosts({
+    labourRateCents: 0,
+    upgrades: [],
+    parts: [],
+    labour: [],
+    expenses: [],
+    removedParts: [],
+  }).build;
 
   const episodes: BuildOverview['episodes'] = d.episodes.map((e) => ({
     episodeId: e.id,
@@ -150,7 +188,16 @@ export function computeOverview(build: OverviewBuild, d: OverviewData, now: stri
     ...costRow(episodeCost.get(e.id) ?? zero, labourCosted),
   }));
   const none = episodeCost.get(null);
-  if (none) episodes.push({ episodeId: null, number: null, title: 'In no episode', state: null, shootDate: null, upgrades: perEpisode.get(null) ?? 0, ...costRow(none, labourCosted) });
+  if (none)
+    episodes.push({
+      episodeId: null,
+      number: null,
+      title: 'In no episode',
+      state: null,
+      shootDate: null,
+      upgrades: perEpisode.get(null) ?? 0,
+      ...costRow(none, labourCosted),
+    });
 
   return {
     build: {
@@ -220,7 +267,12 @@ export function computeOverview(build: OverviewBuild, d: OverviewData, now: stri
       const u = upgradeInfo.get(r.upgradeId)!;
       return { upgradeId: r.upgradeId, title: u.title, done: isUpgradeDone(u), ...costRow(r, labourCosted) };
     }),
-    areas: rollup.areas.map((a) => ({ ...costRow(a, labourCosted), area: a.area, label: AREA_LABELS[a.area] ?? a.area, upgrades: perArea.get(a.area) ?? 0 })),
+    areas: rollup.areas.map((a) => ({
+      ...costRow(a, labourCosted),
+      area: a.area,
+      label: AREA_LABELS[a.area] ?? a.area,
+      upgrades: perArea.get(a.area) ?? 0,
+    })),
     episodes,
     unassigned: costRow(rollup.unassigned, labourCosted),
     totals: costRow(totals, labourCosted),
@@ -232,7 +284,11 @@ export function computeOverview(build: OverviewBuild, d: OverviewData, now: stri
  * Remaining budget over time: budget − planned value, budget − actual cost, and budget − the forecast
  * from the status date to the forecast finish. Without a budget there is nothing to burn down: no points.
  */
-function burndown(budget: number | null, startDate: string, points: ReturnType<typeof earnedValueSeries>['points']): BurndownPoint[] {
+function burndown(
+  budget: number | null,
+  startDate: string,
+  points: ReturnType<typeof earnedValueSeries>['points'],
+): BurndownPoint[] {
   if (budget === null || points.length === 0) return [];
   const out: BurndownPoint[] = points.map((p) => ({
     date: p.date,
@@ -250,10 +306,17 @@ function burndown(budget: number | null, startDate: string, points: ReturnType<t
  * latest expected arrival of its parts when that is later. Nothing left: the status date. Work left
  * with no date at all: unknown (null).
  */
-function planForecastFinish(d: OverviewData, shootOf: (u: { episodeId: number | null }) => string | null, asOf: string): string | null {
+function planForecastFinish(
+  d: OverviewData,
+  shootOf: (u: { episodeId: number | null }) => string | null,
+  asOf: string,
+): string | null {
   const open = d.upgrades.filter((u) => !isUpgradeDone(u));
   if (open.length === 0) return asOf;
   const ids = new Set(open.map((u) => u.id));
-  const finish = latest([...open.map(shootOf), ...d.arrivals.filter((a) => ids.has(a.upgradeId)).map((a) => a.expectedOn)]);
+  const finish = latest([
+    ...open.map(shootOf),
+    ...d.arrivals.filter((a) => ids.has(a.upgradeId)).map((a) => a.expectedOn),
+  ]);
   return finish || null;
 }

@@ -162,7 +162,13 @@ export function store(buildId: number, day: string, zone: string, before: string
   const body = Buffer.from(JSON.stringify(value));
   const keep = listening && before.startsWith('1:') && before === stamp(buildId);
   // A copy sent many times is worth compressing harder; one sent once goes out at the fastest level.
-  const entry = { day, zone, body, gzipped: body.length > 1024 ? gzipSync(body, { level: keep ? 6 : 1 }) : null, etag: `W/"${createHash('sha1').update(body).digest('base64url')}"` };
+  const entry = {
+    day,
+    zone,
+    body,
+    gzipped: body.length > 1024 ? gzipSync(body, { level: keep ? 6 : 1 }) : null,
+    etag: `W/"${createHash('sha1').update(body).digest('base64url')}"`,
+  };
   if (keep) entries.set(buildId, entry);
   return entry;
 }
@@ -181,7 +187,10 @@ export function catchUpOverviewNotices(): Promise<void> {
   const roundTrip = () =>
     c
       .query('SELECT 1')
-      .then(() => undefined, () => undefined)
+      .then(
+        () => undefined,
+        () => undefined,
+      )
       .finally(() => {
         catchUpInFlight = null;
       });

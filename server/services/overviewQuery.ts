@@ -21,12 +21,25 @@ export interface OverviewData {
   /** Hours per upgrade per day worked. */
   labour: { upgradeId: number; workedOn: string; hours: number }[];
   /** Part lines (returned ones excluded) summed per upgrade, state and dates. */
-  parts: { upgradeId: number; state: PartState; orderedOn: string | null; receivedOn: string | null; fittedOn: string | null; cents: number }[];
+  parts: {
+    upgradeId: number;
+    state: PartState;
+    orderedOn: string | null;
+    receivedOn: string | null;
+    fittedOn: string | null;
+    cents: number;
+  }[];
   /** Latest expected arrival of parts not yet in hand, per upgrade (only where one is set). */
   arrivals: { upgradeId: number; expectedOn: string }[];
   expenses: { upgradeId: number | null; spentOn: string; cents: number }[];
   /** Removed parts sold or for sale, summed per upgrade, disposition and sale date. */
-  removed: { upgradeId: number | null; disposition: Disposition; soldOn: string | null; expectedCents: number; actualCents: number }[];
+  removed: {
+    upgradeId: number | null;
+    disposition: Disposition;
+    soldOn: string | null;
+    expectedCents: number;
+    actualCents: number;
+  }[];
 }
 
 // Arrays instead of objects keep the JSON small and quick to parse; the positions are mapped below.
@@ -106,18 +119,31 @@ export async function loadOverviewData(buildId: number): Promise<OverviewData> {
   overviewReads.full += 1;
   const [row] = await prepared<Row>('overview', OVERVIEW_SQL, [buildId]);
   return {
-    upgrades: row.upgrades.map(([id, title, area, episodeId, estimatedHours, valueAddedCents, installState, installSegment, demoSegment, installedOn]) => ({
-      id: id as number,
-      title: title as string,
-      area: area as Area,
-      episodeId: episodeId as number | null,
-      estimatedHours: estimatedHours as number,
-      valueAddedCents: valueAddedCents as number,
-      installState: installState as InstallState,
-      installSegment: installSegment as SegmentState,
-      demoSegment: demoSegment as SegmentState,
-      installedOn: installedOn as string | null,
-    })),
+    upgrades: row.upgrades.map(
+      ([
+        id,
+        title,
+        area,
+        episodeId,
+        estimatedHours,
+        valueAddedCents,
+        installState,
+        installSegment,
+        demoSegment,
+        installedOn,
+      ]) => ({
+        id: id as number,
+        title: title as string,
+        area: area as Area,
+        episodeId: episodeId as number | null,
+        estimatedHours: estimatedHours as number,
+        valueAddedCents: valueAddedCents as number,
+        installState: installState as InstallState,
+        installSegment: installSegment as SegmentState,
+        demoSegment: demoSegment as SegmentState,
+        installedOn: installedOn as string | null,
+      }),
+    ),
     episodes: row.episodes.map(([id, number, title, state, shootDate]) => ({
       id: id as number,
       number: number as number,
@@ -125,7 +151,11 @@ export async function loadOverviewData(buildId: number): Promise<OverviewData> {
       state: state as EpisodeState,
       shootDate: shootDate as string | null,
     })),
-    labour: row.labour.map(([upgradeId, workedOn, hours]) => ({ upgradeId: upgradeId as number, workedOn: workedOn as string, hours: hours as number })),
+    labour: row.labour.map(([upgradeId, workedOn, hours]) => ({
+      upgradeId: upgradeId as number,
+      workedOn: workedOn as string,
+      hours: hours as number,
+    })),
     parts: row.parts.map(([upgradeId, state, orderedOn, receivedOn, fittedOn, cents]) => ({
       upgradeId: upgradeId as number,
       state: state as PartState,
@@ -134,8 +164,15 @@ export async function loadOverviewData(buildId: number): Promise<OverviewData> {
       fittedOn: fittedOn as string | null,
       cents: Number(cents),
     })),
-    arrivals: row.arrivals.map(([upgradeId, expectedOn]) => ({ upgradeId: upgradeId as number, expectedOn: expectedOn as string })),
-    expenses: row.expenses.map(([upgradeId, spentOn, cents]) => ({ upgradeId: upgradeId as number | null, spentOn: spentOn as string, cents: Number(cents) })),
+    arrivals: row.arrivals.map(([upgradeId, expectedOn]) => ({
+      upgradeId: upgradeId as number,
+      expectedOn: expectedOn as string,
+    })),
+    expenses: row.expenses.map(([upgradeId, spentOn, cents]) => ({
+      upgradeId: upgradeId as number | null,
+      spentOn: spentOn as string,
+      cents: Number(cents),
+    })),
     removed: row.removed.map(([upgradeId, disposition, soldOn, expected, actual]) => ({
       upgradeId: upgradeId as number | null,
       disposition: disposition as Disposition,

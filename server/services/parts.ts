@@ -8,17 +8,34 @@ import { noticePartMovedLater, refreshSlipNotices } from './slips';
 import { toDay } from '../../shared/planner/dates';
 import { changedFields, requireUpgradeInBuild, stale, toPartRecord, type Person } from './backlogRecords';
 import { Part as PartContract } from '../../shared/contracts/part';
-import { INSTALLER_PART_FIELDS, INSTALLER_PART_STATES, MARKETING_PART_FIELDS, type CreatePartInput, type UpdatePartInput } from '../../shared/schemas/part';
+import {
+  INSTALLER_PART_FIELDS,
+  INSTALLER_PART_STATES,
+  MARKETING_PART_FIELDS,
+  type CreatePartInput,
+  type UpdatePartInput,
+} from '../../shared/schemas/part';
 import { todayIn } from '../../shared/dates';
 
 const has = (p: Person, ...roles: string[]) => p.roles.some((r) => r === 'owner' || roles.includes(r));
 
 /** A page of parts, every field: the route sends each person's allow-list of them (shared/contracts/part.ts). */
-export async function listParts(build: Build, q: { upgradeId?: number; state?: string; page: number; pageSize: number }) {
+export async function listParts(
+  build: Build,
+  q: { upgradeId?: number; state?: string; page: number; pageSize: number },
+) {
   const where: WhereOptions<Part> & Record<string, unknown> = { buildId: build.id };
   if (q.upgradeId) where.upgradeId = q.upgradeId;
   if (q.state) where.state = q.state;
-  const { rows, count } = await Part.findAndCountAll({ where, order: [['upgradeId', 'ASC'], ['id', 'ASC']], limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
+  const { rows, count } = await Part.findAndCountAll({
+    where,
+    order: [
+      ['upgradeId', 'ASC'],
+      ['id', 'ASC'],
+    ],
+    limit: q.pageSize,
+    offset: (q.page - 1) * q.pageSize,
+  });
   return { parts: rows.map(toPartRecord), total: count, page: q.page, pageSize: q.pageSize };
 }
 
@@ -34,7 +51,15 @@ export async function createPart(actor: Person, build: Build, input: CreatePartI
     const p = await Part.create({ ...(input as Required<CreatePartInput>), buildId: build.id }, { transaction: t });
     await p.reload({ transaction: t }); // version and database defaults
     const rec = toPartRecord(p);
-    await record(t, { actor, buildId: build.id, entity: 'part', entityId: p.id, action: 'create', summary: `Added part ${p.partNumber} to ${u!.title}`, after: rec });
+    await record(t, {
+      actor,
+      buildId: build.id,
+      entity: 'part',
+      entityId: p.id,
+      action: 'create',
+      summary: `Added part ${p.partNumber} to ${u!.title}`,
+      after: rec,
+    });
     return rec;
   });
 }
@@ -49,7 +74,11 @@ function refuseFields(actor: Person, input: UpdatePartInput) {
   ];
   const refused = keys.filter((k) => !allowed.includes(k));
   if (refused.length) throw forbidden(`Your role may not change ${refused.join(', ')} on a part.`);
-  if (input.state !== undefined && !actor.roles.includes('marketing') && !(INSTALLER_PART_STATES as readonly string[]).includes(input.state)) {
+  if (
+    input.state !== undefined &&
+    !actor.roles.includes('marketing') &&
+    !(INSTALLER_PART_STATES as readonly string[]).includes(input.state)
+  ) {
     throw forbidden('An installer may only mark a part received or fitted.');
   }
 }
@@ -62,17 +91,22 @@ export async function updatePart(actor: Person, build: Build, id: number, input:
     const { version: _v, ...fields } = input;
     if (fields.upgradeId !== undefined) await requireUpgradeInBuild(build.id, fields.upgradeId, 'upgradeId', t);
     // Receiving a part records the day, unless the person gave one.
-    if (fields.state === 'received' && p.state !== 'received' && fields.receivedOn === undefined && !p.receivedOn) fields.receivedOn = todayIn(build.timeZone);
+    if (fields.state === 'received' && p.state !== 'received' && fields.receivedOn === undefined && !p.receivedOn)
+      fields.receivedOn = todayIn(build.timeZone);
     const before = toPartRecord(p);
     p.set(fields as Partial<Part>);
     if (p.receivedOn && p.orderedOn && p.receivedOn < p.orderedOn) {
-      throw badRequest('Check these fields: receivedOn.', [{ path: 'receivedOn', message: 'cannot be before the order date' }]);
+      throw badRequest('Check these fields: receivedOn.', [
+        { path: 'receivedOn', message: 'cannot be before the order date' },
+      ]);
     }
     await p.save({ transaction: t });
     const after = toPartRecord(p);
     const changes = diff(before, after);
     const moved = arrivalMove(before.expectedArrival, after.expectedArrival);
-    const summary = moved ? `${moved} for part ${p.partNumber}` : `Changed part ${p.partNumber}: ${changedFields(changes)}`;
+    const summary = moved
+      ? `${moved} for part ${p.partNumber}`
+      : `Changed part ${p.partNumber}: ${changedFields(changes)}`;
     await record(t, { actor, buildId: build.id, entity: 'part', entityId: p.id, action: 'update', summary, changes });
     await afterPartChange(t, build, before, after);
     return after;
@@ -89,11 +123,23 @@ function arrivalMove(from: string | null, to: string | null): string | null {
 }
 
 /** A part coming later, or no longer coming, can make episodes slip: recompute and tell producers. */
-async function afterPartChange(t: Transaction, build: Build, before: ReturnType<typeof toPartRecord>, after: ReturnType<typeof toPartRecord>) {
+async function afterPartChange(
+  t: Transaction,
+  build: Build,
+  before: ReturnType<typeof toPartRecord>,
+  after: ReturnType<typeof toPartRecord>,
+) {
   const later = after.expectedArrival && (!before.expectedArrival || after.expectedArrival > before.expectedArrival);
   const stateChanged = before.state !== after.state;
   if (!later && !stateChanged) return;
-  if (later && !['received', 'fitted', 'returned'].includes(after.state)) await noticePartMovedLater(t, build, { id: after.id, partNumber: after.partNumber, description: after.description }, before.expectedArrival, after.expectedArrival!);
+  if (later && !['received', 'fitted', 'returned'].includes(after.state))
+    await noticePartMovedLater(
+      t,
+      build,
+      { id: after.id, partNumber: after.partNumber, description: after.description },
+      before.expectedArrival,
+      after.expectedArrival!,
+    );
   await refreshSlipNotices(t, build);
 }
 
@@ -102,6 +148,14 @@ export async function deletePart(actor: Person, build: Build, id: number) {
     const p = await findPart(build.id, id, t);
     const before = toPartRecord(p);
     await p.destroy({ transaction: t });
-    await record(t, { actor, buildId: build.id, entity: 'part', entityId: p.id, action: 'delete', summary: `Deleted part ${p.partNumber}`, before });
+    await record(t, {
+      actor,
+      buildId: build.id,
+      entity: 'part',
+      entityId: p.id,
+      action: 'delete',
+      summary: `Deleted part ${p.partNumber}`,
+      before,
+    });
   });
 }

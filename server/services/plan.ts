@@ -6,14 +6,28 @@ import { AppError, badRequest, type FieldError } from '../errors';
 import { record, type Actor } from './activity';
 import { LOCKED_STATES, listEpisodes, renumber } from './episodes';
 import { capacityOf, currentPlan, loadPlanData, plannerInput, today, type Capacity, type PlanData } from './planData';
-import { minimumShopDays, proposePlan, validatePlan, type PlannerInput, type PlanViolation } from '../../shared/planner/index';
+import {
+  minimumShopDays,
+  proposePlan,
+  validatePlan,
+  type PlannerInput,
+  type PlanViolation,
+} from '../../shared/planner/index';
 import { findCycle } from '../../shared/planner/criticalPath';
 import { bayForecast } from '../../shared/planner/forecast';
 import { toDay } from '../../shared/planner/dates';
 import { AREA_LABELS } from '../../shared/domain';
 import type { PlanDifference, ProposedEpisode } from '../../shared/contracts/plan';
 import type { PlanInputBody } from '../../shared/schemas/episode';
-import { assertPlanVersion, planVersion, recordRevision, refuseUnlistedDateChanges, lastUndoable, changeSummary, undoLastChange } from './planRevisions';
+import {
+  assertPlanVersion,
+  planVersion,
+  recordRevision,
+  refuseUnlistedDateChanges,
+  lastUndoable,
+  changeSummary,
+  undoLastChange,
+} from './planRevisions';
 import { addDays } from '../../shared/dates';
 
 /** Five shop days a week (common practice), so a shop day is a fifth of the weekly hours. */
@@ -31,10 +45,19 @@ function cycleTitles(data: PlanData, ids: number[]) {
 function refuseCycle(data: PlanData) {
   const edges: [number, number][] = [];
   for (const u of data.upgrades) for (const p of u.prerequisiteIds) edges.push([p, u.id]);
-  const cycle = findCycle(data.upgrades.map((u) => u.id), edges);
+  const cycle = findCycle(
+    data.upgrades.map((u) => u.id),
+    edges,
+  );
   if (!cycle) return;
   const titles = cycleTitles(data, cycle);
-  throw new AppError(422, 'cycle', `Prerequisites form a cycle: ${[...titles, titles[0]].join(' → ')}. Remove one of these prerequisites first.`, undefined, { cycle: titles, cycleIds: cycle });
+  throw new AppError(
+    422,
+    'cycle',
+    `Prerequisites form a cycle: ${[...titles, titles[0]].join(' → ')}. Remove one of these prerequisites first.`,
+    undefined,
+    { cycle: titles, cycleIds: cycle },
+  );
 }
 
 /**
@@ -58,7 +81,10 @@ export async function criticalSummary(data: PlanData, input: PlannerInput) {
   );
   if (!forecast.ok) return null;
   const title = new Map(data.upgrades.map((u) => [u.id, u.title]));
-  const drivingPart = forecast.drivenByRelease === null ? null : await latePart(forecast.drivenByRelease, title.get(forecast.drivenByRelease) ?? '');
+  const drivingPart =
+    forecast.drivenByRelease === null
+      ? null
+      : await latePart(forecast.drivenByRelease, title.get(forecast.drivenByRelease) ?? '');
   const finishDays = Math.ceil(forecast.days - 1e-9);
   return {
     hours: r.hours,
@@ -81,7 +107,14 @@ async function latePart(upgradeId: number, upgradeTitle: string) {
     { replacements: { upgradeId }, type: QueryTypes.SELECT },
   );
   if (!row) return null;
-  return { upgradeId, upgradeTitle, partId: row.id, partNumber: row.part_number, description: row.description, expectedArrival: row.expected };
+  return {
+    upgradeId,
+    upgradeTitle,
+    partId: row.id,
+    partNumber: row.part_number,
+    description: row.description,
+    expectedArrival: row.expected,
+  };
 }
 
 /** What the planner screen needs: the episodes, the planner input for checking drafts, violations. */
@@ -92,7 +125,14 @@ export async function planOverview(build: Build) {
   const [version, undoable] = await Promise.all([planVersion(build.id), lastUndoable(build.id)]);
   return {
     planVersion: version,
-    undo: undoable ? { number: undoable.number, summary: undoable.summary, userName: undoable.userName, createdAt: undoable.createdAt.toISOString() } : null,
+    undo: undoable
+      ? {
+          number: undoable.number,
+          summary: undoable.summary,
+          userName: undoable.userName,
+          createdAt: undoable.createdAt.toISOString(),
+        }
+      : null,
     episodes: data.episodes,
     upgrades: data.upgrades,
     input,
@@ -118,7 +158,10 @@ export async function propose(build: Build, over: Partial<Capacity>) {
   const plan = proposePlan(input);
   if (!plan.ok) {
     const titles = cycleTitles(data, plan.cycle);
-    throw new AppError(422, 'cycle', `Prerequisites form a cycle: ${[...titles, titles[0]].join(' → ')}.`, undefined, { cycle: titles, cycleIds: plan.cycle });
+    throw new AppError(422, 'cycle', `Prerequisites form a cycle: ${[...titles, titles[0]].join(' → ')}.`, undefined, {
+      cycle: titles,
+      cycleIds: plan.cycle,
+    });
   }
   // Locked episodes keep their ids by number; the rest of the existing episodes are reused in
   // series order for the new ones, so their titles and records carry over.
@@ -146,9 +189,23 @@ export async function propose(build: Build, over: Partial<Capacity>) {
   let next = Math.max(0, ...episodes.map((e) => e.number)) + 1;
   // Existing episodes the proposal does not need stay in the series, emptied, at the end.
   for (const e of reusable) {
-    episodes.push({ id: e.id, number: next++, title: e.title, state: e.state, shootDate: e.shootDate, releaseDate: e.releaseDate, area: null, hours: 0, upgradeIds: [], locked: false, oversize: false });
+    episodes.push({
+      id: e.id,
+      number: next++,
+      title: e.title,
+      state: e.state,
+      shootDate: e.shootDate,
+      releaseDate: e.releaseDate,
+      area: null,
+      hours: 0,
+      upgradeIds: [],
+      locked: false,
+      oversize: false,
+    });
   }
-  const violations = validatePlan(plannerInput(data, cap, false), { episodes: episodes.map((e) => ({ number: e.number, shootDate: e.shootDate, upgradeIds: e.upgradeIds })) });
+  const violations = validatePlan(plannerInput(data, cap, false), {
+    episodes: episodes.map((e) => ({ number: e.number, shootDate: e.shootDate, upgradeIds: e.upgradeIds })),
+  });
   return {
     planVersion: await planVersion(build.id),
     summary: changeSummary(data, episodes),
@@ -170,9 +227,15 @@ export async function propose(build: Build, over: Partial<Capacity>) {
 function differences(data: PlanData, proposed: ProposedEpisode[]): PlanDifference[] {
   type Where = { episodeId: number | null; key: string; number: number; position: number };
   const was = new Map<number, Where>();
-  for (const e of data.episodes) e.upgradeIds.forEach((id, position) => was.set(id, { episodeId: e.id, key: `id${e.id}`, number: e.number, position }));
+  for (const e of data.episodes)
+    e.upgradeIds.forEach((id, position) =>
+      was.set(id, { episodeId: e.id, key: `id${e.id}`, number: e.number, position }),
+    );
   const will = new Map<number, Where>();
-  for (const e of proposed) e.upgradeIds.forEach((id, position) => will.set(id, { episodeId: e.id, key: e.id ? `id${e.id}` : `new${e.number}`, number: e.number, position }));
+  for (const e of proposed)
+    e.upgradeIds.forEach((id, position) =>
+      will.set(id, { episodeId: e.id, key: e.id ? `id${e.id}` : `new${e.number}`, number: e.number, position }),
+    );
   const out: PlanDifference[] = [];
   for (const u of data.upgrades) {
     const a = was.get(u.id);
@@ -196,7 +259,10 @@ function differences(data: PlanData, proposed: ProposedEpisode[]): PlanDifferenc
  */
 export async function applyPlan(actor: Actor, build: Build, body: PlanInputBody) {
   return sequelize.transaction(async (t) => {
-    await sequelize.query('SELECT id FROM builds WHERE id = :id FOR UPDATE', { replacements: { id: build.id }, transaction: t });
+    await sequelize.query('SELECT id FROM builds WHERE id = :id FOR UPDATE', {
+      replacements: { id: build.id },
+      transaction: t,
+    });
     // A plan made from an older version (another apply or undo came first) is refused whole.
     await assertPlanVersion(t, build.id, body.basedOn);
     const data = await loadPlanData(build, t);
@@ -210,7 +276,13 @@ export async function applyPlan(actor: Actor, build: Build, body: PlanInputBody)
  * The writing part of an apply, inside the caller's transaction with the build locked: checks
  * everything first, then writes. Also used by undo to restore an earlier plan.
  */
-export async function applyLoadedPlan(t: Transaction, actor: Actor, build: Build, data: PlanData, body: Omit<PlanInputBody, 'basedOn'>) {
+export async function applyLoadedPlan(
+  t: Transaction,
+  actor: Actor,
+  build: Build,
+  data: PlanData,
+  body: Omit<PlanInputBody, 'basedOn'>,
+) {
   const epById = new Map(data.episodes.map((e) => [e.id, e]));
   const upById = new Map(data.upgrades.map((u) => [u.id, u]));
   const fields: FieldError[] = [];
@@ -222,11 +294,13 @@ export async function applyLoadedPlan(t: Transaction, actor: Actor, build: Build
       else if (seenEp.has(e.id)) fields.push({ path: `episodes.${i}.id`, message: 'is listed twice' });
       seenEp.add(e.id);
     }
-    if (e.id === undefined && !e.title) fields.push({ path: `episodes.${i}.title`, message: 'is required for a new episode' });
+    if (e.id === undefined && !e.title)
+      fields.push({ path: `episodes.${i}.title`, message: 'is required for a new episode' });
     const existing = e.id !== undefined ? epById.get(e.id) : undefined;
-    const shoot = e.shootDate !== undefined ? e.shootDate : existing?.shootDate ?? null;
-    const release = e.releaseDate !== undefined ? e.releaseDate : existing?.releaseDate ?? null;
-    if (shoot && release && release < shoot) fields.push({ path: `episodes.${i}.releaseDate`, message: 'must be on or after the shoot date' });
+    const shoot = e.shootDate !== undefined ? e.shootDate : (existing?.shootDate ?? null);
+    const release = e.releaseDate !== undefined ? e.releaseDate : (existing?.releaseDate ?? null);
+    if (shoot && release && release < shoot)
+      fields.push({ path: `episodes.${i}.releaseDate`, message: 'must be on or after the shoot date' });
     e.upgradeIds.forEach((uid, j) => {
       const path = `episodes.${i}.upgradeIds.${j}`;
       if (!upById.has(uid)) fields.push({ path, message: 'is not an upgrade of this build' });
@@ -243,7 +317,13 @@ export async function applyLoadedPlan(t: Transaction, actor: Actor, build: Build
     if (!LOCKED_STATES.includes(ep.state)) continue;
     const after = listed.get(ep.id) ?? ep.upgradeIds.filter((id) => !seenUp.has(id));
     if (JSON.stringify(after) !== JSON.stringify(ep.upgradeIds)) {
-      throw new AppError(409, 'episode_locked', `Episode ${ep.number} (${ep.title}) has been filmed; its upgrades cannot change.`, undefined, { episodeId: ep.id });
+      throw new AppError(
+        409,
+        'episode_locked',
+        `Episode ${ep.number} (${ep.title}) has been filmed; its upgrades cannot change.`,
+        undefined,
+        { episodeId: ep.id },
+      );
     }
   }
   refuseCycle(data);
@@ -256,11 +336,29 @@ export async function applyLoadedPlan(t: Transaction, actor: Actor, build: Build
     let epId = e.id;
     if (epId === undefined) {
       const created = await Episode.create(
-        { buildId: build.id, number: ++tempNumber, title: e.title!, summary: null, shootDate: e.shootDate ?? null, releaseDate: e.releaseDate ?? null, videoUrl: null, runtimeSeconds: null, publishedAt: null },
+        {
+          buildId: build.id,
+          number: ++tempNumber,
+          title: e.title!,
+          summary: null,
+          shootDate: e.shootDate ?? null,
+          releaseDate: e.releaseDate ?? null,
+          videoUrl: null,
+          runtimeSeconds: null,
+          publishedAt: null,
+        },
         { transaction: t },
       );
       epId = created.id;
-      await record(t, { actor, buildId: build.id, entity: 'episode', entityId: epId, action: 'create', summary: `Added episode "${created.title}" with the plan`, after: { title: created.title, shootDate: created.shootDate, releaseDate: created.releaseDate } });
+      await record(t, {
+        actor,
+        buildId: build.id,
+        entity: 'episode',
+        entityId: epId,
+        action: 'create',
+        summary: `Added episode "${created.title}" with the plan`,
+        after: { title: created.title, shootDate: created.shootDate, releaseDate: created.releaseDate },
+      });
     } else if (e.shootDate !== undefined || e.releaseDate !== undefined || e.title !== undefined) {
       const ep = await Episode.findOne({ where: { id: epId, buildId: build.id }, transaction: t });
       const before = { title: ep!.title, shootDate: ep!.shootDate, releaseDate: ep!.releaseDate };
@@ -269,7 +367,16 @@ export async function applyLoadedPlan(t: Transaction, actor: Actor, build: Build
       if (e.releaseDate !== undefined) ep!.releaseDate = e.releaseDate;
       if (ep!.changed()) {
         await ep!.save({ transaction: t });
-        await record(t, { actor, buildId: build.id, entity: 'episode', entityId: epId, action: 'update', summary: `Changed episode "${ep!.title}" with the plan`, before, after: { title: ep!.title, shootDate: ep!.shootDate, releaseDate: ep!.releaseDate } });
+        await record(t, {
+          actor,
+          buildId: build.id,
+          entity: 'episode',
+          entityId: epId,
+          action: 'update',
+          summary: `Changed episode "${ep!.title}" with the plan`,
+          before,
+          after: { title: ep!.title, shootDate: ep!.shootDate, releaseDate: ep!.releaseDate },
+        });
       }
     }
     order.push(epId);
@@ -278,7 +385,8 @@ export async function applyLoadedPlan(t: Transaction, actor: Actor, build: Build
   for (const ep of data.episodes) {
     if (order.includes(ep.id)) continue;
     order.push(ep.id);
-    if (LOCKED_STATES.includes(ep.state)) ep.upgradeIds.forEach((uid, position) => assignment.set(uid, { episodeId: ep.id, position }));
+    if (LOCKED_STATES.includes(ep.state))
+      ep.upgradeIds.forEach((uid, position) => assignment.set(uid, { episodeId: ep.id, position }));
   }
   await renumber(build.id, order, t);
 
@@ -295,7 +403,10 @@ export async function applyLoadedPlan(t: Transaction, actor: Actor, build: Build
       replacements[`u${i}`] = u.id;
       replacements[`e${i}`] = a?.episodeId ?? null;
       replacements[`p${i}`] = a?.position ?? null;
-      changes[u.title] = [u.episodeId ? epById.get(u.episodeId)?.number ?? null : null, a ? order.indexOf(a.episodeId) + 1 : null];
+      changes[u.title] = [
+        u.episodeId ? (epById.get(u.episodeId)?.number ?? null) : null,
+        a ? order.indexOf(a.episodeId) + 1 : null,
+      ];
     });
     // Bumping the version makes an upgrade form opened before the plan changed answer 409.
     await sequelize.query(
@@ -306,14 +417,21 @@ export async function applyLoadedPlan(t: Transaction, actor: Actor, build: Build
   }
   const movedCount = Object.values(changes).filter(([a, b]) => a !== b).length;
   await record(t, {
-    actor, buildId: build.id, entity: 'plan', entityId: build.id, action: 'apply',
+    actor,
+    buildId: build.id,
+    entity: 'plan',
+    entityId: build.id,
+    action: 'apply',
     summary: `Applied a plan of ${order.length} episodes (${movedCount} upgrades changed episode)`,
     changes,
   });
   const after = await loadPlanData(build, t);
-  return { after, episodes: await listEpisodes(build.id, t), violations: validatePlan(plannerInput(after, capacityOf(build), false), currentPlan(after)) };
+  return {
+    after,
+    episodes: await listEpisodes(build.id, t),
+    violations: validatePlan(plannerInput(after, capacityOf(build), false), currentPlan(after)),
+  };
 }
-
 
 /** Takes back the last applied plan change (see planRevisions). */
 export function undoLastPlanChange(actor: Actor, build: Build, basedOn: number) {

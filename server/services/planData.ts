@@ -37,8 +37,16 @@ export async function loadPlanData(build: Build, t?: Transaction): Promise<PlanD
   const replacements = { buildId: build.id };
   const [rows, edges, eps, ids, votes] = await Promise.all([
     sequelize.query<{
-      id: number; title: string; area: Area; estimated_hours: number; priority: number; install_state: InstallState;
-      episode_id: number | null; episode_position: number | null; parts_due: string | null; parts_undated: number;
+      id: number;
+      title: string;
+      area: Area;
+      estimated_hours: number;
+      priority: number;
+      install_state: InstallState;
+      episode_id: number | null;
+      episode_position: number | null;
+      parts_due: string | null;
+      parts_undated: number;
     }>(
       // Parts not yet in hand (not received, fitted or returned) decide when an upgrade can be shot.
       `SELECT u.id, u.title, u.area, u.estimated_hours, u.priority, u.install_state, u.episode_id, u.episode_position,
@@ -145,6 +153,7 @@ export function plannerInput(data: PlanData, cap: Capacity, forProposal: boolean
 
 /** The plan as it stands in the database, for validatePlan. */
 export function currentPlan(data: PlanData): PlanToValidate {
-  return { episodes: data.episodes.map((e) => ({ number: e.number, shootDate: e.shootDate, upgradeIds: e.upgradeIds })) };
+  return {
+    episodes: data.episodes.map((e) => ({ number: e.number, shootDate: e.shootDate, upgradeIds: e.upgradeIds })),
+  };
 }
-

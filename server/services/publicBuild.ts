@@ -42,9 +42,22 @@ export async function publicBuildView(slug: string) {
 async function publicBuildViewOf(slug: string) {
   const build = await publicBuildBySlug(slug);
   const [upgrades, episodes, requests] = await Promise.all([
-    Upgrade.findAll({ where: { buildId: build.id }, order: [['episodePosition', 'ASC'], ['title', 'ASC']] }),
+    Upgrade.findAll({
+      where: { buildId: build.id },
+      order: [
+        ['episodePosition', 'ASC'],
+        ['title', 'ASC'],
+      ],
+    }),
     Episode.findAll({ where: { buildId: build.id, state: 'live' }, order: [['number', 'ASC']] }),
-    sequelize.query<{ id: number; title: string; details: string | null; state: string; upgrade_id: number | null; votes: number }>(
+    sequelize.query<{
+      id: number;
+      title: string;
+      details: string | null;
+      state: string;
+      upgrade_id: number | null;
+      votes: number;
+    }>(
       `SELECT r.id, r.title, r.details, r.state, r.upgrade_id,
               count(v.id) FILTER (WHERE v.confirmed_at IS NOT NULL)::int AS votes
        FROM viewer_requests r LEFT JOIN viewer_votes v ON v.request_id = r.id
@@ -89,7 +102,12 @@ async function publicBuildViewOf(slug: string) {
       vehicle: { year: build.year, make: build.make, model: build.model, trim: build.trim },
       summary: build.summary,
     },
-    counts: { planned: counts.planned, inProgress: counts.in_progress, comingSoon: counts.coming_soon, done: counts.done },
+    counts: {
+      planned: counts.planned,
+      inProgress: counts.in_progress,
+      comingSoon: counts.coming_soon,
+      done: counts.done,
+    },
     areas,
     episodes: episodes.map((e) => ({
       number: e.number,
@@ -106,7 +124,7 @@ async function publicBuildViewOf(slug: string) {
       details: r.details,
       state: r.state as 'new' | 'accepted',
       votes: r.votes,
-      upgrade: r.upgrade_id ? titleOf.get(r.upgrade_id) ?? null : null,
+      upgrade: r.upgrade_id ? (titleOf.get(r.upgrade_id) ?? null) : null,
     })),
   };
   return { buildId: build.id, view };

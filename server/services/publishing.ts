@@ -14,7 +14,11 @@ import type { PublishInput, PutChaptersInput } from '../../shared/schemas/publis
 import type { Transaction } from 'sequelize';
 
 async function episodeOf(buildId: number, episodeId: number, t?: Transaction, lock = false) {
-  const ep = await Episode.findOne({ where: { id: episodeId, buildId }, transaction: t, ...(lock && t ? { lock: t.LOCK.UPDATE } : {}) });
+  const ep = await Episode.findOne({
+    where: { id: episodeId, buildId },
+    transaction: t,
+    ...(lock && t ? { lock: t.LOCK.UPDATE } : {}),
+  });
   if (!ep) throw notFound('Episode');
   return ep;
 }
@@ -47,24 +51,48 @@ export async function putChapters(actor: Actor, buildId: number, episodeId: numb
     refuseBadChapters(input.chapters, runtime);
     const wanted = [...new Set(input.chapters.map((c) => c.upgradeId).filter((x): x is number => x !== null))];
     if (wanted.length) {
-      const found = new Set((await Upgrade.findAll({ where: { id: { [Op.in]: wanted }, buildId }, attributes: ['id'], transaction: t })).map((u) => u.id));
-      const bad = input.chapters.map((c, i) => ({ c, i })).filter(({ c }) => c.upgradeId !== null && !found.has(c.upgradeId));
+      const found = new Set(
+        (
+          await Upgrade.findAll({ where: { id: { [Op.in]: wanted }, buildId }, attributes: ['id'], transaction: t })
+        ).map((u) => u.id),
+      );
+      const bad = input.chapters
+        .map((c, i) => ({ c, i }))
+        .filter(({ c }) => c.upgradeId !== null && !found.has(c.upgradeId));
       if (bad.length) {
-        throw badRequest(`Chapter row ${bad.map((b) => b.i + 1).join(', ')} names an upgrade that is not in this build.`, bad.map((b) => ({ path: `chapters.${b.i}.upgradeId`, message: 'is not an upgrade of this build' })));
+        throw badRequest(
+          `Chapter row ${bad.map((b) => b.i + 1).join(', ')} names an upgrade that is not in this build.`,
+          bad.map((b) => ({ path: `chapters.${b.i}.upgradeId`, message: 'is not an upgrade of this build' })),
+        );
       }
     }
     const before = await chaptersOf(ep.id, t);
     await EpisodeChapter.destroy({ where: { episodeId: ep.id }, transaction: t });
     await EpisodeChapter.bulkCreate(
-      input.chapters.map((c, position) => ({ episodeId: ep.id, position, startSeconds: c.startSeconds, title: c.title.trim(), upgradeId: c.upgradeId })),
+      input.chapters.map((c, position) => ({
+        episodeId: ep.id,
+        position,
+        startSeconds: c.startSeconds,
+        title: c.title.trim(),
+        upgradeId: c.upgradeId,
+      })),
       { transaction: t },
     );
     if (runtime !== ep.runtimeSeconds) await ep.update({ runtimeSeconds: runtime ?? null }, { transaction: t });
     const after = await chaptersOf(ep.id, t);
     await record(t, {
-      actor, buildId, entity: 'episode', entityId: ep.id, action: 'chapters',
+      actor,
+      buildId,
+      entity: 'episode',
+      entityId: ep.id,
+      action: 'chapters',
       summary: `Set ${after.length} chapter${after.length === 1 ? '' : 's'} of episode ${ep.number}`,
-      changes: { chapters: [before.map((c) => `${formatChapterTime(c.startSeconds)} ${c.title}`), after.map((c) => `${formatChapterTime(c.startSeconds)} ${c.title}`)] },
+      changes: {
+        chapters: [
+          before.map((c) => `${formatChapterTime(c.startSeconds)} ${c.title}`),
+          after.map((c) => `${formatChapterTime(c.startSeconds)} ${c.title}`),
+        ],
+      },
     });
     return { chapters: after, runtimeSeconds: runtime ?? null };
   });
@@ -78,19 +106,37 @@ export async function showNotes(build: Build, episodeId: number) {
   const ep = await episodeOf(build.id, episodeId);
   const [chapters, upgrades] = await Promise.all([
     chaptersOf(ep.id),
-    Upgrade.findAll({ where: { buildId: build.id, episodeId: ep.id }, order: [['episodePosition', 'ASC'], ['id', 'ASC']] }),
+    Upgrade.findAll({
+      where: { buildId: build.id, episodeId: ep.id },
+      order: [
+        ['episodePosition', 'ASC'],
+        ['id', 'ASC'],
+      ],
+    }),
   ]);
   const order = new Map(upgrades.map((u, i) => [u.id, i]));
   const parts = upgrades.length
-    ? (await Part.findAll({ where: { buildId: build.id, upgradeId: { [Op.in]: upgrades.map((u) => u.id) }, state: { [Op.ne]: 'returned' } }, order: [['id', 'ASC']] })).sort(
-        (a, b) => order.get(a.upgradeId)! - order.get(b.upgradeId)! || a.id - b.id,
-      )
+    ? (
+        await Part.findAll({
+          where: {
+            buildId: build.id,
+            upgradeId: { [Op.in]: upgrades.map((u) => u.id) },
+            state: { [Op.ne]: 'returned' },
+          },
+          order: [['id', 'ASC']],
+        })
+      ).sort((a, b) => order.get(a.upgradeId)! - order.get(b.upgradeId)! || a.id - b.id)
     : [];
   return buildShowNotes({
     title: `Episode ${ep.number}: ${ep.title}`,
     summary: ep.summary,
     chapters,
-    parts: parts.map((p) => ({ partNumber: p.partNumber, description: p.description, productUrl: p.productUrl, upgradeId: p.upgradeId })),
+    parts: parts.map((p) => ({
+      partNumber: p.partNumber,
+      description: p.description,
+      productUrl: p.productUrl,
+      upgradeId: p.upgradeId,
+    })),
     upgrades: upgrades.map((u) => ({ id: u.id, title: u.title, safetyFlags: u.safetyFlags })),
     campaign: effectiveCampaign(build),
     episodeNumber: ep.number,
@@ -116,9 +162,16 @@ export async function publish(actor: LiveActor, buildId: number, episodeId: numb
     await ep.save({ transaction: t });
     const after = toRecord(ep, ids);
     await record(t, {
-      actor, buildId, entity: 'episode', entityId: ep.id, action: wasLive ? 'update' : 'publish',
-      summary: wasLive ? `Changed the video of live episode ${ep.number}` : `Published episode ${ep.number}: ${ep.title}`,
-      before: before as unknown as Record<string, unknown>, after: after as unknown as Record<string, unknown>,
+      actor,
+      buildId,
+      entity: 'episode',
+      entityId: ep.id,
+      action: wasLive ? 'update' : 'publish',
+      summary: wasLive
+        ? `Changed the video of live episode ${ep.number}`
+        : `Published episode ${ep.number}: ${ep.title}`,
+      before: before as unknown as Record<string, unknown>,
+      after: after as unknown as Record<string, unknown>,
     });
     // Once per person per episode (the mail queue's dedupe key), so a re-publish sends nothing new.
     if (!wasLive) await afterGoLive(t, ep);
@@ -160,8 +213,15 @@ export async function setCampaign(actor: Actor, build: Build, campaign: string |
     if (before === campaign) return { campaign, effective: effectiveCampaign(build) };
     build.campaign = campaign;
     await build.save({ transaction: t });
-    await record(t, { actor, buildId: build.id, entity: 'build', entityId: build.id, action: 'campaign', summary: `Campaign set to ${campaign ?? `(none: links use ${build.slug})`}`, changes: { campaign: [before, campaign] } });
+    await record(t, {
+      actor,
+      buildId: build.id,
+      entity: 'build',
+      entityId: build.id,
+      action: 'campaign',
+      summary: `Campaign set to ${campaign ?? `(none: links use ${build.slug})`}`,
+      changes: { campaign: [before, campaign] },
+    });
     return { campaign, effective: effectiveCampaign(build) };
   });
 }
-

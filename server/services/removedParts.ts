@@ -21,9 +21,20 @@ async function find(buildId: number, id: number, t: import('sequelize').Transact
 export async function createRemovedPart(actor: Person, build: Build, input: CreateRemovedPartInput) {
   return sequelize.transaction(async (t) => {
     await requireUpgradeInBuild(build.id, input.upgradeId, 'upgradeId', t);
-    const r = await RemovedPart.create({ ...(input as Required<CreateRemovedPartInput>), upgradeId: input.upgradeId ?? null, buildId: build.id }, { transaction: t });
+    const r = await RemovedPart.create(
+      { ...(input as Required<CreateRemovedPartInput>), upgradeId: input.upgradeId ?? null, buildId: build.id },
+      { transaction: t },
+    );
     const rec = toRemovedPartRecord(r);
-    await record(t, { actor, buildId: build.id, entity: 'removed_part', entityId: r.id, action: 'create', summary: `Recorded removed part ${r.description}`, after: rec });
+    await record(t, {
+      actor,
+      buildId: build.id,
+      entity: 'removed_part',
+      entityId: r.id,
+      action: 'create',
+      summary: `Recorded removed part ${r.description}`,
+      after: rec,
+    });
     return rec;
   });
 }
@@ -37,7 +48,15 @@ export async function updateRemovedPart(actor: Person, build: Build, id: number,
     await r.save({ transaction: t });
     const after = toRemovedPartRecord(r);
     const changes = diff(before, after);
-    await record(t, { actor, buildId: build.id, entity: 'removed_part', entityId: r.id, action: 'update', summary: `Changed removed part ${r.description}: ${changedFields(changes)}`, changes });
+    await record(t, {
+      actor,
+      buildId: build.id,
+      entity: 'removed_part',
+      entityId: r.id,
+      action: 'update',
+      summary: `Changed removed part ${r.description}: ${changedFields(changes)}`,
+      changes,
+    });
     return after;
   });
 }
@@ -47,6 +66,14 @@ export async function deleteRemovedPart(actor: Person, build: Build, id: number)
     const r = await find(build.id, id, t);
     const before = toRemovedPartRecord(r);
     await r.destroy({ transaction: t });
-    await record(t, { actor, buildId: build.id, entity: 'removed_part', entityId: r.id, action: 'delete', summary: `Deleted removed part ${r.description}`, before });
+    await record(t, {
+      actor,
+      buildId: build.id,
+      entity: 'removed_part',
+      entityId: r.id,
+      action: 'delete',
+      summary: `Deleted removed part ${r.description}`,
+      before,
+    });
   });
 }

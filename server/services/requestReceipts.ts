@@ -31,10 +31,13 @@ export async function claimReceipt(userId: number, key: string, method: string, 
     if (Math.random() < 0.02) await sweepReceipts();
     return { state: 'new' };
   }
-  const [row] = await sequelize.query<Row>('SELECT method, path, status, body FROM request_receipts WHERE user_id = :userId AND key = :key', {
-    replacements: { userId, key },
-    type: QueryTypes.SELECT,
-  });
+  const [row] = await sequelize.query<Row>(
+    'SELECT method, path, status, body FROM request_receipts WHERE user_id = :userId AND key = :key',
+    {
+      replacements: { userId, key },
+      type: QueryTypes.SELECT,
+    },
+  );
   if (!row) return claimReceipt(userId, key, method, path); // released meanwhile: try again
   if (row.method !== method || row.path !== path) return { state: 'mismatch', method: row.method, path: row.path };
   if (row.status === null) return { state: 'busy' };
@@ -43,14 +46,19 @@ export async function claimReceipt(userId: number, key: string, method: string, 
 
 /** Keeps the answer the claimed request got. */
 export async function keepReceipt(userId: number, key: string, status: number, body: unknown) {
-  await sequelize.query('UPDATE request_receipts SET status = :status, body = CAST(:body AS JSONB) WHERE user_id = :userId AND key = :key', {
-    replacements: { userId, key, status, body: JSON.stringify(body ?? null) },
-  });
+  await sequelize.query(
+    'UPDATE request_receipts SET status = :status, body = CAST(:body AS JSONB) WHERE user_id = :userId AND key = :key',
+    {
+      replacements: { userId, key, status, body: JSON.stringify(body ?? null) },
+    },
+  );
 }
 
 /** Lets the key be used again (the request failed on the server's side, so a retry may succeed). */
 export async function releaseReceipt(userId: number, key: string) {
-  await sequelize.query('DELETE FROM request_receipts WHERE user_id = :userId AND key = :key AND status IS NULL', { replacements: { userId, key } });
+  await sequelize.query('DELETE FROM request_receipts WHERE user_id = :userId AND key = :key AND status IS NULL', {
+    replacements: { userId, key },
+  });
 }
 
 export async function sweepReceipts() {

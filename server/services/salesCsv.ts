@@ -50,7 +50,10 @@ function realDate(d: string): boolean {
 
 /** "1,299.50" / "$1299.5" / "-199.00" → cents; null when it is not an amount. */
 export function moneyToCents(cell: string): number | null {
-  const s = cell.replace(/\s/g, '').replace(/^(-?)[$€£¥]/, '$1').replace(/^[$€£¥](-)/, '$1');
+  const s = cell
+    .replace(/\s/g, '')
+    .replace(/^(-?)[$€£¥]/, '$1')
+    .replace(/^[$€£¥](-)/, '$1');
   const m = MONEY.exec(s);
   if (!m) return null;
   const [whole, frac = ''] = s.replace('-', '').replace(/,/g, '').split('.');
@@ -59,7 +62,9 @@ export function moneyToCents(cell: string): number | null {
 }
 
 export const dedupeKey = (l: Pick<ParsedSaleLine, 'orderId' | 'lineId' | 'sku' | 'quantity' | 'revenueCents'>) =>
-  l.lineId !== null ? `L\u0000${l.orderId}\u0000${l.lineId}` : `S\u0000${l.orderId}\u0000${l.sku}\u0000${l.quantity}\u0000${l.revenueCents}`;
+  l.lineId !== null
+    ? `L\u0000${l.orderId}\u0000${l.lineId}`
+    : `S\u0000${l.orderId}\u0000${l.sku}\u0000${l.quantity}\u0000${l.revenueCents}`;
 
 export interface ReadResult {
   header: string[];
@@ -78,12 +83,18 @@ export function readSalesCsv(text: string, mapping: SalesMapping, buildCurrency:
     const col = mapping[f.key];
     if (!col) continue;
     const i = header.indexOf(col);
-    if (i < 0) errors.push({ line: 1, column: col, message: `is not a column of this file (it is mapped as ${f.label.toLowerCase()})` });
+    if (i < 0)
+      errors.push({
+        line: 1,
+        column: col,
+        message: `is not a column of this file (it is mapped as ${f.label.toLowerCase()})`,
+      });
     else index[f.key] = i;
   }
   // Papaparse counts rows from 0 with the header as row 0, so row r is line r + 1.
   for (const e of parsed.errors) errors.push({ line: (e.row ?? 0) + 1, column: '(row)', message: e.message });
-  if (header.every((h) => h === '')) errors.push({ line: 1, column: '(header)', message: 'The first line must name the columns.' });
+  if (header.every((h) => h === ''))
+    errors.push({ line: 1, column: '(header)', message: 'The first line must name the columns.' });
   if (errors.some((e) => e.line === 1 && e.column !== '(row)')) return { header, lines: [], linesRead: 0, errors };
 
   const lines: ParsedSaleLine[] = [];
@@ -94,7 +105,12 @@ export function readSalesCsv(text: string, mapping: SalesMapping, buildCurrency:
     if (cells.every((c) => c.trim() === '')) return;
     linesRead++;
     if (linesRead > MAX_SALES_LINES) {
-      if (linesRead === MAX_SALES_LINES + 1) errors.push({ line, column: '(row)', message: `A file may hold at most ${MAX_SALES_LINES.toLocaleString('en-US')} lines; split it.` });
+      if (linesRead === MAX_SALES_LINES + 1)
+        errors.push({
+          line,
+          column: '(row)',
+          message: `A file may hold at most ${MAX_SALES_LINES.toLocaleString('en-US')} lines; split it.`,
+        });
       return;
     }
     const before = errors.length;
@@ -124,18 +140,21 @@ export function readSalesCsv(text: string, mapping: SalesMapping, buildCurrency:
     const dateCell = cell('date');
     const dm = DATE.exec(dateCell);
     const soldOn = dm && realDate(dm[1]!) ? dm[1]! : null;
-    if (!soldOn) bad('date', dateCell ? `"${dateCell}" is not a date (use YYYY-MM-DD, optionally with a time)` : 'is blank');
+    if (!soldOn)
+      bad('date', dateCell ? `"${dateCell}" is not a date (use YYYY-MM-DD, optionally with a time)` : 'is blank');
 
     const qCell = cell('quantity');
     let quantity: number | null = null;
-    if (/^[=+@]/.test(qCell)) bad('quantity', `starts with ${JSON.stringify(qCell[0])} like a spreadsheet formula; such cells are refused`);
+    if (/^[=+@]/.test(qCell))
+      bad('quantity', `starts with ${JSON.stringify(qCell[0])} like a spreadsheet formula; such cells are refused`);
     else if (!/^-?\d{1,6}$/.test(qCell)) bad('quantity', qCell ? `"${qCell}" is not a whole number` : 'is blank');
     else if (Number(qCell) === 0) bad('quantity', 'is 0; a line sells or refunds at least one unit');
     else quantity = Number(qCell);
 
     const rCell = cell('revenue');
     let revenueCents: number | null = null;
-    if (/^[=+@]/.test(rCell)) bad('revenue', `starts with ${JSON.stringify(rCell[0])} like a spreadsheet formula; such cells are refused`);
+    if (/^[=+@]/.test(rCell))
+      bad('revenue', `starts with ${JSON.stringify(rCell[0])} like a spreadsheet formula; such cells are refused`);
     else {
       revenueCents = moneyToCents(rCell);
       if (revenueCents === null) bad('revenue', rCell ? `"${rCell}" is not an amount (like 199.00)` : 'is blank');
@@ -145,8 +164,16 @@ export function readSalesCsv(text: string, mapping: SalesMapping, buildCurrency:
       }
     }
     if (quantity !== null && revenueCents !== null && !isRefund(quantity, revenueCents)) {
-      if (quantity < 0) bad('quantity', 'is below zero on a line that is not a refund (a refund has quantity and revenue both below zero)');
-      else if (revenueCents < 0) bad('revenue', 'is below zero on a line that is not a refund (a refund has quantity and revenue both below zero)');
+      if (quantity < 0)
+        bad(
+          'quantity',
+          'is below zero on a line that is not a refund (a refund has quantity and revenue both below zero)',
+        );
+      else if (revenueCents < 0)
+        bad(
+          'revenue',
+          'is below zero on a line that is not a refund (a refund has quantity and revenue both below zero)',
+        );
     }
 
     let currency = buildCurrency;
@@ -154,7 +181,11 @@ export function readSalesCsv(text: string, mapping: SalesMapping, buildCurrency:
       const c = textCell('currency', true)?.toUpperCase() ?? null;
       if (c !== null) {
         if (!isCurrencyCode(c)) bad('currency', `"${c}" is not a currency code we know`);
-        else if (c !== buildCurrency) bad('currency', `${c} is not this build's currency (${buildCurrency}); only ${buildCurrency} lines can be imported here`);
+        else if (c !== buildCurrency)
+          bad(
+            'currency',
+            `${c} is not this build's currency (${buildCurrency}); only ${buildCurrency} lines can be imported here`,
+          );
         else currency = c;
       }
     }
@@ -168,15 +199,41 @@ export function readSalesCsv(text: string, mapping: SalesMapping, buildCurrency:
       if (index.campaign !== undefined) campaign = textCell('campaign', false, MAX_TAG);
       if (index.content !== undefined) content = textCell('content', false, MAX_TAG);
     }
-    if ((campaign?.length ?? 0) > MAX_TAG || (content?.length ?? 0) > MAX_TAG) bad(index.landingUrl !== undefined ? 'landingUrl' : 'campaign', `a campaign tag is longer than ${MAX_TAG} characters`);
+    if ((campaign?.length ?? 0) > MAX_TAG || (content?.length ?? 0) > MAX_TAG)
+      bad(
+        index.landingUrl !== undefined ? 'landingUrl' : 'campaign',
+        `a campaign tag is longer than ${MAX_TAG} characters`,
+      );
 
-    if (errors.length > before || orderId === null || sku === null || soldOn === null || quantity === null || revenueCents === null) return;
-    const parsedLine: ParsedSaleLine = { line, orderId, lineId, soldOn, sku, quantity, revenueCents, currency, campaign, content, refund: quantity < 0, duplicateOf: null };
+    if (
+      errors.length > before ||
+      orderId === null ||
+      sku === null ||
+      soldOn === null ||
+      quantity === null ||
+      revenueCents === null
+    )
+      return;
+    const parsedLine: ParsedSaleLine = {
+      line,
+      orderId,
+      lineId,
+      soldOn,
+      sku,
+      quantity,
+      revenueCents,
+      currency,
+      campaign,
+      content,
+      refund: quantity < 0,
+      duplicateOf: null,
+    };
     const key = dedupeKey(parsedLine);
     parsedLine.duplicateOf = firstLine.get(key) ?? null;
     if (parsedLine.duplicateOf === null) firstLine.set(key, line);
     lines.push(parsedLine);
   });
-  if (linesRead === 0 && !errors.length) errors.push({ line: 2, column: '(row)', message: 'The file has a header but no lines.' });
+  if (linesRead === 0 && !errors.length)
+    errors.push({ line: 2, column: '(row)', message: 'The file has a header but no lines.' });
   return { header, lines, linesRead, errors };
 }

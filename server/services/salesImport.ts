@@ -23,7 +23,13 @@ export async function savedMapping(build: Build): Promise<Mapping | null> {
 export async function mappingFor(build: Build, given: unknown): Promise<Mapping> {
   if (given === undefined) {
     const saved = await savedMapping(build);
-    if (!saved) throw badRequest('Check these fields: mapping.', [{ path: 'mapping', message: 'is required: pick which column holds what (no mapping is remembered for this build yet)' }]);
+    if (!saved)
+      throw badRequest('Check these fields: mapping.', [
+        {
+          path: 'mapping',
+          message: 'is required: pick which column holds what (no mapping is remembered for this build yet)',
+        },
+      ]);
     return saved;
   }
   const parsed = salesMappingSchema.safeParse(given);
@@ -44,7 +50,14 @@ async function alreadyThere(buildId: number, lines: ParsedSaleLine[]): Promise<S
            AND ((x.l IS NOT NULL AND sl.line_id = x.l)
              OR (x.l IS NULL AND sl.line_id IS NULL AND sl.sku = x.s AND sl.quantity = x.q AND sl.revenue_cents = x.r)))`,
     {
-      bind: [buildId, lines.map((l) => l.orderId), lines.map((l) => l.lineId), lines.map((l) => l.sku), lines.map((l) => l.quantity), lines.map((l) => l.revenueCents)],
+      bind: [
+        buildId,
+        lines.map((l) => l.orderId),
+        lines.map((l) => l.lineId),
+        lines.map((l) => l.sku),
+        lines.map((l) => l.quantity),
+        lines.map((l) => l.revenueCents),
+      ],
       type: QueryTypes.SELECT,
     },
   );
@@ -84,7 +97,17 @@ export async function importSales(
   }
 
   return sequelize.transaction(async (t) => {
-    const imp = await SaleImport.create({ buildId: build.id, userId: actor.id, fileName: opts.fileName ?? null, linesRead, linesAdded: 0, linesSkipped: 0 }, { transaction: t });
+    const imp = await SaleImport.create(
+      {
+        buildId: build.id,
+        userId: actor.id,
+        fileName: opts.fileName ?? null,
+        linesRead,
+        linesAdded: 0,
+        linesSkipped: 0,
+      },
+      { transaction: t },
+    );
     const col = <K extends keyof ParsedSaleLine>(k: K) => unique.map((l) => l[k]);
     const [{ n: added }] = await sequelize.query<{ n: number }>(
       `WITH ins AS (
@@ -95,7 +118,19 @@ export async function importSales(
          RETURNING 1)
        SELECT count(*)::int AS n FROM ins`,
       {
-        bind: [build.id, imp.id, col('orderId'), col('lineId'), col('soldOn'), col('sku'), col('quantity'), col('revenueCents'), col('currency'), col('campaign'), col('content')],
+        bind: [
+          build.id,
+          imp.id,
+          col('orderId'),
+          col('lineId'),
+          col('soldOn'),
+          col('sku'),
+          col('quantity'),
+          col('revenueCents'),
+          col('currency'),
+          col('campaign'),
+          col('content'),
+        ],
         transaction: t,
         type: QueryTypes.SELECT,
       },
@@ -118,7 +153,20 @@ export async function importSales(
 
 /** Imports of a build, newest first. */
 export async function listImports(build: Build) {
-  const rows = await SaleImport.findAll({ where: { buildId: build.id }, order: [['createdAt', 'DESC'], ['id', 'DESC']], limit: 50 });
-  return rows.map((r) => ({ id: r.id, fileName: r.fileName, linesRead: r.linesRead, linesAdded: r.linesAdded, linesSkipped: r.linesSkipped, createdAt: r.createdAt.toISOString() }));
+  const rows = await SaleImport.findAll({
+    where: { buildId: build.id },
+    order: [
+      ['createdAt', 'DESC'],
+      ['id', 'DESC'],
+    ],
+    limit: 50,
+  });
+  return rows.map((r) => ({
+    id: r.id,
+    fileName: r.fileName,
+    linesRead: r.linesRead,
+    linesAdded: r.linesAdded,
+    linesSkipped: r.linesSkipped,
+    createdAt: r.createdAt.toISOString(),
+  }));
 }
-

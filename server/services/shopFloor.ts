@@ -25,9 +25,14 @@ async function pickEpisode(buildId: number, episodeId?: number) {
     if (!ep) throw notFound('Episode');
     return ep;
   }
-  const candidates = await Episode.findAll({ where: { buildId, state: { [Op.in]: [...WORKING_STATES] } }, order: [['number', 'ASC']] });
+  const candidates = await Episode.findAll({
+    where: { buildId, state: { [Op.in]: [...WORKING_STATES] } },
+    order: [['number', 'ASC']],
+  });
   const rank = (e: Episode) => WORKING_STATES.indexOf(e.state as (typeof WORKING_STATES)[number]);
-  candidates.sort((a, b) => rank(a) - rank(b) || (a.shootDate ?? '9999').localeCompare(b.shootDate ?? '9999') || a.number - b.number);
+  candidates.sort(
+    (a, b) => rank(a) - rank(b) || (a.shootDate ?? '9999').localeCompare(b.shootDate ?? '9999') || a.number - b.number,
+  );
   return candidates[0] ?? null;
 }
 
@@ -56,12 +61,24 @@ async function items(build: Build, viewer: Person, ids: number[]) {
     Upgrade.findAll({ where: { buildId: build.id, id: { [Op.in]: ids } } }),
     Part.findAll({ where: { buildId: build.id, upgradeId: { [Op.in]: ids } }, order: [['id', 'ASC']] }),
     UpgradePrerequisite.findAll({ where: { buildId: build.id, upgradeId: { [Op.in]: ids } } }),
-    Activity.findAll({ where: { buildId: build.id, entity: 'upgrade', entityId: { [Op.in]: ids }, action: 'caution_read', userId: viewer.id }, attributes: ['entityId'] }),
+    Activity.findAll({
+      where: {
+        buildId: build.id,
+        entity: 'upgrade',
+        entityId: { [Op.in]: ids },
+        action: 'caution_read',
+        userId: viewer.id,
+      },
+      attributes: ['entityId'],
+    }),
     hoursOf(build.id, ids, viewer.id, build.timeZone),
   ]);
   const prereqIds = [...new Set(edges.map((e) => e.prerequisiteId))];
   const prereqs = prereqIds.length
-    ? await Upgrade.findAll({ where: { buildId: build.id, id: { [Op.in]: prereqIds } }, attributes: ['id', 'title', 'installState'] })
+    ? await Upgrade.findAll({
+        where: { buildId: build.id, id: { [Op.in]: prereqIds } },
+        attributes: ['id', 'title', 'installState'],
+      })
     : [];
   const prereqById = new Map(prereqs.map((p) => [p.id, p]));
   const byId = new Map(ups.map((u) => [u.id, u]));
@@ -87,19 +104,42 @@ async function items(build: Build, viewer: Person, ids: number[]) {
 export async function shopFloor(build: Build, viewer: Person, episodeId?: number) {
   const [ep, choices, idsByEpisode, inBayRows] = await Promise.all([
     pickEpisode(build.id, episodeId),
-    Episode.findAll({ where: { buildId: build.id, state: { [Op.in]: [...WORKING_STATES] } }, order: [['number', 'ASC']] }),
+    Episode.findAll({
+      where: { buildId: build.id, state: { [Op.in]: [...WORKING_STATES] } },
+      order: [['number', 'ASC']],
+    }),
     upgradeIdsByEpisode(build.id),
-    Upgrade.findAll({ where: { buildId: build.id, installState: 'in_bay' }, attributes: ['id', 'episodeId'], order: [['id', 'ASC']] }),
+    Upgrade.findAll({
+      where: { buildId: build.id, installState: 'in_bay' },
+      attributes: ['id', 'episodeId'],
+      order: [['id', 'ASC']],
+    }),
   ]);
   const episodeOf = (e: Episode): EpisodeRecord => toRecord(e, idsByEpisode.get(e.id) ?? []);
-  const choiceList = choices.map((e) => ({ id: e.id, number: e.number, title: e.title, state: e.state, shootDate: e.shootDate }));
+  const choiceList = choices.map((e) => ({
+    id: e.id,
+    number: e.number,
+    title: e.title,
+    state: e.state,
+    shootDate: e.shootDate,
+  }));
   const ids = ep ? (idsByEpisode.get(ep.id) ?? []) : [];
   // In the bay now: in-bay work not already listed in the episode shown, so nothing shows twice.
   const inBayIds = inBayRows.filter((u) => !ids.includes(u.id)).map((u) => u.id);
   const { list, today: day } = await items(build, viewer, [...inBayIds, ...ids]);
   const episodeIds = [...new Set(inBayRows.map((u) => u.episodeId).filter((e): e is number => e !== null))];
-  const eps = episodeIds.length ? await Episode.findAll({ where: { buildId: build.id, id: { [Op.in]: episodeIds } } }) : [];
+  const eps = episodeIds.length
+    ? await Episode.findAll({ where: { buildId: build.id, id: { [Op.in]: episodeIds } } })
+    : [];
   const epById = new Map(eps.map((e) => [e.id, { id: e.id, number: e.number, title: e.title, state: e.state }]));
-  const inBay = list.slice(0, inBayIds.length).map((item) => ({ ...item, episode: epById.get(item.upgrade.episodeId ?? -1) ?? null }));
-  return { episode: ep ? episodeOf(ep) : null, inBay, upgrades: list.slice(inBayIds.length), choices: choiceList, today: day };
+  const inBay = list
+    .slice(0, inBayIds.length)
+    .map((item) => ({ ...item, episode: epById.get(item.upgrade.episodeId ?? -1) ?? null }));
+  return {
+    episode: ep ? episodeOf(ep) : null,
+    inBay,
+    upgrades: list.slice(inBayIds.length),
+    choices: choiceList,
+    today: day,
+  };
 }

@@ -16,7 +16,8 @@ export interface MissingPart {
   expectedArrival: string | null;
 }
 
-export const partWords = (p: MissingPart) => `${p.description} (${p.partNumber ? `${p.partNumber}, ` : ''}${PART_STATE_LABELS[p.state as keyof typeof PART_STATE_LABELS]})`;
+export const partWords = (p: MissingPart) =>
+  `${p.description} (${p.partNumber ? `${p.partNumber}, ` : ''}${PART_STATE_LABELS[p.state as keyof typeof PART_STATE_LABELS]})`;
 
 export async function partsNotReceived(u: Pick<Upgrade, 'id' | 'buildId'>, t?: Transaction): Promise<MissingPart[]> {
   const rows = await Part.findAll({
@@ -24,7 +25,12 @@ export async function partsNotReceived(u: Pick<Upgrade, 'id' | 'buildId'>, t?: T
     order: [['id', 'ASC']],
     transaction: t,
   });
-  return rows.map((p) => ({ description: p.description, partNumber: p.partNumber ?? null, state: p.state, expectedArrival: p.expectedArrival ?? null }));
+  return rows.map((p) => ({
+    description: p.description,
+    partNumber: p.partNumber ?? null,
+    state: p.state,
+    expectedArrival: p.expectedArrival ?? null,
+  }));
 }
 
 interface MarkFields {
@@ -37,7 +43,12 @@ interface MarkFields {
  * Refuses a change that breaks a mark rule; answers the parts not received that the person
  * confirmed going ahead without (empty when none), for the history.
  */
-export async function checkMarks(u: Upgrade, fields: MarkFields, confirmed: boolean | undefined, t: Transaction): Promise<MissingPart[]> {
+export async function checkMarks(
+  u: Upgrade,
+  fields: MarkFields,
+  confirmed: boolean | undefined,
+  t: Transaction,
+): Promise<MissingPart[]> {
   const installing = fields.installState === 'installed' && u.installState !== 'installed';
   if (confirmed !== undefined && !installing) {
     throw badRequest('Check these fields: confirmPartsNotReceived.', [
@@ -47,7 +58,9 @@ export async function checkMarks(u: Upgrade, fields: MarkFields, confirmed: bool
   const state = fields.installState ?? u.installState;
   const shooting = (['installSegment', 'demoSegment'] as const).filter((k) => fields[k] === 'shot' && u[k] !== 'shot');
   if (shooting.length && state === 'queued') {
-    const what = shooting.map((k) => (k === 'installSegment' ? 'the install segment' : 'the demo segment')).join(' and ');
+    const what = shooting
+      .map((k) => (k === 'installSegment' ? 'the install segment' : 'the demo segment'))
+      .join(' and ');
     throw new AppError(409, 'not_started', `${u.title} has not been started: start it before marking ${what} shot.`);
   }
   if (!installing) return [];

@@ -1,7 +1,18 @@
 // The backlog: upgrades of a build with filters, sorting and paging; create, update (optimistic lock,
 // installer limited to install and filming state), prerequisites without cycles, delete, history.
 import { Op, QueryTypes, literal, type Order, type Transaction, type WhereOptions } from 'sequelize';
-import { sequelize, Activity, Build, Episode, Expense, LabourEntry, Part, RemovedPart, Upgrade, UpgradePrerequisite } from '../models';
+import {
+  sequelize,
+  Activity,
+  Build,
+  Episode,
+  Expense,
+  LabourEntry,
+  Part,
+  RemovedPart,
+  Upgrade,
+  UpgradePrerequisite,
+} from '../models';
 import { AppError, badRequest, forbidden } from '../errors';
 import { record, diff } from './activity';
 import { seesMoney } from './visibility';
@@ -23,7 +34,12 @@ import {
 import { findCycle } from '../../shared/planner/criticalPath';
 import { checkMarks, partWords } from './upgradeMarks';
 import { cautionsFor } from '../../shared/safety';
-import { INSTALLER_UPGRADE_FIELDS, type CreateUpgradeInput, type UpdateUpgradeInput, type UpgradeListQuery } from '../../shared/schemas/upgrade';
+import {
+  INSTALLER_UPGRADE_FIELDS,
+  type CreateUpgradeInput,
+  type UpdateUpgradeInput,
+  type UpgradeListQuery,
+} from '../../shared/schemas/upgrade';
 import { todayIn } from '../../shared/dates';
 
 const isInstallerOnly = (p: Person) => !p.roles.some((r) => r === 'owner' || r === 'producer');
@@ -57,9 +73,21 @@ export async function listUpgrades(build: Build, q: UpgradeListQuery) {
           ['episodePosition', `${dir} NULLS LAST`],
           ['id', 'ASC'],
         ]
-      : [[SORT_COLUMNS[q.sort], dir], ['id', 'ASC']];
-  const { rows, count } = await Upgrade.findAndCountAll({ where, order, limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
-  const map = await prerequisiteMap(build.id, undefined, rows.map((r) => r.id));
+      : [
+          [SORT_COLUMNS[q.sort], dir],
+          ['id', 'ASC'],
+        ];
+  const { rows, count } = await Upgrade.findAndCountAll({
+    where,
+    order,
+    limit: q.pageSize,
+    offset: (q.page - 1) * q.pageSize,
+  });
+  const map = await prerequisiteMap(
+    build.id,
+    undefined,
+    rows.map((r) => r.id),
+  );
   return {
     upgrades: rows.map((u) => toUpgradeRecord(u, map.get(u.id) ?? [])),
     total: count,
@@ -74,8 +102,22 @@ export async function getUpgradeDetail(build: Build, id: number, viewer: Person)
   const [parts, removedParts, labour, expenses] = await Promise.all([
     Part.findAll({ where, order: [['id', 'ASC']] }),
     RemovedPart.findAll({ where, order: [['id', 'ASC']] }),
-    LabourEntry.findAll({ where, order: [['workedOn', 'DESC'], ['id', 'DESC']] }),
-    seesMoney(viewer) ? Expense.findAll({ where, order: [['spentOn', 'DESC'], ['id', 'DESC']] }) : Promise.resolve(null),
+    LabourEntry.findAll({
+      where,
+      order: [
+        ['workedOn', 'DESC'],
+        ['id', 'DESC'],
+      ],
+    }),
+    seesMoney(viewer)
+      ? Expense.findAll({
+          where,
+          order: [
+            ['spentOn', 'DESC'],
+            ['id', 'DESC'],
+          ],
+        })
+      : Promise.resolve(null),
   ]);
   return {
     upgrade: await upgradeRecord(u),
@@ -93,7 +135,10 @@ export async function getUpgradeDetail(build: Build, id: number, viewer: Person)
 async function requireEpisodeInBuild(buildId: number, episodeId: number | null | undefined, t: Transaction) {
   if (episodeId === null || episodeId === undefined) return;
   const ep = await Episode.findOne({ where: { id: episodeId, buildId }, transaction: t });
-  if (!ep) throw badRequest('Check these fields: episodeId.', [{ path: 'episodeId', message: 'is not an episode of this build' }]);
+  if (!ep)
+    throw badRequest('Check these fields: episodeId.', [
+      { path: 'episodeId', message: 'is not an episode of this build' },
+    ]);
 }
 
 async function requirePrerequisitesInBuild(buildId: number, ids: number[], t: Transaction) {
@@ -101,7 +146,9 @@ async function requirePrerequisitesInBuild(buildId: number, ids: number[], t: Tr
   if (!unique.length) return unique;
   const found = await Upgrade.count({ where: { buildId, id: { [Op.in]: unique } }, transaction: t });
   if (found !== unique.length) {
-    throw badRequest('Check these fields: prerequisiteIds.', [{ path: 'prerequisiteIds', message: 'names an upgrade that is not in this build' }]);
+    throw badRequest('Check these fields: prerequisiteIds.', [
+      { path: 'prerequisiteIds', message: 'names an upgrade that is not in this build' },
+    ]);
   }
   return unique;
 }
@@ -115,13 +162,24 @@ export async function createUpgrade(actor: Person, build: Build, input: CreateUp
     const u = await Upgrade.create({ ...(fields as Required<typeof fields>), buildId: build.id }, { transaction: t });
     await u.reload({ transaction: t }); // version and database defaults
     // A new upgrade has no dependants yet, so its prerequisites cannot close a cycle.
-    if (prereqs.length) await UpgradePrerequisite.bulkCreate(prereqs.map((p) => ({ buildId: build.id, upgradeId: u.id, prerequisiteId: p })), { transaction: t });
+    if (prereqs.length)
+      await UpgradePrerequisite.bulkCreate(
+        prereqs.map((p) => ({ buildId: build.id, upgradeId: u.id, prerequisiteId: p })),
+        { transaction: t },
+      );
     const rec = toUpgradeRecord(u, prereqs);
-    await record(t, { actor, buildId: build.id, entity: 'upgrade', entityId: u.id, action: 'create', summary: `Added upgrade ${u.title}`, after: rec });
+    await record(t, {
+      actor,
+      buildId: build.id,
+      entity: 'upgrade',
+      entityId: u.id,
+      action: 'create',
+      summary: `Added upgrade ${u.title}`,
+      after: rec,
+    });
     return rec;
   });
 }
-
 
 /** Titles of the prerequisites of `u` that are not installed yet. */
 async function uninstalledPrerequisites(u: Upgrade, t: Transaction) {
@@ -136,7 +194,8 @@ async function uninstalledPrerequisites(u: Upgrade, t: Transaction) {
 export async function updateUpgrade(actor: Person, build: Build, id: number, input: UpdateUpgradeInput) {
   if (isInstallerOnly(actor)) {
     const refused = Object.keys(input).filter((k) => !(INSTALLER_UPGRADE_FIELDS as readonly string[]).includes(k));
-    if (refused.length) throw forbidden(`An installer may change only install and filming state (not ${refused.join(', ')}).`);
+    if (refused.length)
+      throw forbidden(`An installer may change only install and filming state (not ${refused.join(', ')}).`);
   }
   return sequelize.transaction(async (t) => {
     const u = await findUpgrade(build.id, id, t, true);
@@ -148,7 +207,13 @@ export async function updateUpgrade(actor: Person, build: Build, id: number, inp
     if (entering && isInstallerOnly(actor)) {
       const missing = await uninstalledPrerequisites(u, t);
       if (missing.length) {
-        throw new AppError(409, 'prerequisites_not_installed', `Install these first: ${missing.join(', ')}.`, undefined, { prerequisites: missing });
+        throw new AppError(
+          409,
+          'prerequisites_not_installed',
+          `Install these first: ${missing.join(', ')}.`,
+          undefined,
+          { prerequisites: missing },
+        );
       }
     }
     if (fields.installedOn === undefined && fields.installState && fields.installState !== u.installState) {
@@ -163,8 +228,18 @@ export async function updateUpgrade(actor: Person, build: Build, id: number, inp
     await u.save({ transaction: t });
     const after = await upgradeRecord(u, t);
     const changes = diff(before, after);
-    const goingAhead = notReceived.length ? ` — marked installed with parts not received: ${notReceived.map(partWords).join('; ')}` : '';
-    await record(t, { actor, buildId: build.id, entity: 'upgrade', entityId: u.id, action: 'update', summary: `Changed ${u.title}: ${changedFields(changes)}${goingAhead}`, changes });
+    const goingAhead = notReceived.length
+      ? ` — marked installed with parts not received: ${notReceived.map(partWords).join('; ')}`
+      : '';
+    await record(t, {
+      actor,
+      buildId: build.id,
+      entity: 'upgrade',
+      entityId: u.id,
+      action: 'update',
+      summary: `Changed ${u.title}: ${changedFields(changes)}${goingAhead}`,
+      changes,
+    });
     return after;
   });
 }
@@ -175,22 +250,38 @@ export async function setPrerequisites(actor: Person, build: Build, id: number, 
     await Build.findByPk(build.id, { transaction: t, lock: t.LOCK.UPDATE });
     const u = await findUpgrade(build.id, id, t, true);
     if (prerequisiteIds.includes(u.id)) {
-      throw badRequest('Check these fields: prerequisiteIds.', [{ path: 'prerequisiteIds', message: 'an upgrade cannot need itself' }]);
+      throw badRequest('Check these fields: prerequisiteIds.', [
+        { path: 'prerequisiteIds', message: 'an upgrade cannot need itself' },
+      ]);
     }
     const wanted = await requirePrerequisitesInBuild(build.id, prerequisiteIds, t);
     const all = await Upgrade.findAll({ where: { buildId: build.id }, attributes: ['id', 'title'], transaction: t });
     const links = await UpgradePrerequisite.findAll({ where: { buildId: build.id }, transaction: t });
-    const edges: [number, number][] = links.filter((l) => l.upgradeId !== u.id).map((l) => [l.prerequisiteId, l.upgradeId]);
+    const edges: [number, number][] = links
+      .filter((l) => l.upgradeId !== u.id)
+      .map((l) => [l.prerequisiteId, l.upgradeId]);
     for (const p of wanted) edges.push([p, u.id]);
-    const cycle = findCycle(all.map((x) => x.id), edges);
+    const cycle = findCycle(
+      all.map((x) => x.id),
+      edges,
+    );
     if (cycle) {
       const titles = new Map(all.map((x) => [x.id, x.title]));
       const names = cycle.map((c) => titles.get(c) ?? String(c));
-      throw new AppError(422, 'cycle', `That would make a loop: ${[...names, names[0]].join(' → ')}.`, undefined, { cycle: names });
+      throw new AppError(422, 'cycle', `That would make a loop: ${[...names, names[0]].join(' → ')}.`, undefined, {
+        cycle: names,
+      });
     }
-    const before = links.filter((l) => l.upgradeId === u.id).map((l) => l.prerequisiteId).sort((a, b) => a - b);
+    const before = links
+      .filter((l) => l.upgradeId === u.id)
+      .map((l) => l.prerequisiteId)
+      .sort((a, b) => a - b);
     await UpgradePrerequisite.destroy({ where: { buildId: build.id, upgradeId: u.id }, transaction: t });
-    if (wanted.length) await UpgradePrerequisite.bulkCreate(wanted.map((p) => ({ buildId: build.id, upgradeId: u.id, prerequisiteId: p })), { transaction: t });
+    if (wanted.length)
+      await UpgradePrerequisite.bulkCreate(
+        wanted.map((p) => ({ buildId: build.id, upgradeId: u.id, prerequisiteId: p })),
+        { transaction: t },
+      );
     const after = [...wanted].sort((a, b) => a - b);
     await record(t, {
       actor,
@@ -214,11 +305,25 @@ export async function deleteUpgrade(actor: Person, build: Build, id: number) {
     );
     const names = dependants.map((d) => d.title);
     if (names.length) {
-      throw new AppError(409, 'has_dependants', `Other upgrades need ${u.title} first: ${names.join(', ')}. Remove it from their prerequisites first.`, undefined, { dependants: names });
+      throw new AppError(
+        409,
+        'has_dependants',
+        `Other upgrades need ${u.title} first: ${names.join(', ')}. Remove it from their prerequisites first.`,
+        undefined,
+        { dependants: names },
+      );
     }
     const before = await upgradeRecord(u, t);
     await u.destroy({ transaction: t });
-    await record(t, { actor, buildId: build.id, entity: 'upgrade', entityId: u.id, action: 'delete', summary: `Deleted upgrade ${u.title}`, before });
+    await record(t, {
+      actor,
+      buildId: build.id,
+      entity: 'upgrade',
+      entityId: u.id,
+      action: 'delete',
+      summary: `Deleted upgrade ${u.title}`,
+      before,
+    });
   });
 }
 
@@ -238,6 +343,13 @@ export async function upgradeActivity(build: Build, id: number, viewer: Person) 
   if (removed.length) or.push({ entity: 'removed_part', entityId: { [Op.in]: removed } });
   if (labour.length) or.push({ entity: 'labour', entityId: { [Op.in]: labour } });
   if (expenses.length && seesMoney(viewer)) or.push({ entity: 'expense', entityId: { [Op.in]: expenses } });
-  const rows = await Activity.findAll({ where: { buildId: build.id, [Op.or]: or }, order: [['createdAt', 'DESC'], ['id', 'DESC']], limit: 500 });
+  const rows = await Activity.findAll({
+    where: { buildId: build.id, [Op.or]: or },
+    order: [
+      ['createdAt', 'DESC'],
+      ['id', 'DESC'],
+    ],
+    limit: 500,
+  });
   return activityView(rows, viewer);
 }

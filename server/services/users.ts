@@ -25,22 +25,47 @@ export async function createUser(actor: Actor | null, input: CreateUserInput) {
   const temporaryPassword = input.password ? null : randomBytes(9).toString('base64url');
   return sequelize.transaction(async (t) => {
     const exists = await User.findOne({ where: { email: input.email }, transaction: t });
-    if (exists) throw new AppError(409, 'duplicate', 'Someone with this e-mail already exists.', [{ path: 'email', message: 'is already used' }]);
+    if (exists)
+      throw new AppError(409, 'duplicate', 'Someone with this e-mail already exists.', [
+        { path: 'email', message: 'is already used' },
+      ]);
     const user = await User.create(
-      { email: input.email, name: input.name, roles: [...new Set(input.roles)] as Role[], passwordHash: await hashPassword(input.password ?? temporaryPassword!) },
+      {
+        email: input.email,
+        name: input.name,
+        roles: [...new Set(input.roles)] as Role[],
+        passwordHash: await hashPassword(input.password ?? temporaryPassword!),
+      },
       { transaction: t },
     );
-    await record(t, { actor, buildId: null, entity: 'user', entityId: user.id, action: 'create', summary: `Added ${user.name} (${user.roles.join(', ')})`, after: user.toPublic() });
+    await record(t, {
+      actor,
+      buildId: null,
+      entity: 'user',
+      entityId: user.id,
+      action: 'create',
+      summary: `Added ${user.name} (${user.roles.join(', ')})`,
+      after: user.toPublic(),
+    });
     // The invitation carries a one-time link to choose a password; no password travels by mail.
     const link = `${config().publicUrl}/welcome/${await createInvitationLink(t, user.id)}`;
     const mail = invitationMail({ name: user.name, roles: user.roles, invitedBy: actor?.name ?? null, link });
-    await enqueueMail(t, { kind: 'invitation', to: user.email, subject: mail.subject, text: mail.text, dedupeKey: `invite:${user.id}` });
+    await enqueueMail(t, {
+      kind: 'invitation',
+      to: user.email,
+      subject: mail.subject,
+      text: mail.text,
+      dedupeKey: `invite:${user.id}`,
+    });
     return { user: user.toPublic(), temporaryPassword };
   });
 }
 
 async function activeOwnersOtherThan(id: number, t: import('sequelize').Transaction) {
-  return User.count({ where: { id: { [Op.ne]: id }, active: true, roles: { [Op.contains]: ['owner'] } }, transaction: t });
+  return User.count({
+    where: { id: { [Op.ne]: id }, active: true, roles: { [Op.contains]: ['owner'] } },
+    transaction: t,
+  });
 }
 
 /** Ends every session of a person at once (but `keepSessionId`, the one making the change). */
@@ -58,16 +83,30 @@ export async function updateUser(actor: Actor, id: number, input: UpdateUserInpu
     const user = await User.findByPk(id, { transaction: t });
     if (!user) throw notFound('User');
     const before = user.toPublic();
-    const losesOwner = user.roles.includes('owner') && user.active && ((input.roles && !input.roles.includes('owner')) || input.active === false);
+    const losesOwner =
+      user.roles.includes('owner') &&
+      user.active &&
+      ((input.roles && !input.roles.includes('owner')) || input.active === false);
     if (losesOwner && (await activeOwnersOtherThan(id, t)) === 0) {
-      throw new AppError(409, 'last_owner', 'This is the last active owner; make someone else an owner first.', [{ path: input.active === false ? 'active' : 'roles', message: 'would leave no active owner' }]);
+      throw new AppError(409, 'last_owner', 'This is the last active owner; make someone else an owner first.', [
+        { path: input.active === false ? 'active' : 'roles', message: 'would leave no active owner' },
+      ]);
     }
     if (input.name !== undefined) user.name = input.name;
     if (input.roles) user.roles = [...new Set(input.roles)] as Role[];
     if (input.active !== undefined) user.active = input.active;
     await user.save({ transaction: t });
     if (input.active === false) await endSessionsOf(user.id, t);
-    await record(t, { actor, buildId: null, entity: 'user', entityId: user.id, action: 'update', summary: `Changed ${user.name}`, before, after: user.toPublic() });
+    await record(t, {
+      actor,
+      buildId: null,
+      entity: 'user',
+      entityId: user.id,
+      action: 'update',
+      summary: `Changed ${user.name}`,
+      before,
+      after: user.toPublic(),
+    });
     return user.toPublic();
   });
 }
@@ -84,7 +123,15 @@ export async function setPassword(actor: Actor | null, id: number, password: str
     await user.save({ transaction: t });
     await endSessionsOf(user.id, t, keepSessionId);
     await endInvitationLinksOf(t, user.id);
-    await record(t, { actor, buildId: null, entity: 'user', entityId: user.id, action: 'password', summary: `Password set for ${user.name}`, changes: {} });
+    await record(t, {
+      actor,
+      buildId: null,
+      entity: 'user',
+      entityId: user.id,
+      action: 'password',
+      summary: `Password set for ${user.name}`,
+      changes: {},
+    });
   });
 }
 

@@ -1,7 +1,15 @@
 // Keeping viewers' e-mail addresses out of the database until they confirm: a keyed hash to
 // count one vote per person, the address sealed with a key only the confirmation link carries,
 // single-use tokens stored as hashes, and self-verifying unsubscribe tokens.
-import { createCipheriv, createDecipheriv, createHash, createHmac, hkdfSync, randomBytes, timingSafeEqual } from 'node:crypto';
+import {
+  createCipheriv,
+  createDecipheriv,
+  createHash,
+  createHmac,
+  hkdfSync,
+  randomBytes,
+  timingSafeEqual,
+} from 'node:crypto';
 import { config } from '../config';
 
 // Keys come from VIEWER_KEY_SECRET alone, one per purpose (HKDF-SHA-256, RFC 5869, with the
@@ -20,7 +28,8 @@ export function viewerKey(purpose: 'email-hash' | 'unsubscribe'): Buffer {
 
 // Before VIEWER_KEY_SECRET, keys were derived from the session secret. Migration 0014 moves the
 // stored hashes to the new key; links already mailed (unsubscribe) keep working through these.
-const legacyKey = (purpose: string) => createHash('sha256').update(`bayslate:${purpose}:${config().SESSION_SECRET}`).digest();
+const legacyKey = (purpose: string) =>
+  createHash('sha256').update(`bayslate:${purpose}:${config().SESSION_SECRET}`).digest();
 
 export const normaliseEmail = (email: string) => email.trim().toLowerCase();
 
@@ -34,9 +43,11 @@ export function personOfEmail(email: string) {
 }
 
 /** Keyed hash of the person an address names (64 hex): equal for name+1@ and NAME@, useless without the server key. */
-export const emailHash = (email: string) => createHmac('sha256', viewerKey('email-hash')).update(personOfEmail(email)).digest('hex');
+export const emailHash = (email: string) =>
+  createHmac('sha256', viewerKey('email-hash')).update(personOfEmail(email)).digest('hex');
 /** The hash the same address had under the session-secret key (migration 0014 and old links). */
-export const legacyEmailHash = (email: string) => createHmac('sha256', legacyKey('email')).update(normaliseEmail(email)).digest('hex');
+export const legacyEmailHash = (email: string) =>
+  createHmac('sha256', legacyKey('email')).update(normaliseEmail(email)).digest('hex');
 
 /** A fresh single-use token (URL-safe, 256 bits) and the hash we store instead of it. */
 export function newToken() {
@@ -63,8 +74,10 @@ export function unsealEmail(sealed: string, token: string): string | null {
   }
 }
 
-const unsubSig = (hash: string) => createHmac('sha256', viewerKey('unsubscribe')).update(hash).digest('hex').slice(0, 32);
-const legacyUnsubSig = (hash: string) => createHmac('sha256', legacyKey('unsubscribe')).update(hash).digest('hex').slice(0, 32);
+const unsubSig = (hash: string) =>
+  createHmac('sha256', viewerKey('unsubscribe')).update(hash).digest('hex').slice(0, 32);
+const legacyUnsubSig = (hash: string) =>
+  createHmac('sha256', legacyKey('unsubscribe')).update(hash).digest('hex').slice(0, 32);
 
 /** The token of an unsubscribe link: the address hash and a signature over it. */
 export const unsubscribeToken = (hash: string) => `${hash}.${unsubSig(hash)}`;
@@ -76,6 +89,7 @@ export function readUnsubscribeToken(token: string): string | null {
   const given = Buffer.from(m[2]!);
   // A link mailed before the key change names the old hash; the database maps it to the new one
   // when it is recorded (migration 0014).
-  const ok = timingSafeEqual(Buffer.from(unsubSig(m[1]!)), given) || timingSafeEqual(Buffer.from(legacyUnsubSig(m[1]!)), given);
+  const ok =
+    timingSafeEqual(Buffer.from(unsubSig(m[1]!)), given) || timingSafeEqual(Buffer.from(legacyUnsubSig(m[1]!)), given);
   return ok ? m[1]! : null;
 }

@@ -24,7 +24,12 @@ export interface StaffRequestRow {
   version: number;
 }
 
-async function rows(buildId: number, where: string, replacements: Record<string, unknown>, t?: Transaction): Promise<StaffRequestRow[]> {
+async function rows(
+  buildId: number,
+  where: string,
+  replacements: Record<string, unknown>,
+  t?: Transaction,
+): Promise<StaffRequestRow[]> {
   const list = await sequelize.query<Record<string, unknown>>(
     `SELECT r.id, r.title, r.details, r.state, r.upgrade_id, r.version, r.merged_into_id, r.decline_reason, r.created_at,
             r.confirmed_at IS NOT NULL AS confirmed, u.title AS upgrade_title, m.title AS merged_into_title,
@@ -57,22 +62,36 @@ async function rows(buildId: number, where: string, replacements: Record<string,
 
 /** Requests of a build; unconfirmed ones (nobody opened the link yet) are left out. */
 export function listRequests(buildId: number, state?: RequestState) {
-  return rows(buildId, `AND r.confirmed_at IS NOT NULL ${state ? 'AND r.state = :state' : ''}`, { state: state ?? null });
+  return rows(buildId, `AND r.confirmed_at IS NOT NULL ${state ? 'AND r.state = :state' : ''}`, {
+    state: state ?? null,
+  });
 }
 
 async function one(buildId: number, id: number, t: Transaction) {
   return (await rows(buildId, 'AND r.id = :id', { id }, t))[0]!;
 }
 
-export async function triage(actor: Actor, buildId: number, requestId: number, input: TriageInput): Promise<StaffRequestRow> {
+export async function triage(
+  actor: Actor,
+  buildId: number,
+  requestId: number,
+  input: TriageInput,
+): Promise<StaffRequestRow> {
   return sequelize.transaction(async (t) => {
     const req = await ViewerRequest.findOne({ where: { id: requestId, buildId }, transaction: t, lock: t.LOCK.UPDATE });
     if (!req || !req.confirmedAt) throw notFound('Request');
     if (req.version !== input.version) {
       // Someone triaged it first (two accepts at once would otherwise create two upgrades).
-      throw new AppError(409, 'stale', `"${req.title}" was changed since you loaded it; it is now ${req.state}. Nothing was written; reload and look again.`, undefined, { current: await one(buildId, req.id, t) });
+      throw new AppError(
+        409,
+        'stale',
+        `"${req.title}" was changed since you loaded it; it is now ${req.state}. Nothing was written; reload and look again.`,
+        undefined,
+        { current: await one(buildId, req.id, t) },
+      );
     }
-    if (req.state === 'merged') throw new AppError(409, 'bad_state', `"${req.title}" was merged into another request; triage that one instead.`);
+    if (req.state === 'merged')
+      throw new AppError(409, 'bad_state', `"${req.title}" was merged into another request; triage that one instead.`);
     const before = req.toJSON() as unknown as Record<string, unknown>;
     let summary = '';
 
@@ -80,32 +99,76 @@ export async function triage(actor: Actor, buildId: number, requestId: number, i
       let upgrade: Upgrade | null;
       if (input.upgradeId) {
         upgrade = await Upgrade.findOne({ where: { id: input.upgradeId, buildId }, transaction: t });
-        if (!upgrade) throw badRequest('That upgrade is not in this build.', [{ path: 'upgradeId', message: 'is not an upgrade of this build' }]);
+        if (!upgrade)
+          throw badRequest('That upgrade is not in this build.', [
+            { path: 'upgradeId', message: 'is not an upgrade of this build' },
+          ]);
       } else {
         const n = input.newUpgrade!;
-        upgrade = await Upgrade.create({ buildId, title: n.title, area: n.area, estimatedHours: n.estimatedHours ?? 0, replaces: null, becomes: null, installedOn: null, episodeId: null, episodePosition: null, notes: `Asked for by viewers: "${req.title}"`.slice(0, 4000), tireFrom: null, tireTo: null }, { transaction: t });
-        await record(t, { actor, buildId, entity: 'upgrade', entityId: upgrade.id, action: 'create', summary: `Added ${upgrade.title} from a viewer request`, after: { title: upgrade.title, area: upgrade.area } });
+        upgrade = await Upgrade.create(
+          {
+            buildId,
+            title: n.title,
+            area: n.area,
+            estimatedHours: n.estimatedHours ?? 0,
+            replaces: null,
+            becomes: null,
+            installedOn: null,
+            episodeId: null,
+            episodePosition: null,
+            notes: `Asked for by viewers: "${req.title}"`.slice(0, 4000),
+            tireFrom: null,
+            tireTo: null,
+          },
+          { transaction: t },
+        );
+        await record(t, {
+          actor,
+          buildId,
+          entity: 'upgrade',
+          entityId: upgrade.id,
+          action: 'create',
+          summary: `Added ${upgrade.title} from a viewer request`,
+          after: { title: upgrade.title, area: upgrade.area },
+        });
       }
       req.state = 'accepted';
       req.upgradeId = upgrade.id;
       req.declineReason = null;
       summary = `Accepted viewer request "${req.title}" as upgrade ${upgrade.title}`;
     } else if (input.action === 'merge') {
-      if (input.intoId === req.id) throw badRequest('A request cannot be merged into itself.', [{ path: 'intoId', message: 'is this request' }]);
-      const target = await ViewerRequest.findOne({ where: { id: input.intoId!, buildId }, transaction: t, lock: t.LOCK.UPDATE });
-      if (!target || !target.confirmedAt) throw badRequest('That request is not in this build.', [{ path: 'intoId', message: 'is not a request of this build' }]);
-      if (target.state === 'merged') throw badRequest(`"${target.title}" was itself merged; merge into the request it went into.`, [{ path: 'intoId', message: 'was merged into another request' }]);
+      if (input.intoId === req.id)
+        throw badRequest('A request cannot be merged into itself.', [{ path: 'intoId', message: 'is this request' }]);
+      const target = await ViewerRequest.findOne({
+        where: { id: input.intoId!, buildId },
+        transaction: t,
+        lock: t.LOCK.UPDATE,
+      });
+      if (!target || !target.confirmedAt)
+        throw badRequest('That request is not in this build.', [
+          { path: 'intoId', message: 'is not a request of this build' },
+        ]);
+      if (target.state === 'merged')
+        throw badRequest(`"${target.title}" was itself merged; merge into the request it went into.`, [
+          { path: 'intoId', message: 'was merged into another request' },
+        ]);
       // People who already voted for the target keep one vote there; the rest move over.
       await sequelize.query(
         `DELETE FROM viewer_votes d WHERE d.request_id = :from AND EXISTS (
            SELECT 1 FROM viewer_votes k WHERE k.request_id = :into AND k.email_hash = d.email_hash AND k.confirmed_at IS NOT NULL)`,
         { replacements: { from: req.id, into: target.id }, transaction: t },
       );
-      await sequelize.query('UPDATE viewer_votes SET request_id = :into WHERE request_id = :from', { replacements: { from: req.id, into: target.id }, transaction: t });
-      await sequelize.query(`UPDATE viewer_requests SET merged_into_id = :into, updated_at = now() WHERE merged_into_id = :from AND build_id = :buildId`, {
-        replacements: { from: req.id, into: target.id, buildId },
+      await sequelize.query('UPDATE viewer_votes SET request_id = :into WHERE request_id = :from', {
+        replacements: { from: req.id, into: target.id },
         transaction: t,
       });
+      await sequelize.query(
+        `UPDATE viewer_requests SET merged_into_id = :into, updated_at = now() WHERE merged_into_id = :from AND build_id = :buildId`,
+        {
+          replacements: { from: req.id, into: target.id, buildId },
+          transaction: t,
+        },
+      );
       req.state = 'merged';
       req.mergedIntoId = target.id;
       summary = `Merged viewer request "${req.title}" into "${target.title}"`;
@@ -116,7 +179,16 @@ export async function triage(actor: Actor, buildId: number, requestId: number, i
       summary = `Declined viewer request "${req.title}": ${input.reason}`;
     }
     await req.save({ transaction: t });
-    await record(t, { actor, buildId, entity: 'viewer_request', entityId: req.id, action: input.action, summary: summary.slice(0, 1000), before, after: req.toJSON() as unknown as Record<string, unknown> });
+    await record(t, {
+      actor,
+      buildId,
+      entity: 'viewer_request',
+      entityId: req.id,
+      action: input.action,
+      summary: summary.slice(0, 1000),
+      before,
+      after: req.toJSON() as unknown as Record<string, unknown>,
+    });
     return one(buildId, req.id, t);
   });
 }

@@ -34,19 +34,65 @@ export function forViewer<T extends Record<string, unknown>>(record: T, viewer: 
 
 /** Revenue, units and attribution: the owner, marketing and producers. */
 export const SALES_REVENUE_FIELDS = [
-  'build', 'id', 'currency', 'campaignTag', 'attributionWindowDays', 'asOf', 'linesTotal',
-  'series', 'direct', 'assisted', 'unattributed', 'orders', 'units', 'revenueCents',
-  'episodes', 'episodeId', 'number', 'title', 'state', 'releaseDate',
-  'upgrades', 'upgradeId', 'episodeNumber', 'sinceRelease',
-  'total', 'lines', 'orderId', 'lineId', 'soldOn', 'sku', 'quantity', 'campaign', 'content', 'attribution', 'reason', 'refund',
-  'imports', 'fileName', 'linesRead', 'linesAdded', 'linesSkipped', 'createdAt',
-  'kind', 'page', 'pageSize',
+  'build',
+  'id',
+  'currency',
+  'campaignTag',
+  'attributionWindowDays',
+  'asOf',
+  'linesTotal',
+  'series',
+  'direct',
+  'assisted',
+  'unattributed',
+  'orders',
+  'units',
+  'revenueCents',
+  'episodes',
+  'episodeId',
+  'number',
+  'title',
+  'state',
+  'releaseDate',
+  'upgrades',
+  'upgradeId',
+  'episodeNumber',
+  'sinceRelease',
+  'total',
+  'lines',
+  'orderId',
+  'lineId',
+  'soldOn',
+  'sku',
+  'quantity',
+  'campaign',
+  'content',
+  'attribution',
+  'reason',
+  'refund',
+  'imports',
+  'fileName',
+  'linesRead',
+  'linesAdded',
+  'linesSkipped',
+  'createdAt',
+  'kind',
+  'page',
+  'pageSize',
 ] as const;
 /** Cost-based figures: the owner only. */
 export const SALES_OWNER_FIELDS = [
   ...SALES_REVENUE_FIELDS,
-  'marginCents', 'netCostCents', 'returnOnBuild', 'paybackDate', 'marginNeededCents',
-  'payback', 'points', 'date', 'cumulativeMarginCents', 'cumulativeNetCostCents',
+  'marginCents',
+  'netCostCents',
+  'returnOnBuild',
+  'paybackDate',
+  'marginNeededCents',
+  'payback',
+  'points',
+  'date',
+  'cumulativeMarginCents',
+  'cumulativeNetCostCents',
 ] as const;
 
 const SALES_ALLOW: Record<string, readonly string[]> = {
@@ -55,7 +101,8 @@ const SALES_ALLOW: Record<string, readonly string[]> = {
   marketing: SALES_REVENUE_FIELDS,
 };
 
-export const seesSalesMargin = (v: Viewer | undefined) => !!v && v.roles.some((r) => SALES_ALLOW[r]?.includes('marginCents'));
+export const seesSalesMargin = (v: Viewer | undefined) =>
+  !!v && v.roles.some((r) => SALES_ALLOW[r]?.includes('marginCents'));
 
 function keep(value: unknown, allowed: ReadonlySet<string>): unknown {
   if (Array.isArray(value)) return value.map((x) => keep(x, allowed));

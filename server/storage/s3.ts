@@ -124,7 +124,15 @@ export function putStream(key: string, body: Readable, contentType: string): Str
 }
 
 export async function putBuffer(key: string, body: Buffer, contentType: string): Promise<void> {
-  await s3().send(new PutObjectCommand({ Bucket: bucket(), Key: key, Body: body, ContentType: contentType, ContentLength: body.length }));
+  await s3().send(
+    new PutObjectCommand({
+      Bucket: bucket(),
+      Key: key,
+      Body: body,
+      ContentType: contentType,
+      ContentLength: body.length,
+    }),
+  );
 }
 
 export async function getStream(key: string): Promise<Readable> {
@@ -141,7 +149,9 @@ export async function removeObjects(keys: string[]): Promise<void> {
   for (let i = 0; i < keys.length; i += 1000) {
     const batch = keys.slice(i, i + 1000);
     if (!batch.length) continue;
-    await s3().send(new DeleteObjectsCommand({ Bucket: bucket(), Delete: { Objects: batch.map((Key) => ({ Key })), Quiet: true } }));
+    await s3().send(
+      new DeleteObjectsCommand({ Bucket: bucket(), Delete: { Objects: batch.map((Key) => ({ Key })), Quiet: true } }),
+    );
   }
 }
 
@@ -156,10 +166,18 @@ export async function* listKeys(prefix = ''): AsyncGenerator<{ key: string; size
 }
 
 /** A short-lived GET URL; the store answers it with our Content-Disposition and type. */
-export async function presignGet(key: string, opts: { expiresIn: number; disposition?: string; contentType?: string }): Promise<string> {
+export async function presignGet(
+  key: string,
+  opts: { expiresIn: number; disposition?: string; contentType?: string },
+): Promise<string> {
   return getSignedUrl(
     s3(),
-    new GetObjectCommand({ Bucket: bucket(), Key: key, ResponseContentDisposition: opts.disposition, ResponseContentType: opts.contentType }),
+    new GetObjectCommand({
+      Bucket: bucket(),
+      Key: key,
+      ResponseContentDisposition: opts.disposition,
+      ResponseContentType: opts.contentType,
+    }),
     { expiresIn: opts.expiresIn },
   );
 }

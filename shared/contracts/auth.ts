@@ -4,7 +4,13 @@ import { ROLES } from '../domain';
 import { idNumber, OkAnswer, type RouteTable } from './common';
 
 /** A person as the API sends them: never a password hash. */
-export const User = z.object({ id: idNumber, email: z.string(), name: z.string(), roles: z.array(z.enum(ROLES)), active: z.boolean() });
+export const User = z.object({
+  id: idNumber,
+  email: z.string(),
+  name: z.string(),
+  roles: z.array(z.enum(ROLES)),
+  active: z.boolean(),
+});
 export type User = z.infer<typeof User>;
 /** The signed-in person (always active: a deactivated person is signed out). */
 export const SessionUser = User.omit({ active: true });

@@ -42,7 +42,11 @@ export const Build = audiences(BuildForMoney, BuildForCrew);
 
 /** A row of the builds list: progress for everyone, spend for money roles. */
 export const BuildRowForCrew = BuildForCrew.extend({ upgradesDone: z.number().int(), upgradesTotal: z.number().int() });
-export const BuildRowForMoney = BuildForMoney.extend({ upgradesDone: z.number().int(), upgradesTotal: z.number().int(), spentCents: z.number().int() });
+export const BuildRowForMoney = BuildForMoney.extend({
+  upgradesDone: z.number().int(),
+  upgradesTotal: z.number().int(),
+  spentCents: z.number().int(),
+});
 export type BuildRowSeen = Seen<z.infer<typeof BuildRowForMoney>, z.infer<typeof BuildRowForCrew>>;
 
 const list = <S extends z.ZodType>(b: S) => z.object({ builds: z.array(b) });

@@ -28,7 +28,12 @@ import type { Role } from '../domain';
 export type Audience = 'money' | 'retail' | 'crew';
 
 /** The one place a role is mapped to what it may read (DESIGN §2). Anonymous callers read as crew. */
-export const ROLE_AUDIENCE: Record<Role, Audience> = { owner: 'money', producer: 'money', marketing: 'retail', installer: 'crew' };
+export const ROLE_AUDIENCE: Record<Role, Audience> = {
+  owner: 'money',
+  producer: 'money',
+  marketing: 'retail',
+  installer: 'crew',
+};
 const WIDEST_FIRST: readonly Audience[] = ['money', 'retail', 'crew'];
 
 /** The widest audience of a person's roles. */
@@ -38,12 +43,20 @@ export function audienceOf(roles: readonly string[] | undefined): Audience {
 }
 
 /** One contract per audience: each is the allow-list of the roles that read as that audience. */
-export interface Audiences<M extends z.ZodType = z.ZodType, R extends z.ZodType = z.ZodType, C extends z.ZodType = z.ZodType> {
+export interface Audiences<
+  M extends z.ZodType = z.ZodType,
+  R extends z.ZodType = z.ZodType,
+  C extends z.ZodType = z.ZodType,
+> {
   money: M;
   retail: R;
   crew: C;
 }
-export function audiences<M extends z.ZodType, C extends z.ZodType, R extends z.ZodType = C>(money: M, crew: C, retail?: R): Audiences<M, R, C> {
+export function audiences<M extends z.ZodType, C extends z.ZodType, R extends z.ZodType = C>(
+  money: M,
+  crew: C,
+  retail?: R,
+): Audiences<M, R, C> {
   return { money, retail: (retail ?? crew) as R, crew };
 }
 export function isAudiences(c: unknown): c is Audiences {
@@ -57,9 +70,20 @@ export function contractFor(c: z.ZodType | Audiences, roles: readonly string[] |
 /** What a screen holds of a per-role record: the crew's fields, and money fields when sent. */
 export type Seen<Money, Crew> = Crew & Partial<Omit<Money, keyof Crew>>;
 
-type Def = { type: string; shape?: Record<string, z.ZodType>; element?: z.ZodType; innerType?: z.ZodType; options?: z.ZodType[]; valueType?: z.ZodType; in?: z.ZodType; getter?: () => z.ZodType; catchall?: z.ZodType };
+type Def = {
+  type: string;
+  shape?: Record<string, z.ZodType>;
+  element?: z.ZodType;
+  innerType?: z.ZodType;
+  options?: z.ZodType[];
+  valueType?: z.ZodType;
+  in?: z.ZodType;
+  getter?: () => z.ZodType;
+  catchall?: z.ZodType;
+};
 const defOf = (s: z.ZodType) => (s as unknown as { _zod: { def: Def } })._zod.def;
-const isPlain = (v: unknown): v is Record<string, unknown> => !!v && typeof v === 'object' && !Array.isArray(v) && !(v instanceof Date);
+const isPlain = (v: unknown): v is Record<string, unknown> =>
+  !!v && typeof v === 'object' && !Array.isArray(v) && !(v instanceof Date);
 
 /**
  * A copy of `value` holding only what `contract` names, at every depth (nothing is checked or
@@ -72,15 +96,25 @@ export function allow(contract: z.ZodType, value: unknown): unknown {
     case 'object': {
       if (!isPlain(value)) return value;
       const out: Record<string, unknown> = {};
-      for (const [k, s] of Object.entries(d.shape!)) if (k in value && value[k] !== undefined) out[k] = allow(s, value[k]);
-      if (d.catchall && defOf(d.catchall).type !== 'never') for (const k of Object.keys(value)) if (!(k in d.shape!)) out[k] = allow(d.catchall, value[k]);
+      for (const [k, s] of Object.entries(d.shape!))
+        if (k in value && value[k] !== undefined) out[k] = allow(s, value[k]);
+      if (d.catchall && defOf(d.catchall).type !== 'never')
+        for (const k of Object.keys(value)) if (!(k in d.shape!)) out[k] = allow(d.catchall, value[k]);
       return out;
     }
     case 'array':
       return Array.isArray(value) ? value.map((v) => allow(d.element!, v)) : value;
     case 'record':
-      return isPlain(value) ? Object.fromEntries(Object.entries(value).map(([k, v]) => [k, allow(d.valueType!, v)])) : value;
-    case 'optional': case 'nullable': case 'default': case 'prefault': case 'readonly': case 'nonoptional': case 'catch':
+      return isPlain(value)
+        ? Object.fromEntries(Object.entries(value).map(([k, v]) => [k, allow(d.valueType!, v)]))
+        : value;
+    case 'optional':
+    case 'nullable':
+    case 'default':
+    case 'prefault':
+    case 'readonly':
+    case 'nonoptional':
+    case 'catch':
       return value === undefined || value === null ? value : allow(d.innerType!, value);
     case 'pipe':
       return allow(d.in!, value);

@@ -29,7 +29,12 @@ export const MediaRecord = z.object({
 });
 export type MediaRecord = z.infer<typeof MediaRecord>;
 
-export const MediaPage = z.object({ media: z.array(MediaRecord), total: z.number().int(), page: z.number().int(), pageSize: z.number().int() });
+export const MediaPage = z.object({
+  media: z.array(MediaRecord),
+  total: z.number().int(),
+  page: z.number().int(),
+  pageSize: z.number().int(),
+});
 export type MediaPage = z.infer<typeof MediaPage>;
 export const MediaAnswer = z.object({ media: MediaRecord });
 export type MediaAnswer = z.infer<typeof MediaAnswer>;

@@ -32,12 +32,23 @@ const hoursRow = z.object({ estimatedHours: hours, actualHours: hours });
 /** Columns of the upgrade rows, all of one length; `labourCents` is null (one value) without a labour rate. */
 function columns<S extends z.ZodRawShape>(shape: S) {
   return z.object(shape).refine((c) => {
-    const lengths = Object.values(c).filter(Array.isArray).map((a) => a.length);
+    const lengths = Object.values(c)
+      .filter(Array.isArray)
+      .map((a) => a.length);
     return lengths.every((n) => n === lengths[0]);
   }, 'every column of the upgrade rows has one value per upgrade');
 }
 
-const buildFields = { id: count, name: z.string(), slug: z.string(), year: z.number().int(), make: z.string(), model: z.string(), trim: z.string(), startDate: day };
+const buildFields = {
+  id: count,
+  name: z.string(),
+  slug: z.string(),
+  year: z.number().int(),
+  make: z.string(),
+  model: z.string(),
+  trim: z.string(),
+  startDate: day,
+};
 const episodeFields = {
   episodeId: count.nullable(),
   number: z.number().int().nullable(),
@@ -46,7 +57,15 @@ const episodeFields = {
   shootDate: day.nullable(),
   upgrades: count,
 };
-const countFields = { estimatedHours: hours, actualHours: hours, remainingHours: hours, upgradesDone: count, upgradesTotal: count, episodesLive: count, episodesTotal: count };
+const countFields = {
+  estimatedHours: hours,
+  actualHours: hours,
+  remainingHours: hours,
+  upgradesDone: count,
+  upgradesTotal: count,
+  episodesLive: count,
+  episodesTotal: count,
+};
 
 export const overviewAnswer = z.object({
   build: z.object({ ...buildFields, budgetCents: cents.nullable(), labourRateCents: cents.nullable() }),
@@ -64,7 +83,12 @@ export const overviewAnswer = z.object({
     costRecognitionLabel: z.string(),
     costRecognitionDescription: z.string(),
     cash: z.object({ paidCents: cents, committedCents: cents, notOrderedCents: cents, netCents: cents }),
-    pending: z.object({ receivedNotFittedCents: cents, committedCents: cents, notOrderedCents: cents, laterDatedCents: cents }),
+    pending: z.object({
+      receivedNotFittedCents: cents,
+      committedCents: cents,
+      notOrderedCents: cents,
+      laterDatedCents: cents,
+    }),
     etcCents: cents.nullable(),
     remainingLabourCents: cents.nullable(),
     remainingPartsCents: cents,
@@ -145,7 +169,13 @@ export const overviewAnswerWithoutMoney = z.object({
   asOf: day,
   timeZone: z.string(),
   headline: z.object(countFields),
-  upgrades: columns({ upgradeId: z.array(count), title: z.array(z.string()), done: z.array(z.boolean()), estimatedHours: z.array(hours), actualHours: z.array(hours) }),
+  upgrades: columns({
+    upgradeId: z.array(count),
+    title: z.array(z.string()),
+    done: z.array(z.boolean()),
+    estimatedHours: z.array(hours),
+    actualHours: z.array(hours),
+  }),
   episodes: z.array(hoursRow.extend(episodeFields)),
 });
 

@@ -34,7 +34,8 @@ export type PartForMoney = z.infer<typeof PartForMoney>;
 export type PartSeen = Seen<PartForMoney, PartForCrew>;
 export const Part = audiences(PartForMoney, PartForCrew, PartForRetail);
 
-const partPage = <S extends z.ZodType>(p: S) => z.object({ parts: z.array(p), total: z.number().int(), page: z.number().int(), pageSize: z.number().int() });
+const partPage = <S extends z.ZodType>(p: S) =>
+  z.object({ parts: z.array(p), total: z.number().int(), page: z.number().int(), pageSize: z.number().int() });
 const partAnswer = <S extends z.ZodType>(p: S) => z.object({ part: p });
 export const PartPage = audiences(partPage(PartForMoney), partPage(PartForCrew), partPage(PartForRetail));
 export type PartPage = z.infer<typeof PartPage.money>;

@@ -55,7 +55,16 @@ export const PlannerInputOut = z.object({
       fixedEpisode: z.number().int().nullable().optional(),
     }),
   ),
-  fixedEpisodes: z.array(z.object({ number: z.number().int(), shootDate: day.nullable(), releaseDate: day.nullable(), upgradeIds: z.array(idNumber) })).optional(),
+  fixedEpisodes: z
+    .array(
+      z.object({
+        number: z.number().int(),
+        shootDate: day.nullable(),
+        releaseDate: day.nullable(),
+        upgradeIds: z.array(idNumber),
+      }),
+    )
+    .optional(),
 });
 
 export const CriticalSummary = z.object({
@@ -67,7 +76,14 @@ export const CriticalSummary = z.object({
   critical: z.array(titled),
   /** The late part that opens the last stretch of work, when there is one. */
   drivingPart: z
-    .object({ upgradeId: idNumber, upgradeTitle: z.string(), partId: idNumber, partNumber: z.string(), description: z.string(), expectedArrival: day })
+    .object({
+      upgradeId: idNumber,
+      upgradeTitle: z.string(),
+      partId: idNumber,
+      partNumber: z.string(),
+      description: z.string(),
+      expectedArrival: day,
+    })
     .nullable(),
   earliestFinish: day,
 });
@@ -77,7 +93,9 @@ export const PlanOverview = z.object({
   /** The plan version changes are made from (PUT and undo send it back as basedOn). */
   planVersion: z.number().int().min(0),
   /** The applied change "Undo" would take back, if any. */
-  undo: z.object({ number: z.number().int(), summary: z.string(), userName: z.string().nullable(), createdAt: timestamp }).nullable(),
+  undo: z
+    .object({ number: z.number().int(), summary: z.string(), userName: z.string().nullable(), createdAt: timestamp })
+    .nullable(),
   episodes: z.array(Episode),
   upgrades: z.array(PlanUpgrade),
   input: PlannerInputOut,
@@ -106,7 +124,9 @@ export const ProposedEpisode = z.object({
 });
 export type ProposedEpisode = z.infer<typeof ProposedEpisode>;
 
-const place = z.object({ episodeId: idNumber.nullable(), number: z.number().int(), position: z.number().int().min(0) }).nullable();
+const place = z
+  .object({ episodeId: idNumber.nullable(), number: z.number().int(), position: z.number().int().min(0) })
+  .nullable();
 export const PlanDifference = z.object({
   upgradeId: idNumber,
   title: z.string(),
@@ -119,9 +139,34 @@ export type PlanDifference = z.infer<typeof PlanDifference>;
 const datePair = z.tuple([day.nullable(), day.nullable()]).nullable();
 /** What a plan change does (shared/planChange.ts). */
 export const PlanChangeSummaryOut = z.object({
-  moved: z.array(z.object({ upgradeId: idNumber, title: z.string(), from: z.number().int().nullable(), to: z.number().int().nullable() })),
-  episodesChanged: z.array(z.object({ id: idNumber.nullable(), number: z.number().int(), title: z.string(), added: z.array(z.string()), removed: z.array(z.string()), isNew: z.boolean() })),
-  dateChanges: z.array(z.object({ id: idNumber, number: z.number().int(), title: z.string(), state: z.string().nullable(), shootDate: datePair, releaseDate: datePair })),
+  moved: z.array(
+    z.object({
+      upgradeId: idNumber,
+      title: z.string(),
+      from: z.number().int().nullable(),
+      to: z.number().int().nullable(),
+    }),
+  ),
+  episodesChanged: z.array(
+    z.object({
+      id: idNumber.nullable(),
+      number: z.number().int(),
+      title: z.string(),
+      added: z.array(z.string()),
+      removed: z.array(z.string()),
+      isNew: z.boolean(),
+    }),
+  ),
+  dateChanges: z.array(
+    z.object({
+      id: idNumber,
+      number: z.number().int(),
+      title: z.string(),
+      state: z.string().nullable(),
+      shootDate: datePair,
+      releaseDate: datePair,
+    }),
+  ),
 });
 
 export const ProposalAnswer = z.object({
@@ -142,14 +187,31 @@ export const ProposalAnswer = z.object({
 });
 export type ProposalAnswer = z.infer<typeof ProposalAnswer>;
 
-export const PlanApplied = z.object({ episodes: z.array(Episode), violations: z.array(PlanViolation), planVersion: z.number().int().min(0) });
+export const PlanApplied = z.object({
+  episodes: z.array(Episode),
+  violations: z.array(PlanViolation),
+  planVersion: z.number().int().min(0),
+});
 export type PlanApplied = z.infer<typeof PlanApplied>;
 
-export const PlanUndone = z.object({ episodes: z.array(Episode), planVersion: z.number().int().min(0), undone: z.object({ number: z.number().int(), summary: z.string() }) });
+export const PlanUndone = z.object({
+  episodes: z.array(Episode),
+  planVersion: z.number().int().min(0),
+  undone: z.object({ number: z.number().int(), summary: z.string() }),
+});
 export type PlanUndone = z.infer<typeof PlanUndone>;
 
 export const PlanRevisions = z.object({
-  revisions: z.array(z.object({ number: z.number().int(), kind: z.enum(['apply', 'undo']), summary: z.string(), userName: z.string().nullable(), createdAt: timestamp, undone: z.boolean() })),
+  revisions: z.array(
+    z.object({
+      number: z.number().int(),
+      kind: z.enum(['apply', 'undo']),
+      summary: z.string(),
+      userName: z.string().nullable(),
+      createdAt: timestamp,
+      undone: z.boolean(),
+    }),
+  ),
 });
 export type PlanRevisions = z.infer<typeof PlanRevisions>;
 

@@ -22,14 +22,35 @@ export const PublicBuild = z.object({
     vehicle: z.object({ year: z.number().int(), make: z.string(), model: z.string(), trim: z.string() }),
     summary: z.string().nullable(),
   }),
-  counts: z.object({ planned: z.number().int(), inProgress: z.number().int(), comingSoon: z.number().int(), done: z.number().int() }),
+  counts: z.object({
+    planned: z.number().int(),
+    inProgress: z.number().int(),
+    comingSoon: z.number().int(),
+    done: z.number().int(),
+  }),
   areas: z.array(z.object({ area: z.enum(AREAS), label: z.string(), upgrades: z.array(PublicUpgrade) })),
   episodes: z.array(
-    z.object({ number: z.number().int(), title: z.string(), summary: z.string().nullable(), videoUrl: z.string().nullable(), publishedOn: day.nullable(), upgrades: z.array(z.string()) }),
+    z.object({
+      number: z.number().int(),
+      title: z.string(),
+      summary: z.string().nullable(),
+      videoUrl: z.string().nullable(),
+      publishedOn: day.nullable(),
+      upgrades: z.array(z.string()),
+    }),
   ),
-  cautions: z.array(z.object({ flag: z.enum(SAFETY_FLAGS), label: z.string(), caution: z.string(), upgrades: z.array(z.string()) })),
+  cautions: z.array(
+    z.object({ flag: z.enum(SAFETY_FLAGS), label: z.string(), caution: z.string(), upgrades: z.array(z.string()) }),
+  ),
   requests: z.array(
-    z.object({ id: idNumber, title: z.string(), details: z.string().nullable(), state: z.enum(['new', 'accepted']), votes: z.number().int(), upgrade: z.string().nullable() }),
+    z.object({
+      id: idNumber,
+      title: z.string(),
+      details: z.string().nullable(),
+      state: z.enum(['new', 'accepted']),
+      votes: z.number().int(),
+      upgrade: z.string().nullable(),
+    }),
   ),
 });
 export type PublicBuild = z.infer<typeof PublicBuild>;

@@ -48,7 +48,11 @@ export const LinkHealth = z.object({ parts: z.array(LinkHealthPart) });
 export type LinkHealth = z.infer<typeof LinkHealth>;
 
 /** The campaign links are tagged with: the build's own, or its slug (effective) when none is set. */
-export const Campaign = z.object({ campaign: z.string().nullable(), effective: z.string(), publicPageUrl: z.string().nullable() });
+export const Campaign = z.object({
+  campaign: z.string().nullable(),
+  effective: z.string(),
+  publicPageUrl: z.string().nullable(),
+});
 export type Campaign = z.infer<typeof Campaign>;
 
 export const publishingRoutes = {

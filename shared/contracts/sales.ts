@@ -31,7 +31,12 @@ const teamLine = z.object({
 /** marginCents: revenue − unit cost × units; null when the SKU matches no part. */
 const ownerLine = teamLine.extend({ marginCents: cents.nullable() });
 
-const teamSeries = z.object({ direct: teamFigures, assisted: teamFigures, unattributed: teamFigures, revenueCents: cents });
+const teamSeries = z.object({
+  direct: teamFigures,
+  assisted: teamFigures,
+  unattributed: teamFigures,
+  revenueCents: cents,
+});
 const ownerSeries = z.object({
   direct: ownerFigures,
   assisted: ownerFigures,
@@ -55,15 +60,42 @@ function summaryOf<F extends z.ZodType, L extends z.ZodType, S extends z.ZodType
     asOf: day,
     linesTotal: count,
     series,
-    episodes: z.array(z.object({ episodeId: idNumber, number: count, title: z.string(), state: z.string(), releaseDate: day.nullable(), direct: figures, assisted: figures })),
+    episodes: z.array(
+      z.object({
+        episodeId: idNumber,
+        number: count,
+        title: z.string(),
+        state: z.string(),
+        releaseDate: day.nullable(),
+        direct: figures,
+        assisted: figures,
+      }),
+    ),
     upgrades: z.array(
-      z.object({ upgradeId: idNumber, title: z.string(), episodeId: idNumber.nullable(), episodeNumber: count.nullable(), releaseDate: day.nullable(), sinceRelease: figures }),
+      z.object({
+        upgradeId: idNumber,
+        title: z.string(),
+        episodeId: idNumber.nullable(),
+        episodeNumber: count.nullable(),
+        releaseDate: day.nullable(),
+        sinceRelease: figures,
+      }),
     ),
     unattributed: z.object({ total: count, lines: z.array(line) }),
-    imports: z.array(z.object({ id: idNumber, fileName: z.string().nullable(), linesRead: count, linesAdded: count, linesSkipped: count, createdAt: timestamp })),
+    imports: z.array(
+      z.object({
+        id: idNumber,
+        fileName: z.string().nullable(),
+        linesRead: count,
+        linesAdded: count,
+        linesSkipped: count,
+        createdAt: timestamp,
+      }),
+    ),
   });
 }
-const pageOf = <L extends z.ZodType>(line: L) => z.object({ kind: z.enum(ATTRIBUTIONS), total: count, page: count, pageSize: count, lines: z.array(line) });
+const pageOf = <L extends z.ZodType>(line: L) =>
+  z.object({ kind: z.enum(ATTRIBUTIONS), total: count, page: count, pageSize: count, lines: z.array(line) });
 
 /** GET …/sales for the owner: every figure, cost-based ones included. */
 export const SalesSummaryForOwner = summaryOf(ownerFigures, ownerLine, ownerSeries).extend({ payback });
@@ -90,7 +122,9 @@ const seenSeries = teamSeries.extend({
   direct: seenFigures,
   assisted: seenFigures,
   unattributed: seenFigures,
-  ...ownerSeries.pick({ marginCents: true, netCostCents: true, returnOnBuild: true, paybackDate: true, marginNeededCents: true }).partial().shape,
+  ...ownerSeries
+    .pick({ marginCents: true, netCostCents: true, returnOnBuild: true, paybackDate: true, marginNeededCents: true })
+    .partial().shape,
 });
 export const SalesSummarySeen = summaryOf(seenFigures, seenLine, seenSeries).extend({ payback: payback.optional() });
 export type SalesSummarySeen = z.infer<typeof SalesSummarySeen>;
@@ -103,12 +137,21 @@ export interface SalesAudiences<O extends z.ZodType, T extends z.ZodType> {
   owner: O;
   team: T;
 }
-export const SalesSummary: SalesAudiences<typeof SalesSummaryForOwner, typeof SalesSummaryForTeam> = { owner: SalesSummaryForOwner, team: SalesSummaryForTeam };
-export const SalesLines: SalesAudiences<typeof SalesLinesForOwner, typeof SalesLinesForTeam> = { owner: SalesLinesForOwner, team: SalesLinesForTeam };
+export const SalesSummary: SalesAudiences<typeof SalesSummaryForOwner, typeof SalesSummaryForTeam> = {
+  owner: SalesSummaryForOwner,
+  team: SalesSummaryForTeam,
+};
+export const SalesLines: SalesAudiences<typeof SalesLinesForOwner, typeof SalesLinesForTeam> = {
+  owner: SalesLinesForOwner,
+  team: SalesLinesForTeam,
+};
 
 /** The cost-based sales figures reach the owner only. */
 export const seesSalesCost = (roles: readonly string[] | undefined) => !!roles?.includes('owner');
-export function salesContractFor<O extends z.ZodType, T extends z.ZodType>(c: SalesAudiences<O, T>, roles: readonly string[] | undefined): O | T {
+export function salesContractFor<O extends z.ZodType, T extends z.ZodType>(
+  c: SalesAudiences<O, T>,
+  roles: readonly string[] | undefined,
+): O | T {
   return seesSalesCost(roles) ? c.owner : c.team;
 }
 

@@ -13,7 +13,12 @@ import { FlagCaution, UpgradeAnswer, UpgradeForCrew, UpgradeForMoney } from './u
 export const Hours = z.object({ mine: z.number().min(0), everyone: z.number().min(0) });
 export type Hours = z.infer<typeof Hours>;
 
-const episodeRef = z.object({ id: idNumber, number: z.number().int(), title: z.string(), state: z.enum(EPISODE_STATES) });
+const episodeRef = z.object({
+  id: idNumber,
+  number: z.number().int(),
+  title: z.string(),
+  state: z.enum(EPISODE_STATES),
+});
 
 const item = <U extends z.ZodType, P extends z.ZodType>(upgrade: U, part: P) =>
   z.object({
@@ -28,7 +33,8 @@ const item = <U extends z.ZodType, P extends z.ZodType>(upgrade: U, part: P) =>
     hours: Hours,
   });
 /** In-bay work also names its episode (it may be another episode than the one shown). */
-const inBayItem = <U extends z.ZodType, P extends z.ZodType>(upgrade: U, part: P) => item(upgrade, part).extend({ episode: episodeRef.nullable() });
+const inBayItem = <U extends z.ZodType, P extends z.ZodType>(upgrade: U, part: P) =>
+  item(upgrade, part).extend({ episode: episodeRef.nullable() });
 
 const shopFloor = <U extends z.ZodType, P extends z.ZodType>(upgrade: U, part: P) =>
   z.object({
@@ -49,11 +55,15 @@ export const ShopFloor = audiences(ShopFloorForMoney, ShopFloorForCrew);
 /** One card of the shop floor as a screen holds it: crew fields, money fields when sent. */
 export type ShopFloorItem = z.infer<ReturnType<typeof item<typeof UpgradeForCrew, typeof PartForCrew>>> & {
   upgrade: z.infer<typeof UpgradeForCrew> & Partial<Pick<z.infer<typeof UpgradeForMoney>, 'valueAddedCents'>>;
-  parts: (z.infer<typeof PartForCrew> & Partial<Pick<z.infer<typeof PartForMoney>, 'unitCostCents' | 'retailPriceCents'>>)[];
+  parts: (z.infer<typeof PartForCrew> &
+    Partial<Pick<z.infer<typeof PartForMoney>, 'unitCostCents' | 'retailPriceCents'>>)[];
   episode?: z.infer<typeof episodeRef> | null;
 };
 /** The shop floor as a screen holds it. */
-export type ShopFloorSeen = Omit<ShopFloorForCrew, 'inBay' | 'upgrades'> & { inBay: ShopFloorItem[]; upgrades: ShopFloorItem[] };
+export type ShopFloorSeen = Omit<ShopFloorForCrew, 'inBay' | 'upgrades'> & {
+  inBay: ShopFloorItem[];
+  upgrades: ShopFloorItem[];
+};
 
 export const shopFloorRoutes = {
   'GET /api/builds/:buildId/shop-floor': ShopFloor,

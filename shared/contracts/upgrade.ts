@@ -36,7 +36,8 @@ export type UpgradeForMoney = z.infer<typeof UpgradeForMoney>;
 export type UpgradeSeen = Seen<UpgradeForMoney, UpgradeForCrew>;
 export const Upgrade = audiences(UpgradeForMoney, UpgradeForCrew);
 
-const page = <S extends z.ZodType>(u: S) => z.object({ upgrades: z.array(u), total: z.number().int(), page: z.number().int(), pageSize: z.number().int() });
+const page = <S extends z.ZodType>(u: S) =>
+  z.object({ upgrades: z.array(u), total: z.number().int(), page: z.number().int(), pageSize: z.number().int() });
 const one = <S extends z.ZodType>(u: S) => z.object({ upgrade: u });
 export const UpgradePage = audiences(page(UpgradeForMoney), page(UpgradeForCrew));
 export type UpgradePage = z.infer<typeof UpgradePage.crew> & { upgrades: UpgradeSeen[] };

@@ -23,7 +23,10 @@ export const StaffRequest = z.object({
 export type StaffRequest = z.infer<typeof StaffRequest>;
 
 /** The requests, and confirmed votes per accepted upgrade (keys are upgrade ids). */
-export const StaffRequestList = z.object({ requests: z.array(StaffRequest), votesByUpgrade: z.record(z.string(), z.number().int()) });
+export const StaffRequestList = z.object({
+  requests: z.array(StaffRequest),
+  votesByUpgrade: z.record(z.string(), z.number().int()),
+});
 export type StaffRequestList = z.infer<typeof StaffRequestList>;
 export const StaffRequestAnswer = z.object({ request: StaffRequest });
 export type StaffRequestAnswer = z.infer<typeof StaffRequestAnswer>;

@@ -84,7 +84,8 @@ export function criticalPath(tasks: readonly CpmTask[]): CriticalPathResult {
     for (const link of tasks[i].after) {
       const a = typeof link === 'string' ? link : link.id;
       const lag = typeof link === 'string' ? 0 : link.lag;
-      if (!Number.isFinite(lag)) throw new RangeError(`criticalPath: task ${tasks[i].id} has lag ${lag} after ${a}; lags must be finite`);
+      if (!Number.isFinite(lag))
+        throw new RangeError(`criticalPath: task ${tasks[i].id} has lag ${lag} after ${a}; lags must be finite`);
       if (lag !== 0) anyLag = true;
       const j = index.get(a);
       if (j === undefined) {

@@ -6,9 +6,12 @@ import { roundHours } from './prepare';
 import type { PlanEpisode, PlannerInput, PlannerUpgrade } from './types';
 
 /** Hours one new episode may hold, and shop hours available between two shoot slots. */
-export function episodeCapacity(input: Pick<PlannerInput, 'shootHoursPerEpisode' | 'releaseCadenceDays' | 'shopHoursPerWeek'>) {
+export function episodeCapacity(
+  input: Pick<PlannerInput, 'shootHoursPerEpisode' | 'releaseCadenceDays' | 'shopHoursPerWeek'>,
+) {
   const { shootHoursPerEpisode: shoot, releaseCadenceDays: cadence, shopHoursPerWeek: shop } = input;
-  if (!(Number.isInteger(cadence) && cadence >= 1)) throw new RangeError('releaseCadenceDays must be a whole number ≥ 1');
+  if (!(Number.isInteger(cadence) && cadence >= 1))
+    throw new RangeError('releaseCadenceDays must be a whole number ≥ 1');
   if (!(shoot > 0) || !(shop > 0)) throw new RangeError('shootHoursPerEpisode and shopHoursPerWeek must be > 0');
   const shopPerSlot = (shop * cadence) / 7;
   return { capacity: Math.min(shoot, shopPerSlot), shopPerSlot };

@@ -70,7 +70,8 @@ export function bayForecast(tasks: readonly ForecastTask[], shopHoursPerWeek: nu
     clock = Math.max(clock, es) + cpm.tasks[work[k]].ef - es;
   }
   const days = Math.max(clock, cpm.duration);
-  if (blockStart < 0) return { ok: true, days, chainDays: cpm.duration, critical: [], drivenByRelease: null, order: [] };
+  if (blockStart < 0)
+    return { ok: true, days, chainDays: cpm.duration, critical: [], drivenByRelease: null, order: [] };
 
   // What opened the last stretch: follow the binding constraint of its early start back to a release.
   const byId = new Map(list.map((t) => [String(t.id), t]));

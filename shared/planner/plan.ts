@@ -41,7 +41,13 @@ export function proposePlan(input: PlannerInput): Plan {
   // list-scheduling rule for an early finish). It is kept only when it finishes strictly earlier:
   // otherwise the producer's priorities and votes decide.
   const second = planWith(input, 'chain');
-  if (second.ok && second.forecastFinish !== null && first.forecastFinish !== null && second.forecastFinish < first.forecastFinish) return second;
+  if (
+    second.ok &&
+    second.forecastFinish !== null &&
+    first.forecastFinish !== null &&
+    second.forecastFinish < first.forecastFinish
+  )
+    return second;
   return first;
 }
 
@@ -98,7 +104,8 @@ function planWith(input: PlannerInput, method: PlanMethod): Plan {
     if (!free[i]) continue;
     partsDay[i] = ups[i].partsDueDate ? toDay(ups[i].partsDueDate!) : -Infinity;
     let r = partsDay[i];
-    for (let e = g.predStart[i]; e < g.predStart[i + 1]; e++) if (free[g.predIdx[e]]) r = Math.max(r, readyDay[g.predIdx[e]]);
+    for (let e = g.predStart[i]; e < g.predStart[i + 1]; e++)
+      if (free[g.predIdx[e]]) r = Math.max(r, readyDay[g.predIdx[e]]);
     readyDay[i] = r;
   }
   // Inherited urgency: the best rank among the upgrade and everything free that depends on it, and
@@ -114,7 +121,10 @@ function planWith(input: PlannerInput, method: PlanMethod): Plan {
       const s = g.succIdx[e];
       if (!free[s]) continue;
       const day = fullRank[s] === ownRank[s] ? readyDay[s] : promoteDay[s];
-      if (fullRank[s] < fullRank[i] || (fullRank[s] === fullRank[i] && fullRank[i] !== ownRank[i] && day < promoteDay[i])) {
+      if (
+        fullRank[s] < fullRank[i] ||
+        (fullRank[s] === fullRank[i] && fullRank[i] !== ownRank[i] && day < promoteDay[i])
+      ) {
         fullRank[i] = fullRank[s];
         promoteDay[i] = day;
       }
@@ -194,7 +204,9 @@ function planWith(input: PlannerInput, method: PlanMethod): Plan {
     }
   };
   const emit = (number: number, day: number, oversize: boolean) => {
-    episodes.push(describeEpisode(number, fromDay(day), addDays(fromDay(day), cadence), current, ups, hoursOf, oversize));
+    episodes.push(
+      describeEpisode(number, fromDay(day), addDays(fromDay(day), cadence), current, ups, hoursOf, oversize),
+    );
     current = [];
   };
 
@@ -277,8 +289,7 @@ function planWith(input: PlannerInput, method: PlanMethod): Plan {
 }
 
 export type MinimumShopDays =
-  | { ok: true; hours: number; days: number; critical: number[] }
-  | { ok: false; cycle: number[] };
+  { ok: true; hours: number; days: number; critical: number[] } | { ok: false; cycle: number[] };
 
 /**
  * The shortest the remaining work can take if every chain of prerequisites ran back to back:
@@ -304,5 +315,10 @@ export function minimumShopDays(
   const r = criticalPath(tasks);
   if (!r.ok) return { ok: false, cycle: 'cycle' in r ? r.cycle.map(Number) : [] };
   const hours = roundHours(r.duration);
-  return { ok: true, hours, days: hours === 0 ? 0 : Math.ceil(hours / hoursPerDay - 1e-9), critical: r.critical.map(Number) };
+  return {
+    ok: true,
+    hours,
+    days: hours === 0 ? 0 : Math.ceil(hours / hoursPerDay - 1e-9),
+    critical: r.critical.map(Number),
+  };
 }

@@ -69,7 +69,12 @@ const OPEN_STATES = new Set(['draft', 'scheduled']);
  * the earliest. An episode's projected shoot is its planned shoot or the latest ready day of its
  * upgrades, whichever is later, and its release moves by the same number of days.
  */
-export function computeSlips(input: { today: string; episodes: SlipEpisode[]; upgrades: SlipUpgrade[]; parts: SlipPart[] }): EpisodeSlip[] {
+export function computeSlips(input: {
+  today: string;
+  episodes: SlipEpisode[];
+  upgrades: SlipUpgrade[];
+  parts: SlipPart[];
+}): EpisodeSlip[] {
   const { today } = input;
   const byId = new Map(input.upgrades.map((u) => [u.id, u]));
   const ownLate = new Map<number, LatePart>();
@@ -78,9 +83,22 @@ export function computeSlips(input: { today: string; episodes: SlipEpisode[]; up
     const u = byId.get(p.upgradeId);
     if (!u || u.installed) continue;
     const overdue = p.expectedArrival < today;
-    const late: LatePart = { partId: p.id, partNumber: p.partNumber, description: p.description, upgradeId: u.id, upgradeTitle: u.title, expectedArrival: p.expectedArrival, overdue };
+    const late: LatePart = {
+      partId: p.id,
+      partNumber: p.partNumber,
+      description: p.description,
+      upgradeId: u.id,
+      upgradeTitle: u.title,
+      expectedArrival: p.expectedArrival,
+      overdue,
+    };
     const prev = ownLate.get(u.id);
-    if (!prev || readyOf(late, today) > readyOf(prev, today) || (readyOf(late, today) === readyOf(prev, today) && late.partId < prev.partId)) ownLate.set(u.id, late);
+    if (
+      !prev ||
+      readyOf(late, today) > readyOf(prev, today) ||
+      (readyOf(late, today) === readyOf(prev, today) && late.partId < prev.partId)
+    )
+      ownLate.set(u.id, late);
   }
   const memo = new Map<number, LatePart | null>();
   const visiting = new Set<number>();
@@ -100,7 +118,8 @@ export function computeSlips(input: { today: string; episodes: SlipEpisode[]; up
   };
 
   const members = new Map<number, number[]>();
-  for (const u of input.upgrades) if (u.episodeId !== null) (members.get(u.episodeId) ?? members.set(u.episodeId, []).get(u.episodeId)!).push(u.id);
+  for (const u of input.upgrades)
+    if (u.episodeId !== null) (members.get(u.episodeId) ?? members.set(u.episodeId, []).get(u.episodeId)!).push(u.id);
 
   return input.episodes.map((e) => {
     let cause: LatePart | null = null;
@@ -126,7 +145,10 @@ export function computeSlips(input: { today: string; episodes: SlipEpisode[]; up
       planned: { shootDate: e.shootDate, releaseDate: e.releaseDate },
       projected,
       partsDelayDays: delay,
-      slipDays: { shoot: slip(e.baselineShootDate, projected.shootDate), release: slip(e.baselineReleaseDate, projected.releaseDate) },
+      slipDays: {
+        shoot: slip(e.baselineShootDate, projected.shootDate),
+        release: slip(e.baselineReleaseDate, projected.releaseDate),
+      },
       releaseAtRisk: delay > 0 && e.releaseDate !== null,
       cause: delay > 0 ? cause : null,
     };

@@ -49,7 +49,10 @@ export function validatePlan(input: PlannerInput, plan: PlanToValidate): PlanVio
           episodeNumbers: [ep.number],
         });
       } else if (!Number.isNaN(epOf[i])) {
-        const where = epOf[i] === ep.number ? `twice in episode ${ep.number}` : `in episode ${epOf[i]} and again in episode ${ep.number}`;
+        const where =
+          epOf[i] === ep.number
+            ? `twice in episode ${ep.number}`
+            : `in episode ${epOf[i]} and again in episode ${ep.number}`;
         out.push({
           kind: 'duplicate_upgrade',
           message: `${name(i)} is ${where}; an upgrade belongs to one episode.`,

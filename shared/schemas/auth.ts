@@ -4,10 +4,18 @@ import { ROLES } from '../domain';
 import { email, password, requiredText } from './common';
 
 export const loginSchema = z.strictObject({ email, password: z.string().min(1, 'is required').max(200) });
-export const changePasswordSchema = z.strictObject({ currentPassword: z.string().min(1, 'is required'), newPassword: password });
+export const changePasswordSchema = z.strictObject({
+  currentPassword: z.string().min(1, 'is required'),
+  newPassword: password,
+});
 
 const roles = z.array(z.enum(ROLES)).min(1, 'pick at least one role').max(4);
-export const createUserSchema = z.strictObject({ email, name: requiredText(120), roles, password: password.optional() });
+export const createUserSchema = z.strictObject({
+  email,
+  name: requiredText(120),
+  roles,
+  password: password.optional(),
+});
 export const updateUserSchema = z
   .strictObject({ name: requiredText(120).optional(), roles: roles.optional(), active: z.boolean().optional() })
   .refine((v) => Object.keys(v).length > 0, 'nothing to change');

@@ -48,7 +48,11 @@ const fields = {
   timeZone: z.string().trim().refine(isValidTimeZone, 'must be an IANA time zone name such as America/Denver'),
   costRecognition: z.enum(COST_RECOGNITIONS, 'must be at fitting or at receipt'),
   currency: currencyCode,
-  attributionWindowDays: z.number().int('must be whole days').min(0, 'cannot be negative').max(365, 'must be at most 365'),
+  attributionWindowDays: z
+    .number()
+    .int('must be whole days')
+    .min(0, 'cannot be negative')
+    .max(365, 'must be at most 365'),
 };
 
 /** Adds the VIN check: structural problems always refuse; a wrong check digit refuses unless overridden. */

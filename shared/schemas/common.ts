@@ -8,8 +8,15 @@ export const id = z.coerce.number().int().positive();
 export const isoDate = z
   .string()
   .regex(/^\d{4}-\d{2}-\d{2}$/, 'must be a date as YYYY-MM-DD')
-  .refine((s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s), 'is not a real date');
-export const cents = z.number().int('must be whole cents').min(0, 'cannot be negative').max(2_000_000_000, 'is too large');
+  .refine(
+    (s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s),
+    'is not a real date',
+  );
+export const cents = z
+  .number()
+  .int('must be whole cents')
+  .min(0, 'cannot be negative')
+  .max(2_000_000_000, 'is too large');
 export const hours = z.number().min(0, 'cannot be negative').max(1000, 'is too large');
 // PostgreSQL text cannot hold U+0000; refusing it here gives a 400 naming the field everywhere.
 const NUL = '\u0000';

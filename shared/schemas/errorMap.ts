@@ -37,8 +37,15 @@ const FIELD_WORDS: Record<string, string> = {
 /** "unitCostCents" → "Unit cost", "upgradeId" → "Upgrade", "shootDate" → "Shoot date". */
 export function fieldWords(key: string): string {
   if (FIELD_WORDS[key]) return FIELD_WORDS[key]!;
-  const bare = key.replace(/Cents$/, '').replace(/Id$/, '').replace(/Ids$/, 's');
-  const words = bare.replace(/_/g, ' ').replace(/([a-z0-9])([A-Z])/g, '$1 $2').toLowerCase().trim();
+  const bare = key
+    .replace(/Cents$/, '')
+    .replace(/Id$/, '')
+    .replace(/Ids$/, 's');
+  const words = bare
+    .replace(/_/g, ' ')
+    .replace(/([a-z0-9])([A-Z])/g, '$1 $2')
+    .toLowerCase()
+    .trim();
   return words ? words[0]!.toUpperCase() + words.slice(1) : key;
 }
 
@@ -52,7 +59,12 @@ export function fieldLabel(path: readonly PropertyKey[]): string {
   return `${fieldWords(named[0]!)}, row ${rows[0]! + 1}${named.length > 1 ? `: ${last.toLowerCase()}` : ''}`;
 }
 
-const VALUE_WORDS: Record<string, string> = { ...AREA_LABELS, ...INSTALL_STATE_LABELS, ...PART_STATE_LABELS, ...EPISODE_STATE_LABELS };
+const VALUE_WORDS: Record<string, string> = {
+  ...AREA_LABELS,
+  ...INSTALL_STATE_LABELS,
+  ...PART_STATE_LABELS,
+  ...EPISODE_STATE_LABELS,
+};
 /** A choice in words: "front" → "Front", "not_shot" → "Not shot". */
 export function valueWords(v: unknown): string {
   const s = String(v);
@@ -79,12 +91,28 @@ const FORMAT_WORDS: Record<string, string> = {
   regex: 'is not in the expected form',
 };
 
-type Issue = { code?: string; input?: unknown; expected?: string; values?: readonly unknown[]; origin?: string; minimum?: number | bigint; maximum?: number | bigint; inclusive?: boolean; format?: string; keys?: readonly string[]; divisor?: number };
+type Issue = {
+  code?: string;
+  input?: unknown;
+  expected?: string;
+  values?: readonly unknown[];
+  origin?: string;
+  minimum?: number | bigint;
+  maximum?: number | bigint;
+  inclusive?: boolean;
+  format?: string;
+  keys?: readonly string[];
+  divisor?: number;
+};
 
 function sizeWords(origin: string | undefined, n: number | bigint, small: boolean) {
   const num = Number(n);
-  if (origin === 'string') return num <= 1 && small ? 'is required' : `${small ? 'at least' : 'at most'} ${num} character${num === 1 ? '' : 's'}`;
-  if (origin === 'array' || origin === 'set') return `${small ? 'at least' : 'at most'} ${num} item${num === 1 ? '' : 's'}`;
+  if (origin === 'string')
+    return num <= 1 && small
+      ? 'is required'
+      : `${small ? 'at least' : 'at most'} ${num} character${num === 1 ? '' : 's'}`;
+  if (origin === 'array' || origin === 'set')
+    return `${small ? 'at least' : 'at most'} ${num} item${num === 1 ? '' : 's'}`;
   if (origin === 'file') return `${small ? 'at least' : 'at most'} ${num} bytes`;
   return `${small ? 'at least' : 'at most'} ${num}`;
 }
@@ -126,7 +154,8 @@ export function describeIssue(issue: { path: readonly PropertyKey[]; message: st
 }
 
 /** Text zod writes when no message was given; none of it may reach a person. */
-export const RAW_SCHEMA_TEXT = /Invalid input|Invalid option|expected one of|received (string|number|undefined|object|boolean)|Too (small|big)|Unrecognized key/i;
+export const RAW_SCHEMA_TEXT =
+  /Invalid input|Invalid option|expected one of|received (string|number|undefined|object|boolean)|Too (small|big)|Unrecognized key/i;
 
 let installed = false;
 /** Makes `issueWords` the message of every issue a schema does not word itself. */

@@ -35,7 +35,10 @@ export const mediaPatch = z
     caption: optionalText(500).optional(),
     stage: z.enum(MEDIA_STAGES).nullable().optional(),
   })
-  .refine((b) => b.caption !== undefined || b.stage !== undefined, { message: 'give caption or stage', path: ['caption'] });
+  .refine((b) => b.caption !== undefined || b.stage !== undefined, {
+    message: 'give caption or stage',
+    path: ['caption'],
+  });
 export type MediaPatch = z.infer<typeof mediaPatch>;
 
 /** A media record as the API sends it: its contract is in shared/contracts/media.ts. */

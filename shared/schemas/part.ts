@@ -15,7 +15,10 @@ const fields = {
   retailPriceCents: cents.nullish().transform((v) => v ?? null),
   supplier: optionalText(120),
   condition: z.enum(PART_CONDITIONS),
-  productUrl: httpUrl.nullish().or(z.literal('')).transform((v) => (v ? v : null)),
+  productUrl: httpUrl
+    .nullish()
+    .or(z.literal(''))
+    .transform((v) => (v ? v : null)),
   expectedArrival: nullableDate,
   orderedOn: nullableDate,
   receivedOn: nullableDate,

@@ -17,7 +17,11 @@ export const putChaptersSchema = z.strictObject({
 });
 /** Why an unfinished episode goes live anyway; without it, an unfinished episode is refused. */
 export const overrideReason = z.string().trim().min(1, 'give a reason').max(1000, 'must be at most 1000 characters');
-export const publishSchema = z.strictObject({ videoUrl: httpUrl, runtimeSeconds: runtime.optional(), overrideReason: overrideReason.optional() });
+export const publishSchema = z.strictObject({
+  videoUrl: httpUrl,
+  runtimeSeconds: runtime.optional(),
+  overrideReason: overrideReason.optional(),
+});
 export const campaignSchema = z.strictObject({
   campaign: z
     .string()

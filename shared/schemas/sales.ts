@@ -38,7 +38,10 @@ export const SALES_FIELDS = [
 export type SalesFieldKey = (typeof SALES_FIELDS)[number]['key'];
 
 const column = z.string().trim().min(1, 'names no column').max(200, 'must be at most 200 characters');
-const optionalColumn = column.nullish().or(z.literal('')).transform((v) => (v ? v : null));
+const optionalColumn = column
+  .nullish()
+  .or(z.literal(''))
+  .transform((v) => (v ? v : null));
 
 export const salesMappingSchema = z
   .strictObject({
@@ -55,13 +58,22 @@ export const salesMappingSchema = z
   })
   .superRefine((m, ctx) => {
     if (m.landingUrl && (m.campaign || m.content)) {
-      ctx.addIssue({ code: 'custom', path: ['landingUrl'], message: 'use either a landing page URL or campaign and content columns, not both' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['landingUrl'],
+        message: 'use either a landing page URL or campaign and content columns, not both',
+      });
     }
     const seen = new Map<string, string>();
     for (const f of SALES_FIELDS) {
       const col = m[f.key];
       if (!col) continue;
-      if (seen.has(col)) ctx.addIssue({ code: 'custom', path: [f.key], message: `uses the column "${col}" already picked for ${seen.get(col)}` });
+      if (seen.has(col))
+        ctx.addIssue({
+          code: 'custom',
+          path: [f.key],
+          message: `uses the column "${col}" already picked for ${seen.get(col)}`,
+        });
       else seen.set(col, f.label.toLowerCase());
     }
   });

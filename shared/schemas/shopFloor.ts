@@ -8,7 +8,9 @@ export const STEP_BACK_MARKS = ['installState', 'installSegment', 'demoSegment']
 export const stepBackSchema = z.strictObject({
   mark: z.enum(STEP_BACK_MARKS, 'choose install state, install segment or demo segment'),
   version: z.number().int().min(0),
-  reason: text(500).optional().transform((v) => (v ? v : undefined)),
+  reason: text(500)
+    .optional()
+    .transform((v) => (v ? v : undefined)),
 });
 
 export type StepBackInput = z.infer<typeof stepBackSchema>;

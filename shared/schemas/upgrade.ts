@@ -62,7 +62,13 @@ export const updateUpgradeSchema = z.strictObject({
 });
 
 /** Fields an installer may change on an upgrade (with version); anything else is refused 403. */
-export const INSTALLER_UPGRADE_FIELDS = ['installState', 'installSegment', 'demoSegment', 'version', 'confirmPartsNotReceived'] as const;
+export const INSTALLER_UPGRADE_FIELDS = [
+  'installState',
+  'installSegment',
+  'demoSegment',
+  'version',
+  'confirmPartsNotReceived',
+] as const;
 
 export const prerequisitesSchema = z.strictObject({ prerequisiteIds: z.array(refId).max(500) });
 

@@ -22,7 +22,9 @@ export const triageSchema = z
   .strictObject({
     action: z.enum(['accept', 'merge', 'decline']),
     upgradeId: id.optional(),
-    newUpgrade: z.strictObject({ title: requiredText(140), area: z.enum(AREAS), estimatedHours: hours.optional() }).optional(),
+    newUpgrade: z
+      .strictObject({ title: requiredText(140), area: z.enum(AREAS), estimatedHours: hours.optional() })
+      .optional(),
     intoId: id.optional(),
     reason: requiredText(500).optional(),
     /** The request's version when it was read; a request changed since answers 409. */
@@ -30,7 +32,8 @@ export const triageSchema = z
   })
   .superRefine((v, ctx) => {
     const need = (path: string, message: string) => ctx.addIssue({ code: 'custom', path: [path], message });
-    if (v.action === 'accept' && !!v.upgradeId === !!v.newUpgrade) need('upgradeId', 'give either upgradeId (link an upgrade) or newUpgrade (create one)');
+    if (v.action === 'accept' && !!v.upgradeId === !!v.newUpgrade)
+      need('upgradeId', 'give either upgradeId (link an upgrade) or newUpgrade (create one)');
     if (v.action === 'merge' && !v.intoId) need('intoId', 'is required to merge');
     if (v.action === 'decline' && !v.reason) need('reason', 'is required to decline');
   });

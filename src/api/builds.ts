@@ -14,6 +14,7 @@ export const buildsApi = {
   list: () => api.get<{ builds: BuildListRow[] }>('/api/builds'),
   get: (buildId: number) => api.get<BuildAnswer>(`/api/builds/${buildId}`),
   create: (body: BuildInput) => api.post<BuildAnswer>('/api/builds', body),
-  update: (buildId: number, body: BuildInput & { version: number }) => api.patch<BuildAnswer>(`/api/builds/${buildId}`, body),
+  update: (buildId: number, body: BuildInput & { version: number }) =>
+    api.patch<BuildAnswer>(`/api/builds/${buildId}`, body),
   remove: (buildId: number) => api.del<void>(`/api/builds/${buildId}`),
 };

@@ -12,6 +12,7 @@ const base = (buildId: number) => `/api/builds/${buildId}/episodes`;
 export const episodesApi = {
   list: (buildId: number) => api.get<EpisodeList>(base(buildId)),
   create: (buildId: number, body: z.input<typeof createEpisodeSchema>) => api.post<EpisodeAnswer>(base(buildId), body),
-  update: (buildId: number, id: number, body: EpisodeChange) => api.patch<EpisodeAnswer>(`${base(buildId)}/${id}`, body),
+  update: (buildId: number, id: number, body: EpisodeChange) =>
+    api.patch<EpisodeAnswer>(`${base(buildId)}/${id}`, body),
   remove: (buildId: number, id: number) => api.del<void>(`${base(buildId)}/${id}`),
 };

@@ -27,8 +27,17 @@ export function setUnauthorizedHandler(fn: () => void) {
   onUnauthorized = fn;
 }
 
-export async function request<T>(method: string, url: string, body?: unknown, opts: { raw?: boolean; contentType?: string; cache?: RequestCache } & ChangeOptions = {}): Promise<T> {
-  const headers: Record<string, string> = { 'X-Requested-With': 'Bayslate', Accept: 'application/json', ...keyHeaders(opts.idempotencyKey) };
+export async function request<T>(
+  method: string,
+  url: string,
+  body?: unknown,
+  opts: { raw?: boolean; contentType?: string; cache?: RequestCache } & ChangeOptions = {},
+): Promise<T> {
+  const headers: Record<string, string> = {
+    'X-Requested-With': 'Bayslate',
+    Accept: 'application/json',
+    ...keyHeaders(opts.idempotencyKey),
+  };
   let payload: BodyInit | undefined;
   if (body !== undefined) {
     headers['Content-Type'] = opts.contentType ?? 'application/json';
@@ -36,7 +45,13 @@ export async function request<T>(method: string, url: string, body?: unknown, op
   }
   let res: Response;
   try {
-    res = await fetch(url, { method, headers, body: payload, credentials: 'same-origin', ...(opts.cache ? { cache: opts.cache } : {}) });
+    res = await fetch(url, {
+      method,
+      headers,
+      body: payload,
+      credentials: 'same-origin',
+      ...(opts.cache ? { cache: opts.cache } : {}),
+    });
   } catch {
     throw new ApiError(0, 'network', 'The server cannot be reached. Check the connection and try again.');
   }
@@ -48,7 +63,13 @@ export async function request<T>(method: string, url: string, body?: unknown, op
     } catch {
       /* not JSON */
     }
-    throw new ApiError(res.status, data.error?.code ?? 'http_' + res.status, data.error?.message ?? `The server answered ${res.status}.`, data.error?.fields ?? [], data.error ?? {});
+    throw new ApiError(
+      res.status,
+      data.error?.code ?? 'http_' + res.status,
+      data.error?.message ?? `The server answered ${res.status}.`,
+      data.error?.fields ?? [],
+      data.error ?? {},
+    );
   }
   if (opts.raw) return (await res.text()) as T;
   if (res.status === 204) return undefined as T;

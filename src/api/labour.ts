@@ -8,7 +8,8 @@ const base = (buildId: number) => `/api/builds/${buildId}/labour`;
 
 export const labourApi = {
   list: (buildId: number, q: { upgradeId?: number } = {}) => api.get<LabourList>(base(buildId) + qs({ ...q })),
-  create: (buildId: number, body: LabourInput, opts: ChangeOptions = {}) => api.post<LabourAnswer>(base(buildId), body, opts),
+  create: (buildId: number, body: LabourInput, opts: ChangeOptions = {}) =>
+    api.post<LabourAnswer>(base(buildId), body, opts),
   update: (buildId: number, id: number, body: LabourInput) => api.patch<LabourAnswer>(`${base(buildId)}/${id}`, body),
   remove: (buildId: number, id: number) => api.del<void>(`${base(buildId)}/${id}`),
 };

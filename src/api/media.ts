@@ -40,12 +40,19 @@ export const mediaApi = {
   downloadUrl: (buildId: number, id: number) => `${base(buildId)}/${id}/download`,
 
   /** Uploads one file; `onProgress` gets 0…1 as the bytes leave the browser. */
-  upload(buildId: number, file: File, fields: UploadFields, onProgress: (fraction: number) => void, opts: ChangeOptions = {}): UploadHandle {
+  upload(
+    buildId: number,
+    file: File,
+    fields: UploadFields,
+    onProgress: (fraction: number) => void,
+    opts: ChangeOptions = {},
+  ): UploadHandle {
     const xhr = new XMLHttpRequest();
     const done = new Promise<MediaRecord>((resolve, reject) => {
       const form = new FormData();
       // Fields before the file, so the server reads them first.
-      for (const [k, v] of Object.entries(fields)) if (v !== undefined && v !== null && v !== '') form.append(k, String(v));
+      for (const [k, v] of Object.entries(fields))
+        if (v !== undefined && v !== null && v !== '') form.append(k, String(v));
       form.append('file', file, file.name);
       xhr.open('POST', base(buildId));
       xhr.setRequestHeader('X-Requested-With', 'Bayslate');
@@ -56,12 +63,24 @@ export const mediaApi = {
         if (e.lengthComputable) onProgress(e.loaded / e.total);
       };
       xhr.onload = () => {
-        const body = (xhr.response ?? {}) as { media?: MediaRecord; error?: { code?: string; message?: string; fields?: { path: string; message: string }[] } };
+        const body = (xhr.response ?? {}) as {
+          media?: MediaRecord;
+          error?: { code?: string; message?: string; fields?: { path: string; message: string }[] };
+        };
         if (xhr.status === 201 && body.media) return resolve(body.media);
-        const fallback = xhr.status === 413 ? 'The file is too large for this kind of upload.' : `The server answered ${xhr.status}.`;
-        reject(new ApiError(xhr.status, body.error?.code ?? `http_${xhr.status}`, body.error?.message ?? fallback, body.error?.fields ?? []));
+        const fallback =
+          xhr.status === 413 ? 'The file is too large for this kind of upload.' : `The server answered ${xhr.status}.`;
+        reject(
+          new ApiError(
+            xhr.status,
+            body.error?.code ?? `http_${xhr.status}`,
+            body.error?.message ?? fallback,
+            body.error?.fields ?? [],
+          ),
+        );
       };
-      xhr.onerror = () => reject(new ApiError(0, 'network', 'The upload was interrupted. Check the connection and try again.'));
+      xhr.onerror = () =>
+        reject(new ApiError(0, 'network', 'The upload was interrupted. Check the connection and try again.'));
       xhr.onabort = () => reject(new ApiError(0, 'aborted', 'Upload cancelled.'));
       xhr.send(form);
     });

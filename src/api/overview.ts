@@ -3,11 +3,19 @@ import { api } from './http';
 import { expandOverview, type BuildOverview } from '@shared/overview';
 import type { OverviewAnswer } from '@shared/contracts/overview';
 
-export type { BuildOverview, OverviewUpgradeRow, OverviewAreaRow, OverviewEpisodeRow, OverviewCostRow, BurndownPoint } from '@shared/overview';
+export type {
+  BuildOverview,
+  OverviewUpgradeRow,
+  OverviewAreaRow,
+  OverviewEpisodeRow,
+  OverviewCostRow,
+  BurndownPoint,
+} from '@shared/overview';
 
 export const overviewApi = {
   /** The answer travels compact (columns, no derived fields); the screens read it expanded. */
-  get: async (buildId: number | string): Promise<BuildOverview> => expandOverview(await api.get<OverviewAnswer>(`/api/builds/${buildId}/overview`)),
+  get: async (buildId: number | string): Promise<BuildOverview> =>
+    expandOverview(await api.get<OverviewAnswer>(`/api/builds/${buildId}/overview`)),
 };
 
 /** Cents as a plain decimal for CSV files (no currency sign, no grouping): 123456 → "1234.56". */

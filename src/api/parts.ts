@@ -17,11 +17,14 @@ export const partsApi = {
   list: (buildId: number, q: { upgradeId?: number; state?: PartState; page?: number; pageSize?: number } = {}) =>
     api.get<{ parts: PartRow[]; total: number }>(base(buildId) + qs({ ...q })),
   create: (buildId: number, body: PartInput) => api.post<{ part: PartRow }>(base(buildId), body),
-  update: (buildId: number, id: number, body: PartInput) => api.patch<{ part: PartRow }>(`${base(buildId)}/${id}`, body),
+  update: (buildId: number, id: number, body: PartInput) =>
+    api.patch<{ part: PartRow }>(`${base(buildId)}/${id}`, body),
   remove: (buildId: number, id: number) => api.del<void>(`${base(buildId)}/${id}`),
   exportCsv: (buildId: number) => request<string>('GET', `${base(buildId)}.csv`, undefined, { raw: true }),
   importCsv: (buildId: number, csv: string, dryRun: boolean) =>
-    request<ImportReport>('POST', `${base(buildId)}/import${dryRun ? '?dryRun=1' : ''}`, csv, { contentType: 'text/csv' }),
+    request<ImportReport>('POST', `${base(buildId)}/import${dryRun ? '?dryRun=1' : ''}`, csv, {
+      contentType: 'text/csv',
+    }),
 };
 
 /** Every part of a build, paging through the list. */

@@ -5,7 +5,14 @@ import type { PlanApplied, PlanCheck, PlanOverview, PlanUndone, ProposalAnswer }
 import type { CalendarAddress } from '@shared/contracts/calendar';
 import type { planSchema, proposalSchema } from '@shared/schemas/episode';
 
-export type { CriticalSummary, PlanDifference, PlanOverview, PlanUpgrade, ProposalAnswer, ProposedEpisode } from '@shared/contracts/plan';
+export type {
+  CriticalSummary,
+  PlanDifference,
+  PlanOverview,
+  PlanUpgrade,
+  ProposalAnswer,
+  ProposedEpisode,
+} from '@shared/contracts/plan';
 
 /** One episode of a plan the producer applies (shared/schemas/episode.ts planSchema). */
 export type PlanBodyEpisode = z.input<typeof planSchema>['episodes'][number];
@@ -15,7 +22,8 @@ const base = (buildId: number) => `/api/builds/${buildId}/plan`;
 export const planApi = {
   overview: (buildId: number) => api.get<PlanOverview>(base(buildId)),
   check: (buildId: number) => api.get<PlanCheck>(`${base(buildId)}/check`),
-  propose: (buildId: number, capacity: z.input<typeof proposalSchema> = {}) => api.post<ProposalAnswer>(`${base(buildId)}/proposal`, capacity),
+  propose: (buildId: number, capacity: z.input<typeof proposalSchema> = {}) =>
+    api.post<ProposalAnswer>(`${base(buildId)}/proposal`, capacity),
   apply: (buildId: number, episodes: PlanBodyEpisode[], basedOn: number, acceptDateChanges?: number[]) =>
     api.put<PlanApplied>(base(buildId), { episodes, basedOn, ...(acceptDateChanges ? { acceptDateChanges } : {}) }),
   undo: (buildId: number, basedOn: number) => api.post<PlanUndone>(`${base(buildId)}/undo`, { basedOn }),

@@ -10,11 +10,12 @@ export const publicApi = {
   // The answer may be kept by caches for other viewers (public, short max-age); this browser always
   // asks again with its ETag (a cheap 304), so a viewer sees their own confirmed vote at once.
   build: (slug: string) => request<PublicBuild>('GET', b(slug), undefined, { cache: 'no-cache' }),
-  request: (slug: string, body: { title: string; details?: string | null; name?: string | null; email: string; website?: string }) =>
-    api.post<Accepted>(`${b(slug)}/requests`, body),
+  request: (
+    slug: string,
+    body: { title: string; details?: string | null; name?: string | null; email: string; website?: string },
+  ) => api.post<Accepted>(`${b(slug)}/requests`, body),
   vote: (slug: string, requestId: number, body: { name?: string | null; email: string; website?: string }) =>
     api.post<Accepted>(`${b(slug)}/requests/${requestId}/votes`, body),
-  confirm: (token: string) =>
-    api.get<Confirmed>(`/api/public/confirm/${encodeURIComponent(token)}`),
+  confirm: (token: string) => api.get<Confirmed>(`/api/public/confirm/${encodeURIComponent(token)}`),
   unsubscribe: (token: string) => api.get<Accepted>(`/api/public/unsubscribe/${encodeURIComponent(token)}`),
 };

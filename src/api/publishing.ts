@@ -2,7 +2,14 @@
 import type { z } from 'zod';
 import { api } from './http';
 import type { EpisodeAnswer } from '@shared/contracts/episode';
-import type { Campaign, ChaptersAnswer, ChaptersSaved, LinkHealth, Readiness, ShowNotesAnswer } from '@shared/contracts/publishing';
+import type {
+  Campaign,
+  ChaptersAnswer,
+  ChaptersSaved,
+  LinkHealth,
+  Readiness,
+  ShowNotesAnswer,
+} from '@shared/contracts/publishing';
 import type { publishSchema, putChaptersSchema } from '@shared/schemas/publishing';
 
 export type { LinkHealthPart } from '@shared/contracts/publishing';
@@ -11,11 +18,14 @@ const ep = (buildId: number, episodeId: number) => `/api/builds/${buildId}/episo
 
 export const publishingApi = {
   chapters: (buildId: number, episodeId: number) => api.get<ChaptersAnswer>(`${ep(buildId, episodeId)}/chapters`),
-  saveChapters: (buildId: number, episodeId: number, body: z.input<typeof putChaptersSchema>) => api.put<ChaptersSaved>(`${ep(buildId, episodeId)}/chapters`, body),
+  saveChapters: (buildId: number, episodeId: number, body: z.input<typeof putChaptersSchema>) =>
+    api.put<ChaptersSaved>(`${ep(buildId, episodeId)}/chapters`, body),
   showNotes: (buildId: number, episodeId: number) => api.get<ShowNotesAnswer>(`${ep(buildId, episodeId)}/show-notes`),
   readiness: (buildId: number, episodeId: number) => api.get<Readiness>(`${ep(buildId, episodeId)}/readiness`),
-  publish: (buildId: number, episodeId: number, body: z.input<typeof publishSchema>) => api.post<EpisodeAnswer>(`${ep(buildId, episodeId)}/publish`, body),
+  publish: (buildId: number, episodeId: number, body: z.input<typeof publishSchema>) =>
+    api.post<EpisodeAnswer>(`${ep(buildId, episodeId)}/publish`, body),
   linkHealth: (buildId: number) => api.get<LinkHealth>(`/api/builds/${buildId}/link-health`),
   campaign: (buildId: number) => api.get<Campaign>(`/api/builds/${buildId}/campaign`),
-  setCampaign: (buildId: number, campaign: string | null) => api.put<Campaign>(`/api/builds/${buildId}/campaign`, { campaign }),
+  setCampaign: (buildId: number, campaign: string | null) =>
+    api.put<Campaign>(`/api/builds/${buildId}/campaign`, { campaign }),
 };

@@ -23,8 +23,10 @@ export interface CardAction {
 }
 
 export const shopFloorApi = {
-  get: (buildId: number, episodeId?: number) => api.get<ShopFloor>(`/api/builds/${buildId}/shop-floor${qs({ episodeId })}`),
+  get: (buildId: number, episodeId?: number) =>
+    api.get<ShopFloor>(`/api/builds/${buildId}/shop-floor${qs({ episodeId })}`),
   stepBack: (buildId: number, upgradeId: number, body: { mark: Mark; version: number; reason?: string }) =>
     api.post<UpgradeAnswer>(`/api/builds/${buildId}/shop-floor/upgrades/${upgradeId}/step-back`, body),
-  cautionRead: (buildId: number, upgradeId: number) => api.post<void>(`/api/builds/${buildId}/shop-floor/upgrades/${upgradeId}/caution-read`, {}),
+  cautionRead: (buildId: number, upgradeId: number) =>
+    api.post<void>(`/api/builds/${buildId}/shop-floor/upgrades/${upgradeId}/caution-read`, {}),
 };

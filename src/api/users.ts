@@ -9,7 +9,9 @@ export type UserRow = User;
 
 export const usersApi = {
   list: () => api.get<UserList>('/api/users'),
-  create: (body: { email: string; name: string; roles: Role[]; password?: string }) => api.post<UserCreated>('/api/users', body),
-  update: (id: number, body: Partial<Pick<UserRow, 'name' | 'roles' | 'active'>>) => api.patch<UserAnswer>(`/api/users/${id}`, body),
+  create: (body: { email: string; name: string; roles: Role[]; password?: string }) =>
+    api.post<UserCreated>('/api/users', body),
+  update: (id: number, body: Partial<Pick<UserRow, 'name' | 'roles' | 'active'>>) =>
+    api.patch<UserAnswer>(`/api/users/${id}`, body),
   resetPassword: (id: number, password: string) => api.post<OkAnswer>(`/api/users/${id}/password`, { password }),
 };

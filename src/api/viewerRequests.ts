@@ -16,7 +16,7 @@ export type TriageBody = (
 const base = (buildId: number) => `/api/builds/${buildId}/viewer-requests`;
 
 export const viewerRequestsApi = {
-  list: (buildId: number, state?: RequestState) =>
-    api.get<StaffRequestList>(base(buildId) + qs({ state })),
-  triage: (buildId: number, id: number, body: TriageBody) => api.patch<StaffRequestAnswer>(`${base(buildId)}/${id}`, body),
+  list: (buildId: number, state?: RequestState) => api.get<StaffRequestList>(base(buildId) + qs({ state })),
+  triage: (buildId: number, id: number, body: TriageBody) =>
+    api.patch<StaffRequestAnswer>(`${base(buildId)}/${id}`, body),
 };

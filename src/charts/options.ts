@@ -13,12 +13,14 @@ export interface AxisSpec {
 }
 
 type Plain = Record<string, unknown>;
-const isPlain = (v: unknown): v is Plain => typeof v === 'object' && v !== null && !Array.isArray(v) && Object.getPrototypeOf(v) === Object.prototype;
+const isPlain = (v: unknown): v is Plain =>
+  typeof v === 'object' && v !== null && !Array.isArray(v) && Object.getPrototypeOf(v) === Object.prototype;
 
 /** Deep merge of plain objects; arrays, functions and other values from `over` replace. */
 export function mergeOptions<T extends Plain>(base: T, over: Plain): T {
   const out: Plain = { ...base };
-  for (const [k, v] of Object.entries(over)) out[k] = isPlain(v) && isPlain(out[k]) ? mergeOptions(out[k] as Plain, v) : v;
+  for (const [k, v] of Object.entries(over))
+    out[k] = isPlain(v) && isPlain(out[k]) ? mergeOptions(out[k] as Plain, v) : v;
   return out as T;
 }
 
@@ -41,7 +43,10 @@ export function axis(colors: ChartColors, spec: AxisSpec = {}): Plain {
  * tooltip type, the panel background) with the chart's own `scales` (as `AxisSpec`s) and the rest
  * of its options merged over it.
  */
-export function chartOptions<T extends ChartType>(colors: ChartColors, own?: Omit<ChartOptions<T>, 'scales'> & { scales?: Record<string, AxisSpec> }): ChartOptions<T> {
+export function chartOptions<T extends ChartType>(
+  colors: ChartColors,
+  own?: Omit<ChartOptions<T>, 'scales'> & { scales?: Record<string, AxisSpec> },
+): ChartOptions<T> {
   const { scales = {}, ...rest } = (own ?? {}) as { scales?: Record<string, AxisSpec> } & Plain;
   const font = { family: chartFont };
   const base: Plain = {
@@ -62,7 +67,8 @@ export function chartOptions<T extends ChartType>(colors: ChartColors, own?: Omi
 export const panelBackground: Plugin = {
   id: 'bayslatePanelBackground',
   beforeDraw(chart) {
-    const fill = (chart.options.plugins as { bayslateBackground?: { color?: string } } | undefined)?.bayslateBackground?.color;
+    const fill = (chart.options.plugins as { bayslateBackground?: { color?: string } } | undefined)?.bayslateBackground
+      ?.color;
     if (!fill) return;
     const { ctx, width, height } = chart;
     ctx.save();

@@ -33,9 +33,13 @@ export function useApiQuery<T>(key: () => QueryKey | null, fetch: () => Promise<
     ...(opts.staleTime !== undefined ? { staleTime: opts.staleTime } : {}),
   });
   /** The error in words, or '' while all is well. */
-  const error = computed(() => (query.error.value ? errorMessage(query.error.value, opts.fallback, opts.byStatus) : ''));
+  const error = computed(() =>
+    query.error.value ? errorMessage(query.error.value, opts.fallback, opts.byStatus) : '',
+  );
   /** True while this key's answer is on its way (the first load, another page or filter). */
-  const loading = computed(() => query.isFetching.value && (query.data.value === undefined || query.isPlaceholderData.value));
+  const loading = computed(
+    () => query.isFetching.value && (query.data.value === undefined || query.isPlaceholderData.value),
+  );
   /** True while any request is out, a background refresh after a write or a live notice too. */
   const refreshing = computed(() => query.isFetching.value);
   return { data: query.data, loading, refreshing, error, refetch: () => query.refetch(), query };

@@ -11,7 +11,10 @@ import { BuildChange } from '@shared/contracts/events';
 
 const GATHER_MS = 200;
 
-export function useBuildEvents(buildId: Ref<number | null | undefined> | (() => number | null | undefined), onChange?: (what: string[]) => void) {
+export function useBuildEvents(
+  buildId: Ref<number | null | undefined> | (() => number | null | undefined),
+  onChange?: (what: string[]) => void,
+) {
   const client = useQueryClient();
   const connected = ref(false);
   let source: EventSource | null = null;

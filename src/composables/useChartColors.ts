@@ -22,7 +22,11 @@ export function useChartColors(paper: () => boolean = () => false) {
   /** Axis options in the theme's colours, to spread into a scale. */
   const axis = computed(() => {
     const c = colors.value;
-    return { ticks: { color: c.text, font: { family: chartFont } }, grid: { color: c.grid }, title: { color: c.text, font: { family: chartFont } } };
+    return {
+      ticks: { color: c.text, font: { family: chartFont } },
+      grid: { color: c.grid },
+      title: { color: c.text, font: { family: chartFont } },
+    };
   });
   /** The panel colour behind the chart (also the background of a PNG export). */
   const background = computed(() => ({ bayslateBackground: { color: colors.value.panel } }));

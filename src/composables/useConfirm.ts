@@ -8,7 +8,8 @@ import { useDialog, type DialogOptions } from 'naive-ui';
 function nameDialogs(fallback: string, frames = 20) {
   const run = (left: number) => {
     const unnamed = [...document.querySelectorAll<HTMLElement>('.n-dialog[role="dialog"]:not([aria-label])')];
-    for (const el of unnamed) el.setAttribute('aria-label', el.querySelector('.n-dialog__title')?.textContent?.trim() || fallback);
+    for (const el of unnamed)
+      el.setAttribute('aria-label', el.querySelector('.n-dialog__title')?.textContent?.trim() || fallback);
     if (!unnamed.length && left > 0) requestAnimationFrame(() => run(left - 1));
   };
   requestAnimationFrame(() => run(frames));

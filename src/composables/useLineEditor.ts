@@ -61,7 +61,8 @@ export function useLineEditor<S extends ZodType>(schema: S, changed: () => void)
       return true;
     } catch (e) {
       form.errors.value = fieldErrorsOf(e);
-      if (!texts.onError?.(e)) message.error(Object.keys(form.errors.value).length ? FIELDS_NEED_ATTENTION : errorMessage(e, texts.failed));
+      if (!texts.onError?.(e))
+        message.error(Object.keys(form.errors.value).length ? FIELDS_NEED_ATTENTION : errorMessage(e, texts.failed));
       return false;
     } finally {
       form.busy.value = false;
@@ -69,7 +70,11 @@ export function useLineEditor<S extends ZodType>(schema: S, changed: () => void)
   }
 
   /** A one-step change of a line (mark received, sold…): says what it did or why it failed. */
-  async function act(send: () => Promise<unknown>, done: string, failed: string | ((e: unknown) => string)): Promise<boolean> {
+  async function act(
+    send: () => Promise<unknown>,
+    done: string,
+    failed: string | ((e: unknown) => string),
+  ): Promise<boolean> {
     try {
       await send();
       message.success(done);
@@ -83,11 +88,20 @@ export function useLineEditor<S extends ZodType>(schema: S, changed: () => void)
 
   /** Asks before deleting a line, then deletes it. */
   function confirmRemove(o: RemoveOptions) {
-    confirm({ title: o.title, content: o.content, positiveText: o.positiveText, negativeText: 'Keep it', onPositiveClick: () => act(o.send, o.done, o.failed).then(() => undefined) });
+    confirm({
+      title: o.title,
+      content: o.content,
+      positiveText: o.positiveText,
+      negativeText: 'Keep it',
+      onPositiveClick: () => act(o.send, o.done, o.failed).then(() => undefined),
+    });
   }
 
   /** naive-ui form-item props of one field: its error text and status. */
-  const fb = (k: string) => ({ feedback: form.errors.value[k], 'validation-status': form.errors.value[k] ? ('error' as const) : undefined });
+  const fb = (k: string) => ({
+    feedback: form.errors.value[k],
+    'validation-status': form.errors.value[k] ? ('error' as const) : undefined,
+  });
 
   return { open, errors: form.errors, saving: form.busy, save, act, confirmRemove, fb, clear: form.clear };
 }

@@ -11,7 +11,11 @@ const RETRY_MS = 15_000;
 
 const waiting = shallowRef<QueuedAction[]>([]);
 const refusals = shallowRef<Refusal[]>([]);
-const live = reactive({ online: typeof navigator === 'undefined' ? true : navigator.onLine, sendingSeq: null as number | null, progress: {} as Record<number, number> });
+const live = reactive({
+  online: typeof navigator === 'undefined' ? true : navigator.onLine,
+  sendingSeq: null as number | null,
+  progress: {} as Record<number, number>,
+});
 const sentListeners = new Set<(action: QueuedAction, result: unknown) => void>();
 const refusedListeners = new Set<(refusal: Refusal) => void>();
 let current: { userId: number; outbox: Outbox } | null = null;
@@ -51,7 +55,9 @@ function outboxFor(userId: number): Outbox {
     send: (action) => {
       live.sendingSeq = action.seq!;
       live.progress = { ...live.progress, [action.seq!]: 0 };
-      return sendAction(action, (f) => (live.progress = { ...live.progress, [action.seq!]: f })).finally(() => (live.sendingSeq = null));
+      return sendAction(action, (f) => (live.progress = { ...live.progress, [action.seq!]: f })).finally(
+        () => (live.sendingSeq = null),
+      );
     },
     onSent: (action, result) => sentListeners.forEach((fn) => fn(action, result)),
     onRefused: (refusal) => refusedListeners.forEach((fn) => fn(refusal)),
@@ -71,7 +77,10 @@ export function stopOutboxTimer() {
   watching = false;
 }
 
-export function useOutbox(userId: number, handlers: { onSent?: (action: QueuedAction, result: unknown) => void; onRefused?: (refusal: Refusal) => void } = {}) {
+export function useOutbox(
+  userId: number,
+  handlers: { onSent?: (action: QueuedAction, result: unknown) => void; onRefused?: (refusal: Refusal) => void } = {},
+) {
   const outbox = outboxFor(userId);
   watchNetwork();
   if (handlers.onSent) sentListeners.add(handlers.onSent);

@@ -8,12 +8,24 @@ import { withWaiting } from '@/offline/apply';
 import type { UseOutbox } from './useOutbox';
 import type { UpgradeRecord } from '@shared/domain';
 
-export function useShopFloorData(buildId: Ref<number>, episodeChoice: Ref<number | null>, userId: number, outbox: UseOutbox) {
+export function useShopFloorData(
+  buildId: Ref<number>,
+  episodeChoice: Ref<number | null>,
+  userId: number,
+  outbox: UseOutbox,
+) {
   const base = ref<ShopFloor | null>(null);
   /** When the screen shows the phone's copy: when that copy was saved. Null while online answers arrive. */
   const copySavedAt = ref<string | null>(null);
 
-  const data = computed(() => (base.value ? withWaiting(base.value, outbox.waiting.value.filter((a) => a.buildId === buildId.value)) : null));
+  const data = computed(() =>
+    base.value
+      ? withWaiting(
+          base.value,
+          outbox.waiting.value.filter((a) => a.buildId === buildId.value),
+        )
+      : null,
+  );
 
   let answeredAt: string | null = null;
 
@@ -32,7 +44,12 @@ export function useShopFloorData(buildId: Ref<number>, episodeChoice: Ref<number
         return;
       }
       const copy = await offlineStore.snapshot(userId, buildId.value).catch(() => undefined);
-      if (!copy) throw new ApiError(0, 'offline', 'You are offline, and this phone has no copy of this shop floor yet. Open it once with the network to keep one.');
+      if (!copy)
+        throw new ApiError(
+          0,
+          'offline',
+          'You are offline, and this phone has no copy of this shop floor yet. Open it once with the network to keep one.',
+        );
       base.value = copy.data;
       copySavedAt.value = copy.savedAt;
     }
@@ -41,10 +58,13 @@ export function useShopFloorData(buildId: Ref<number>, episodeChoice: Ref<number
   /** Everywhere the upgrade appears, the server's newer record (the answer to a sent mark). */
   function patchUpgrade(upgrade: UpgradeRecord) {
     if (!base.value) return;
-    for (const item of [...base.value.inBay, ...base.value.upgrades]) if (item.upgrade.id === upgrade.id && item.upgrade.version < upgrade.version) item.upgrade = { ...item.upgrade, ...upgrade };
+    for (const item of [...base.value.inBay, ...base.value.upgrades])
+      if (item.upgrade.id === upgrade.id && item.upgrade.version < upgrade.version)
+        item.upgrade = { ...item.upgrade, ...upgrade };
   }
   function markCautionRead(upgradeId: number) {
-    for (const item of [...(base.value?.inBay ?? []), ...(base.value?.upgrades ?? [])]) if (item.upgrade.id === upgradeId) item.cautionRead = true;
+    for (const item of [...(base.value?.inBay ?? []), ...(base.value?.upgrades ?? [])])
+      if (item.upgrade.id === upgradeId) item.cautionRead = true;
   }
 
   return { data, copySavedAt, fetch, patchUpgrade, markCautionRead };

@@ -23,14 +23,36 @@ export function useShopFloorQueue(buildId: Ref<number>, userId: number, outbox: 
   return {
     /** Queues a mark; answers its place in the outbox (for the undo). */
     queueMark(item: ShopFloorItem, action: CardAction, change: InstallerChange, key?: string): Promise<number> {
-      return outbox.enqueue({ ...base(item), kind: 'mark', label: action.label, mark: action.mark, change, ...(key ? { key } : {}) });
+      return outbox.enqueue({
+        ...base(item),
+        kind: 'mark',
+        label: action.label,
+        mark: action.mark,
+        change,
+        ...(key ? { key } : {}),
+      });
     },
     async queueHours(item: ShopFloorItem, e: { hours: number; kind: LabourKind; workedOn: string }) {
-      await outbox.enqueue({ ...base(item), kind: 'hours', label: `${hoursText(e.hours)} ${KIND_WORDS[e.kind]} on ${e.workedOn}`, hours: e.hours, labourKind: e.kind, workedOn: e.workedOn });
+      await outbox.enqueue({
+        ...base(item),
+        kind: 'hours',
+        label: `${hoursText(e.hours)} ${KIND_WORDS[e.kind]} on ${e.workedOn}`,
+        hours: e.hours,
+        labourKind: e.kind,
+        workedOn: e.workedOn,
+      });
     },
     async queuePhotos(item: ShopFloorItem, files: File[], stage: MediaStage) {
       for (const file of files)
-        await outbox.enqueue({ ...base(item), kind: 'photo', label: `Photo ${file.name}`, blob: file, fileName: file.name, stage, episodeId: item.upgrade.episodeId ?? null });
+        await outbox.enqueue({
+          ...base(item),
+          kind: 'photo',
+          label: `Photo ${file.name}`,
+          blob: file,
+          fileName: file.name,
+          stage,
+          episodeId: item.upgrade.episodeId ?? null,
+        });
     },
   };
 }

@@ -64,7 +64,11 @@ export function useZodForm<S extends ZodType>(schema: S) {
    * Checks `body`, sends the parsed value with `send`, and returns its answer; returns undefined
    * (with the errors shown) when the body is refused here or by the server.
    */
-  async function submit<T>(body: unknown, send: (data: z.output<S>) => Promise<T>, opts: SubmitOptions = {}): Promise<T | undefined> {
+  async function submit<T>(
+    body: unknown,
+    send: (data: z.output<S>) => Promise<T>,
+    opts: SubmitOptions = {},
+  ): Promise<T | undefined> {
     const data = check(body, opts.schema);
     if (data === null) return undefined;
     busy.value = true;

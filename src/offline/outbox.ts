@@ -104,7 +104,9 @@ export function createOutbox(store: OfflineStore, userId: number, hooks: SendHoo
      */
     async cancel(seq: number): Promise<CancelResult> {
       for (;;) {
-        const step = await exclusive(async () => (sending?.seq === seq ? { wait: sending.done } : { removed: await store.remove(seq) }));
+        const step = await exclusive(async () =>
+          sending?.seq === seq ? { wait: sending.done } : { removed: await store.remove(seq) },
+        );
         // Being sent now: wait for the answer, then look again (a run stopped by the network leaves it waiting).
         if ('wait' in step) {
           await step.wait;

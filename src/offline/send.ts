@@ -10,12 +10,27 @@ import type { QueuedAction } from './store';
 export function sendAction(action: QueuedAction, onProgress: (fraction: number) => void): Promise<unknown> {
   switch (action.kind) {
     case 'mark':
-      return upgradesApi.update(action.buildId, action.upgradeId, { ...action.change, version: action.version }, { idempotencyKey: action.key });
+      return upgradesApi.update(
+        action.buildId,
+        action.upgradeId,
+        { ...action.change, version: action.version },
+        { idempotencyKey: action.key },
+      );
     case 'hours':
-      return labourApi.create(action.buildId, { upgradeId: action.upgradeId, hours: action.hours, kind: action.labourKind, workedOn: action.workedOn }, { idempotencyKey: action.key });
+      return labourApi.create(
+        action.buildId,
+        { upgradeId: action.upgradeId, hours: action.hours, kind: action.labourKind, workedOn: action.workedOn },
+        { idempotencyKey: action.key },
+      );
     case 'photo': {
       const file = new File([action.blob], action.fileName, { type: action.blob.type });
-      return mediaApi.upload(action.buildId, file, { stage: action.stage, upgradeId: action.upgradeId, episodeId: action.episodeId }, onProgress, { idempotencyKey: action.key }).done;
+      return mediaApi.upload(
+        action.buildId,
+        file,
+        { stage: action.stage, upgradeId: action.upgradeId, episodeId: action.episodeId },
+        onProgress,
+        { idempotencyKey: action.key },
+      ).done;
     }
   }
 }

@@ -106,7 +106,15 @@ export function newActionKey(): string {
 
 export const offlineStore = {
   async saveSnapshot(userId: number, buildId: number, data: ShopFloor) {
-    await (await db()).put('snapshots', { key: snapshotKey(userId, buildId), userId, buildId, data: JSON.parse(JSON.stringify(data)) as ShopFloor, savedAt: new Date().toISOString() });
+    await (
+      await db()
+    ).put('snapshots', {
+      key: snapshotKey(userId, buildId),
+      userId,
+      buildId,
+      data: JSON.parse(JSON.stringify(data)) as ShopFloor,
+      savedAt: new Date().toISOString(),
+    });
   },
   async snapshot(userId: number, buildId: number): Promise<Snapshot | undefined> {
     return (await db()).get('snapshots', snapshotKey(userId, buildId));

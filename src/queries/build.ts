@@ -14,9 +14,15 @@ export function useCurrentBuild() {
   const q = useApiQuery(
     () => (store.buildId ? keys.buildRecord(store.buildId) : null),
     () => buildsApi.get(store.buildId!).then((r) => r.build),
-    { fallback: 'Could not load the build.', byStatus: { 404: 'This build does not exist (or was deleted).' }, staleTime: Infinity },
+    {
+      fallback: 'Could not load the build.',
+      byStatus: { 404: 'This build does not exist (or was deleted).' },
+      staleTime: Infinity,
+    },
   );
-  const build = computed<BuildWithOverride | null>(() => (store.buildId && q.data.value?.id === store.buildId ? q.data.value : null));
+  const build = computed<BuildWithOverride | null>(() =>
+    store.buildId && q.data.value?.id === store.buildId ? q.data.value : null,
+  );
   return reactive({
     buildId: computed(() => store.buildId),
     build,

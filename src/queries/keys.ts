@@ -28,14 +28,17 @@ export const keys = {
   /** Everything of one build: the prefix every build key starts with. */
   build: (buildId: number) => ['build', buildId] as const,
   /** One resource of a build, with its parameters (a filter, a page, a record id). */
-  of: (buildId: number, resource: BuildResource, ...params: unknown[]) => ['build', buildId, resource, ...params] as const,
+  of: (buildId: number, resource: BuildResource, ...params: unknown[]) =>
+    ['build', buildId, resource, ...params] as const,
   /** The build's own record (vehicle, capacity, money fields). */
   buildRecord: (buildId: number) => keys.of(buildId, 'record'),
-  upgrades: (buildId: number, query?: unknown) => (query === undefined ? keys.of(buildId, 'upgrades') : keys.of(buildId, 'upgrades', query)),
+  upgrades: (buildId: number, query?: unknown) =>
+    query === undefined ? keys.of(buildId, 'upgrades') : keys.of(buildId, 'upgrades', query),
   everyUpgrade: (buildId: number) => keys.of(buildId, 'upgrades', 'every'),
   upgrade: (buildId: number, upgradeId: number) => keys.of(buildId, 'upgrade', upgradeId),
   episodes: (buildId: number) => keys.of(buildId, 'episodes'),
-  parts: (buildId: number, query?: unknown) => (query === undefined ? keys.of(buildId, 'parts') : keys.of(buildId, 'parts', query)),
+  parts: (buildId: number, query?: unknown) =>
+    query === undefined ? keys.of(buildId, 'parts') : keys.of(buildId, 'parts', query),
   viewerRequests: (buildId: number, state?: string | null) => keys.of(buildId, 'viewer-requests', state ?? 'all'),
   media: (buildId: number, query?: unknown) => keys.of(buildId, 'media', query ?? 'all'),
   /** One upgrade's history (under the upgrade, so a change to it refreshes the history too). */
@@ -48,10 +51,15 @@ export const keys = {
 /** Marks every query of a build stale (the active ones re-fetch now); resources narrow it. */
 export function invalidateBuild(client: QueryClient, buildId: number, ...resources: BuildResource[]) {
   if (!resources.length) return client.invalidateQueries({ queryKey: keys.build(buildId) });
-  return Promise.all(resources.map((r) => client.invalidateQueries({ queryKey: keys.of(buildId, r) }))).then(() => undefined);
+  return Promise.all(resources.map((r) => client.invalidateQueries({ queryKey: keys.of(buildId, r) }))).then(
+    () => undefined,
+  );
 }
 
 /** Marks the builds list stale, and every query of one build when it is given. */
 export function invalidateBuilds(client: QueryClient, buildId?: number) {
-  return Promise.all([client.invalidateQueries({ queryKey: keys.builds() }), buildId ? invalidateBuild(client, buildId) : undefined]).then(() => undefined);
+  return Promise.all([
+    client.invalidateQueries({ queryKey: keys.builds() }),
+    buildId ? invalidateBuild(client, buildId) : undefined,
+  ]).then(() => undefined);
 }

@@ -16,5 +16,7 @@ export const useBuildStore = defineStore('build', () => {
 
 /** "2019 Halvorsen Tern Base" from a build's vehicle fields. */
 export function vehicleLabel(b: { year: number; make: string; model: string; trim?: string | null }) {
-  return [b.year, b.make, b.model, b.trim].filter((x) => x !== null && x !== undefined && String(x).trim() !== '').join(' ');
+  return [b.year, b.make, b.model, b.trim]
+    .filter((x) => x !== null && x !== undefined && String(x).trim() !== '')
+    .join(' ');
 }

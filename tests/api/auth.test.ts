@@ -26,13 +26,19 @@ describe('sign-in', () => {
   });
 
   it('accepts the e-mail in any case', async () => {
-    const res = await anonymous().post('/api/auth/login').send({ email: DEMO_EMAIL.owner.toUpperCase(), password: DEMO_PASSWORD });
+    const res = await anonymous()
+      .post('/api/auth/login')
+      .send({ email: DEMO_EMAIL.owner.toUpperCase(), password: DEMO_PASSWORD });
     expect(res.status).toBe(200);
   });
 
   it('answers the same for an unknown e-mail and a wrong password', async () => {
-    const wrong = await anonymous().post('/api/auth/login').send({ email: DEMO_EMAIL.installer, password: 'nope-nope' });
-    const unknown = await anonymous().post('/api/auth/login').send({ email: 'nobody@cedar-ridge.test', password: 'nope-nope' });
+    const wrong = await anonymous()
+      .post('/api/auth/login')
+      .send({ email: DEMO_EMAIL.installer, password: 'nope-nope' });
+    const unknown = await anonymous()
+      .post('/api/auth/login')
+      .send({ email: 'nobody@cedar-ridge.test', password: 'nope-nope' });
     expect(wrong.status).toBe(401);
     expect(unknown.status).toBe(401);
     expect(wrong.body).toEqual(unknown.body);
@@ -50,9 +56,16 @@ describe('sign-in', () => {
     const app = testApp();
     // Anonymous visits get no cookie (sessions are made only at sign-in), so the cookie we
     // replay is one that existed before the second sign-in on the same browser.
-    const first = await request(app).post('/api/auth/login').set('X-Requested-With', 'Bayslate').send({ email: DEMO_EMAIL.owner, password: DEMO_PASSWORD });
+    const first = await request(app)
+      .post('/api/auth/login')
+      .set('X-Requested-With', 'Bayslate')
+      .send({ email: DEMO_EMAIL.owner, password: DEMO_PASSWORD });
     const oldCookie = cookieOf(first);
-    const second = await request(app).post('/api/auth/login').set('Cookie', oldCookie).set('X-Requested-With', 'Bayslate').send({ email: DEMO_EMAIL.installer, password: DEMO_PASSWORD });
+    const second = await request(app)
+      .post('/api/auth/login')
+      .set('Cookie', oldCookie)
+      .set('X-Requested-With', 'Bayslate')
+      .send({ email: DEMO_EMAIL.installer, password: DEMO_PASSWORD });
     const newCookie = cookieOf(second);
     expect(newCookie).not.toBe(oldCookie);
     // The old id was thrown away at the second sign-in: replaying it is anonymous now.
@@ -63,10 +76,15 @@ describe('sign-in', () => {
 
   it('sign-out ends the session: the old cookie answers 401', async () => {
     const app = testApp();
-    const res = await request(app).post('/api/auth/login').set('X-Requested-With', 'Bayslate').send({ email: DEMO_EMAIL.producer, password: DEMO_PASSWORD });
+    const res = await request(app)
+      .post('/api/auth/login')
+      .set('X-Requested-With', 'Bayslate')
+      .send({ email: DEMO_EMAIL.producer, password: DEMO_PASSWORD });
     const cookie = cookieOf(res);
     expect((await request(app).get('/api/auth/me').set('Cookie', cookie)).status).toBe(200);
-    expect((await request(app).post('/api/auth/logout').set('Cookie', cookie).set('X-Requested-With', 'Bayslate')).status).toBe(200);
+    expect(
+      (await request(app).post('/api/auth/logout').set('Cookie', cookie).set('X-Requested-With', 'Bayslate')).status,
+    ).toBe(200);
     expect((await request(app).get('/api/auth/me').set('Cookie', cookie)).status).toBe(401);
   });
 
@@ -77,7 +95,9 @@ describe('sign-in', () => {
     const target = await User.findOne({ where: { email: DEMO_EMAIL.marketing } });
     await updateUser({ id: owner!.id, name: owner!.name }, target!.id, { active: false });
     expect((await victim.get('/api/auth/me')).status).toBe(401);
-    const again = await anonymous().post('/api/auth/login').send({ email: DEMO_EMAIL.marketing, password: DEMO_PASSWORD });
+    const again = await anonymous()
+      .post('/api/auth/login')
+      .send({ email: DEMO_EMAIL.marketing, password: DEMO_PASSWORD });
     expect(again.status).toBe(401);
     await updateUser({ id: owner!.id, name: owner!.name }, target!.id, { active: true });
   });
@@ -85,7 +105,13 @@ describe('sign-in', () => {
   it('rate-limits repeated attempts for one e-mail with 429', async () => {
     const statuses: number[] = [];
     for (let i = 0; i < 12; i += 1) {
-      statuses.push((await anonymous().post('/api/auth/login').send({ email: 'target@cedar-ridge.test', password: `guess-${i}` })).status);
+      statuses.push(
+        (
+          await anonymous()
+            .post('/api/auth/login')
+            .send({ email: 'target@cedar-ridge.test', password: `guess-${i}` })
+        ).status,
+      );
     }
     expect(statuses.slice(0, 10).every((s) => s === 401)).toBe(true);
     expect(statuses.slice(10)).toEqual([429, 429]);
@@ -106,9 +132,16 @@ describe('malformed input', () => {
     expect(JSON.stringify(res.body.error.fields)).toContain('admin');
   });
   it('a form post from another site is refused', async () => {
-    const res = await request(testApp()).post('/api/auth/login').set('Origin', 'http://evil.test').set('Content-Type', 'application/json').send({ email: DEMO_EMAIL.owner, password: DEMO_PASSWORD });
+    const res = await request(testApp())
+      .post('/api/auth/login')
+      .set('Origin', 'http://evil.test')
+      .set('Content-Type', 'application/json')
+      .send({ email: DEMO_EMAIL.owner, password: DEMO_PASSWORD });
     expect(res.status).toBe(403);
-    const form = await request(testApp()).post('/api/auth/login').type('form').send({ email: DEMO_EMAIL.owner, password: DEMO_PASSWORD });
+    const form = await request(testApp())
+      .post('/api/auth/login')
+      .type('form')
+      .send({ email: DEMO_EMAIL.owner, password: DEMO_PASSWORD });
     expect(form.status).toBe(415);
   });
   it('a refused user creation writes no row', async () => {

@@ -6,7 +6,10 @@ import { routeTable } from '../../server/routes';
 import { Build } from '../../server/models';
 import { fill, type MatrixContext, type MatrixRow } from './authz/types';
 
-const modules = import.meta.glob<{ rows: MatrixRow[]; prepare?: (ctx: MatrixContext) => Promise<void> }>('./authz/*.ts', { eager: true });
+const modules = import.meta.glob<{ rows: MatrixRow[]; prepare?: (ctx: MatrixContext) => Promise<void> }>(
+  './authz/*.ts',
+  { eager: true },
+);
 const rows = Object.entries(modules)
   .filter(([file]) => !file.endsWith('/types.ts'))
   .flatMap(([, m]) => m.rows ?? []);
@@ -16,7 +19,19 @@ let agents: Record<DemoRole, ReturnType<typeof anonymous>>;
 
 beforeAll(async () => {
   const tern = await Build.findOne({ where: { slug: 'project-tern' } });
-  const other = await Build.create({ slug: 'matrix-other', name: 'Other build', year: 2020, make: 'Halvorsen', model: 'Skua', vin: null, mileage: null, budgetCents: 100, labourRateCents: 100, campaign: null, summary: null });
+  const other = await Build.create({
+    slug: 'matrix-other',
+    name: 'Other build',
+    year: 2020,
+    make: 'Halvorsen',
+    model: 'Skua',
+    vin: null,
+    mileage: null,
+    budgetCents: 100,
+    labourRateCents: 100,
+    campaign: null,
+    summary: null,
+  });
   ctx.ids.buildId = tern?.id ?? 0;
   ctx.other.buildId = other.id;
   for (const m of Object.values(modules)) if (m.prepare) await m.prepare(ctx);

@@ -48,8 +48,15 @@ describe('build-scoped routes', () => {
       const known = await send(r.method, url(r.path, ternId));
       const unknown = await send(r.method, url(r.path, MISSING_BUILD));
       const notNumber = await send(r.method, url(r.path, 0).replace('/builds/0', '/builds/not-a-build'));
-      if (known.status !== 401 || unknown.status !== 401 || notNumber.status !== 401 || JSON.stringify(known.body) !== JSON.stringify(unknown.body))
-        differing.push(`${r.method} ${r.path}: existing ${known.status}, missing ${unknown.status}, not a number ${notNumber.status}`);
+      if (
+        known.status !== 401 ||
+        unknown.status !== 401 ||
+        notNumber.status !== 401 ||
+        JSON.stringify(known.body) !== JSON.stringify(unknown.body)
+      )
+        differing.push(
+          `${r.method} ${r.path}: existing ${known.status}, missing ${unknown.status}, not a number ${notNumber.status}`,
+        );
     }
     expect(differing).toEqual([]);
   });
@@ -74,7 +81,9 @@ describe('build-scoped routes', () => {
     const producer = await signInAs('producer');
     const bad = await producer.patch(`/api/builds/${ternId}/upgrades/${upgradeId}`).send({ estimatedHours: 'lots' });
     expect(bad.status).toBe(400);
-    const missing = await producer.patch(`/api/builds/${ternId}/upgrades/${MISSING_BUILD}`).send({ estimatedHours: 'lots' });
+    const missing = await producer
+      .patch(`/api/builds/${ternId}/upgrades/${MISSING_BUILD}`)
+      .send({ estimatedHours: 'lots' });
     expect(missing.status).toBe(404);
   });
 
@@ -84,11 +93,14 @@ describe('build-scoped routes', () => {
     const unknown = await marketing.patch(`/api/builds/${MISSING_BUILD}/media/1`).send({ caption: 'x' });
     expect([known.status, unknown.status]).toEqual([403, 403]);
     const installer = await signInAs('installer');
-    const requests = [await installer.get(`/api/builds/${ternId}/viewer-requests`), await installer.get(`/api/builds/${MISSING_BUILD}/viewer-requests`)];
+    const requests = [
+      await installer.get(`/api/builds/${ternId}/viewer-requests`),
+      await installer.get(`/api/builds/${MISSING_BUILD}/viewer-requests`),
+    ];
     expect(requests.map((r) => r.status)).toEqual([403, 403]);
   });
 
-  it('check the media record is in the build before the body: another build\'s or a missing media row is 404 whatever the body', async () => {
+  it("check the media record is in the build before the body: another build's or a missing media row is 404 whatever the body", async () => {
     const producer = await signInAs('producer');
     const missing = await producer.patch(`/api/builds/${ternId}/media/${MISSING_BUILD}`).send({ stage: 'not-a-stage' });
     expect(missing.status).toBe(404);

@@ -60,7 +60,8 @@ const ROUTES: [Method, string, DemoRole, DemoRole | null][] = [
   ['get', '/events', 'installer', null],
 ];
 
-const url = (path: string, buildId: number) => `/api/builds/${buildId}${path.replace(':e', String(episodeId)).replace(':u', String(upgradeId))}`;
+const url = (path: string, buildId: number) =>
+  `/api/builds/${buildId}${path.replace(':e', String(episodeId)).replace(':u', String(upgradeId))}`;
 
 function call(agent: ReturnType<typeof anonymous>, method: Method, u: string) {
   return method === 'get' ? agent.get(u) : agent[method](u).send({});
@@ -73,7 +74,8 @@ describe('build-scoped routes of episodes, plan, shop floor, publishing, sales a
       if (path === '/events') continue; // a stream: checked below with a time-out
       const known = await call(anonymous(), method, url(path, ternId));
       const unknown = await call(anonymous(), method, url(path, MISSING));
-      if (known.status !== 401 || unknown.status !== 401 || JSON.stringify(known.body) !== JSON.stringify(unknown.body)) wrong.push(`${method} ${path}: ${known.status}/${unknown.status}`);
+      if (known.status !== 401 || unknown.status !== 401 || JSON.stringify(known.body) !== JSON.stringify(unknown.body))
+        wrong.push(`${method} ${path}: ${known.status}/${unknown.status}`);
     }
     expect(wrong).toEqual([]);
     expect((await anonymous().get(url('/events', MISSING))).status).toBe(401);
@@ -88,7 +90,8 @@ describe('build-scoped routes of episodes, plan, shop floor, publishing, sales a
       const agent = agents.get(without)!;
       const known = await call(agent, method, url(path, ternId));
       const unknown = await call(agent, method, url(path, MISSING));
-      if (known.status !== 403 || unknown.status !== 403) wrong.push(`${method} ${path} as ${without}: existing ${known.status}, missing ${unknown.status}`);
+      if (known.status !== 403 || unknown.status !== 403)
+        wrong.push(`${method} ${path} as ${without}: existing ${known.status}, missing ${unknown.status}`);
     }
     expect(wrong).toEqual([]);
   });
@@ -100,7 +103,8 @@ describe('build-scoped routes of episodes, plan, shop floor, publishing, sales a
       if (path === '/events') continue;
       if (!agents.has(withRole)) agents.set(withRole, await signInAs(withRole));
       const res = await call(agents.get(withRole)!, method, url(path, MISSING));
-      if (res.status !== 404 || !/Build/.test(res.body.error?.message ?? '')) wrong.push(`${method} ${path} as ${withRole}: ${res.status}`);
+      if (res.status !== 404 || !/Build/.test(res.body.error?.message ?? ''))
+        wrong.push(`${method} ${path} as ${withRole}: ${res.status}`);
     }
     expect(wrong).toEqual([]);
   });

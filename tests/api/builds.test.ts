@@ -11,7 +11,14 @@ everyAnswerHasAContract();
 
 let ternId: number;
 let as: Record<DemoRole, Awaited<ReturnType<typeof agentsByRole>>[DemoRole]>;
-const newBuild = (over: Record<string, unknown> = {}) => ({ slug: 'skua-build', name: 'Skua build', year: 2021, make: 'Halvorsen', model: 'Skua', ...over });
+const newBuild = (over: Record<string, unknown> = {}) => ({
+  slug: 'skua-build',
+  name: 'Skua build',
+  year: 2021,
+  make: 'Halvorsen',
+  model: 'Skua',
+  ...over,
+});
 
 beforeAll(async () => {
   ternId = (await Build.findOne({ where: { slug: 'project-tern' } }))!.id;
@@ -21,7 +28,16 @@ beforeAll(async () => {
 describe('Project Tern demo data', () => {
   it('is a public 2019 Halvorsen Tern with a VIN that passes its check digit', async () => {
     const b = (await Build.findByPk(ternId))!;
-    expect(b).toMatchObject({ isPublic: true, year: 2019, make: 'Halvorsen', model: 'Tern', budgetCents: 3_800_000, labourRateCents: 9_500, shopHoursPerWeek: 24, campaign: 'project-tern' });
+    expect(b).toMatchObject({
+      isPublic: true,
+      year: 2019,
+      make: 'Halvorsen',
+      model: 'Tern',
+      budgetCents: 3_800_000,
+      labourRateCents: 9_500,
+      shopHoursPerWeek: 24,
+      campaign: 'project-tern',
+    });
     const v = checkVin(b.vin!);
     expect(v.valid).toBe(true);
     expect(v.modelYears).toContain(2019);
@@ -49,7 +65,8 @@ describe('Project Tern demo data', () => {
   it('never lets a done upgrade depend on one that is not installed', async () => {
     const ups = new Map((await Upgrade.findAll({ where: { buildId: ternId } })).map((u) => [u.id, u]));
     for (const l of await UpgradePrerequisite.findAll({ where: { buildId: ternId } })) {
-      if (ups.get(l.upgradeId)!.installState !== 'queued') expect(ups.get(l.prerequisiteId)!.installState).toBe('installed');
+      if (ups.get(l.upgradeId)!.installState !== 'queued')
+        expect(ups.get(l.prerequisiteId)!.installState).toBe('installed');
     }
   });
 });
@@ -95,7 +112,9 @@ describe('POST /api/builds', () => {
     const res = await producer.post('/api/builds').send(newBuild({ slug: 'p-budget', budgetCents: 100 }));
     expect(res.status).toBe(403);
     const owner = as.owner;
-    const ok = await owner.post('/api/builds').send(newBuild({ slug: 'o-budget', budgetCents: 100, labourRateCents: 8000 }));
+    const ok = await owner
+      .post('/api/builds')
+      .send(newBuild({ slug: 'o-budget', budgetCents: 100, labourRateCents: 8000 }));
     expect(ok.status).toBe(201);
     expect(ok.body.build.budgetCents).toBe(100);
   });
@@ -112,13 +131,19 @@ describe('POST /api/builds', () => {
     expect(bad.status).toBe(400);
     expect(bad.body.error.fields.map((f: { path: string }) => f.path)).toEqual(['vin']);
     expect(await counts('builds', 'activities')).toEqual(before);
-    const over = await producer.post('/api/builds').send(newBuild({ slug: 'vin-over', vin: '7HVTN2E56KC418206', vinCheckOverridden: true }));
+    const over = await producer
+      .post('/api/builds')
+      .send(newBuild({ slug: 'vin-over', vin: '7HVTN2E56KC418206', vinCheckOverridden: true }));
     expect(over.status).toBe(201);
     expect(over.body.build.vinCheckOverridden).toBe(true);
     // The override covers a check digit only: I/O/Q or a wrong length is always refused.
-    const wrongLength = await producer.post('/api/builds').send(newBuild({ slug: 'vin-len', vin: '7HVTN2E5KC41820', vinCheckOverridden: true }));
+    const wrongLength = await producer
+      .post('/api/builds')
+      .send(newBuild({ slug: 'vin-len', vin: '7HVTN2E5KC41820', vinCheckOverridden: true }));
     expect(wrongLength.status).toBe(400);
-    const letterO = await producer.post('/api/builds').send(newBuild({ slug: 'vin-o', vin: '7HVTN2E55KC4182O6', vinCheckOverridden: true }));
+    const letterO = await producer
+      .post('/api/builds')
+      .send(newBuild({ slug: 'vin-o', vin: '7HVTN2E55KC4182O6', vinCheckOverridden: true }));
     expect(letterO.status).toBe(400);
   });
   it.each([
@@ -180,11 +205,16 @@ describe('GET/PATCH/DELETE /api/builds/:buildId', () => {
   });
   it('a changed VIN must pass its check digit again', async () => {
     const owner = as.owner;
-    const created = (await owner.post('/api/builds').send(newBuild({ slug: 'vin-change', vin: '7HVTN2E55KC418206' }))).body.build;
-    const bad = await owner.patch(`/api/builds/${created.id}`).send({ version: created.version, vin: '7HVTN2E57KC418206' });
+    const created = (await owner.post('/api/builds').send(newBuild({ slug: 'vin-change', vin: '7HVTN2E55KC418206' })))
+      .body.build;
+    const bad = await owner
+      .patch(`/api/builds/${created.id}`)
+      .send({ version: created.version, vin: '7HVTN2E57KC418206' });
     expect(bad.status).toBe(400);
     expect(bad.body.error.fields[0].path).toBe('vin');
-    const over = await owner.patch(`/api/builds/${created.id}`).send({ version: created.version, vin: '7HVTN2E57KC418206', vinCheckOverridden: true });
+    const over = await owner
+      .patch(`/api/builds/${created.id}`)
+      .send({ version: created.version, vin: '7HVTN2E57KC418206', vinCheckOverridden: true });
     expect(over.status).toBe(200);
   });
   it('only the owner deletes a build, with its upgrades and prerequisites', async () => {

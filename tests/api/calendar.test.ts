@@ -33,7 +33,9 @@ describe('the calendar feed', () => {
     expect(res.body.url).toMatch(/\/api\/calendar\/[0-9a-f]{48}\.ics$/);
     expect((await (await signInAs('installer')).get(`/api/builds/${build.id}/calendar`)).status).toBe(403);
     expect((await anonymous().post(`/api/builds/${build.id}/calendar/rotate`).send({})).status).toBe(401);
-    expect((await (await signInAs('marketing')).post(`/api/builds/${build.id}/calendar/rotate`).send({})).status).toBe(403);
+    expect((await (await signInAs('marketing')).post(`/api/builds/${build.id}/calendar/rotate`).send({})).status).toBe(
+      403,
+    );
   });
 
   it('gives shoot days and release dates as all-day events that ical.js reads, with stable UIDs', async () => {
@@ -43,7 +45,10 @@ describe('the calendar feed', () => {
     expect(first.headers['content-type']).toContain('text/calendar');
     const events = parse(first.text);
     const eps = await Episode.findAll({ where: { buildId: build.id }, order: [['number', 'ASC']] });
-    const expected = eps.flatMap((e) => [...(e.shootDate ? [`episode-${e.id}-shoot@bayslate`] : []), ...(e.releaseDate ? [`episode-${e.id}-release@bayslate`] : [])]);
+    const expected = eps.flatMap((e) => [
+      ...(e.shootDate ? [`episode-${e.id}-shoot@bayslate`] : []),
+      ...(e.releaseDate ? [`episode-${e.id}-release@bayslate`] : []),
+    ]);
     expect(events.map((e) => e.uid).sort()).toEqual(expected.sort());
     const ep1 = eps[0];
     const shoot = events.find((e) => e.uid === `episode-${ep1.id}-shoot@bayslate`)!;
@@ -57,7 +62,9 @@ describe('the calendar feed', () => {
     // A moved shoot keeps its UID: the calendar app updates the event instead of adding one.
     const producer = await signInAs('producer');
     const draft = eps.find((e) => e.state === 'draft')!;
-    const moved = await producer.patch(`/api/builds/${build.id}/episodes/${draft.id}`).send({ shootDate: '2027-03-01', releaseDate: '2027-03-08', version: draft.version });
+    const moved = await producer
+      .patch(`/api/builds/${build.id}/episodes/${draft.id}`)
+      .send({ shootDate: '2027-03-01', releaseDate: '2027-03-08', version: draft.version });
     expect(moved.status).toBe(200);
     const second = parse((await anonymous().get(url)).text);
     expect(second.map((e) => e.uid).sort()).toEqual(events.map((e) => e.uid).sort());
@@ -81,7 +88,9 @@ describe('the calendar feed', () => {
     expect((await anonymous().get(fresh)).status).toBe(200);
     expect(await count('activities')).toBe(before + 1);
     const token = fresh.split('/').pop()!.replace('.ics', '');
-    const [rows] = await Build.sequelize!.query(`SELECT count(*)::int AS n FROM activities WHERE changes::text LIKE '%${token}%' OR summary LIKE '%${token}%'`);
+    const [rows] = await Build.sequelize!.query(
+      `SELECT count(*)::int AS n FROM activities WHERE changes::text LIKE '%${token}%' OR summary LIKE '%${token}%'`,
+    );
     expect((rows as { n: number }[])[0].n).toBe(0);
     // The build's version is untouched, so an open settings form does not go stale.
     expect((await Build.findByPk(build.id))!.version).toBe(build.version);
@@ -96,7 +105,19 @@ describe('the calendar feed', () => {
 describe('the calendar feed lookup (issue 10)', () => {
   it('finds the build through the token hash, without loading every build', async () => {
     for (let i = 0; i < 15; i++) {
-      await Build.create({ slug: `cal-lookup-${i}`, name: `Lookup ${i}`, year: 2020, make: 'Halvorsen', model: 'Skua', vin: null, mileage: null, budgetCents: null, labourRateCents: null, campaign: null, summary: null });
+      await Build.create({
+        slug: `cal-lookup-${i}`,
+        name: `Lookup ${i}`,
+        year: 2020,
+        make: 'Halvorsen',
+        model: 'Skua',
+        vin: null,
+        mileage: null,
+        budgetCents: null,
+        labourRateCents: null,
+        campaign: null,
+        summary: null,
+      });
     }
     const url = (await (await signInAs('producer')).get(`/api/builds/${build.id}/calendar`)).body.url as string;
     let loaded = 0;

@@ -33,9 +33,11 @@ beforeAll(async () => {
 /** Every key an answer contract names, at any depth. */
 function keysOf(s: z.ZodType): string[] {
   const d = (s as unknown as { _zod: { def: Record<string, unknown> } })._zod.def;
-  if (d.type === 'object') return Object.entries(d.shape as Record<string, z.ZodType>).flatMap(([k, v]) => [k, ...keysOf(v)]);
+  if (d.type === 'object')
+    return Object.entries(d.shape as Record<string, z.ZodType>).flatMap(([k, v]) => [k, ...keysOf(v)]);
   if (d.type === 'array') return keysOf(d.element as z.ZodType);
-  if (['optional', 'nullable', 'default', 'readonly'].includes(d.type as string)) return keysOf(d.innerType as z.ZodType);
+  if (['optional', 'nullable', 'default', 'readonly'].includes(d.type as string))
+    return keysOf(d.innerType as z.ZodType);
   if (d.type === 'union') return (d.options as z.ZodType[]).flatMap(keysOf);
   return [];
 }
@@ -56,20 +58,30 @@ describe('per-role allow-lists', () => {
     for (const [route, c] of Object.entries(API)) {
       if (!isAudiences(c)) continue;
       for (const k of keysOf(c.crew)) if (/Cents$/.test(k)) leaks.push(`${route} crew: ${k}`);
-      for (const k of keysOf(c.retail)) if (/Cents$/.test(k) && k !== 'retailPriceCents') leaks.push(`${route} retail: ${k}`);
+      for (const k of keysOf(c.retail))
+        if (/Cents$/.test(k) && k !== 'retailPriceCents') leaks.push(`${route} retail: ${k}`);
     }
     expect(leaks).toEqual([]);
   });
 
   it('maps each role to its audience; a person with several roles reads as the widest', () => {
-    expect(['owner', 'producer', 'marketing', 'installer'].map((r) => audienceOf([r]))).toEqual(['money', 'money', 'retail', 'crew']);
+    expect(['owner', 'producer', 'marketing', 'installer'].map((r) => audienceOf([r]))).toEqual([
+      'money',
+      'money',
+      'retail',
+      'crew',
+    ]);
     expect(audienceOf(['installer', 'marketing'])).toBe('retail');
     expect(audienceOf(['installer', 'producer'])).toBe('money');
     expect(audienceOf(undefined)).toBe('crew');
   });
 
   it('a money field added to a record later reaches neither a producer nor an installer until a contract names it', async () => {
-    const record = { ...(await upgradeRecord((await Upgrade.findByPk(upgradeId))!)), marginCents: 4200, supplierDiscountCents: 300 };
+    const record = {
+      ...(await upgradeRecord((await Upgrade.findByPk(upgradeId))!)),
+      marginCents: 4200,
+      supplierDiscountCents: 300,
+    };
     for (const roles of [['owner'], ['producer'], ['installer'], ['marketing']]) {
       const res = await answering(roles, UpgradeAnswer, { upgrade: record });
       expect(res.status).toBe(200);
@@ -77,13 +89,18 @@ describe('per-role allow-lists', () => {
       expect(res.body.upgrade).not.toHaveProperty('marginCents');
       expect(res.body.upgrade).not.toHaveProperty('supplierDiscountCents');
       // The named money field: money roles only (Power liftgate adds value: written in the demo seed).
-      if (roles[0] === 'owner' || roles[0] === 'producer') expect(res.body.upgrade.valueAddedCents).toBe(record.valueAddedCents);
+      if (roles[0] === 'owner' || roles[0] === 'producer')
+        expect(res.body.upgrade.valueAddedCents).toBe(record.valueAddedCents);
       else expect(res.body.upgrade).not.toHaveProperty('valueAddedCents');
     }
   });
 
   it('a field added to a build record is not sent either, while the budget reaches money roles only', async () => {
-    const build = { ...toBuildRecord((await Build.findByPk(tern))!), internalNotes: 'not for the list', spendForecastCents: 1 };
+    const build = {
+      ...toBuildRecord((await Build.findByPk(tern))!),
+      internalNotes: 'not for the list',
+      spendForecastCents: 1,
+    };
     const producer = await answering(['producer'], BuildAnswer, { build });
     const installer = await answering(['installer'], BuildAnswer, { build });
     for (const res of [producer, installer]) {
@@ -117,7 +134,9 @@ describe('per-role allow-lists', () => {
       expect(res.body.parts.every((p: Record<string, unknown>) => 'retailPriceCents' in p)).toBe(role === 'marketing');
     }
     const list = await as.installer.get('/api/builds');
-    expect(list.body.builds.every((b: Record<string, unknown>) => !('spentCents' in b) && !('budgetCents' in b))).toBe(true);
+    expect(list.body.builds.every((b: Record<string, unknown>) => !('spentCents' in b) && !('budgetCents' in b))).toBe(
+      true,
+    );
     const owners = await as.owner.get('/api/builds');
     expect(owners.body.builds.every((b: Record<string, unknown>) => typeof b.spentCents === 'number')).toBe(true);
   });
@@ -134,7 +153,9 @@ describe('the test agents', () => {
   it('fail an answer whose field drifted from its contract (a number sent as text)', async () => {
     const res = await as.producer.get(`/api/builds/${tern}/parts?pageSize=2`);
     const drifted = { ...res, body: { ...res.body, total: String(res.body.total) } };
-    expect(() => checkAnswer('get', `/api/builds/${tern}/parts?pageSize=2`, ['producer'], drifted as never)).toThrow(/contract/);
+    expect(() => checkAnswer('get', `/api/builds/${tern}/parts?pageSize=2`, ['producer'], drifted as never)).toThrow(
+      /contract/,
+    );
     expect(() => checkAnswer('get', `/api/builds/${tern}/parts?pageSize=2`, ['producer'], res)).not.toThrow();
   });
 
@@ -149,7 +170,7 @@ describe('the test agents', () => {
 });
 
 describe('the history of a backlog record', () => {
-  it('shows only the changed fields the reader\'s contract names: a field no contract names reaches nobody', async () => {
+  it("shows only the changed fields the reader's contract names: a field no contract names reaches nobody", async () => {
     const { Activity } = await import('../../server/models');
     const row = await Activity.create({
       buildId: tern,

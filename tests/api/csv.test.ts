@@ -11,7 +11,9 @@ let as: Awaited<ReturnType<typeof agentsByRole>>;
 const TABLES = ['upgrades', 'upgrade_prerequisites', 'parts', 'activities'];
 
 async function emptyBuild(slug: string) {
-  const res = await as.owner.post('/api/builds').send({ slug, name: slug, year: 2019, make: 'Halvorsen', model: 'Tern' });
+  const res = await as.owner
+    .post('/api/builds')
+    .send({ slug, name: slug, year: 2019, make: 'Halvorsen', model: 'Tern' });
   expect(res.status).toBe(201);
   return res.body.build.id as number;
 }
@@ -41,7 +43,14 @@ describe('export', () => {
     for (const r of ['installer', 'marketing'] as const) {
       expect((await as[r].get(`/api/builds/${tern}/upgrades.csv`)).status).toBe(403);
       expect((await as[r].get(`/api/builds/${tern}/parts.csv`)).status).toBe(403);
-      expect((await as[r].post(`/api/builds/${tern}/upgrades/import`).set('Content-Type', 'text/csv').send('title,area\nx,front\n')).status).toBe(403);
+      expect(
+        (
+          await as[r]
+            .post(`/api/builds/${tern}/upgrades/import`)
+            .set('Content-Type', 'text/csv')
+            .send('title,area\nx,front\n')
+        ).status,
+      ).toBe(403);
     }
   });
 });
@@ -77,7 +86,9 @@ describe('round trip', () => {
 describe('spreadsheet formulas', () => {
   it('a title that looks like a formula is exported as text and comes back unchanged', async () => {
     const build = await emptyBuild('formula');
-    const created = await as.producer.post(`/api/builds/${build}/upgrades`).send({ title: '=HYPERLINK("x")', area: 'front' });
+    const created = await as.producer
+      .post(`/api/builds/${build}/upgrades`)
+      .send({ title: '=HYPERLINK("x")', area: 'front' });
     expect(created.status).toBe(201);
     const text = csvText(await as.producer.get(`/api/builds/${build}/upgrades.csv`));
     expect(text).toContain(`"'=HYPERLINK(""x"")"`);
@@ -107,7 +118,20 @@ describe('import errors', () => {
     expect(res.body.ok).toBe(false);
     expect(res.body.error.code).toBe('bad_csv');
     const seen = res.body.errors.map((e: { line: number; field: string }) => `${e.line}:${e.field}`);
-    expect(seen).toEqual(expect.arrayContaining(['3:title', '4:area', '5:estimatedHours', '5:valueAdded', '7:priority', '7:safetyFlags', '7:installedOn', '7:tireTo', '7:prerequisites', '8:ref']));
+    expect(seen).toEqual(
+      expect.arrayContaining([
+        '3:title',
+        '4:area',
+        '5:estimatedHours',
+        '5:valueAdded',
+        '7:priority',
+        '7:safetyFlags',
+        '7:installedOn',
+        '7:tireTo',
+        '7:prerequisites',
+        '8:ref',
+      ]),
+    );
     expect(seen).not.toContain('2:title');
     expect(res.body.errors.every((e: { message: string }) => e.message.length > 0)).toBe(true);
     expect(await counts(...TABLES)).toEqual(before);
@@ -130,11 +154,17 @@ describe('import errors', () => {
     const build = await emptyBuild('header-import');
     const res = await postCsv(`/api/builds/${build}/upgrades/import?dryRun=1`, 'title,colour\nX,red\n');
     expect(res.body.ok).toBe(false);
-    expect(res.body.errors).toEqual(expect.arrayContaining([expect.objectContaining({ line: 1, field: 'colour' }), expect.objectContaining({ line: 1, field: 'area' })]));
+    expect(res.body.errors).toEqual(
+      expect.arrayContaining([
+        expect.objectContaining({ line: 1, field: 'colour' }),
+        expect.objectContaining({ line: 1, field: 'area' }),
+      ]),
+    );
   });
   it('parts rows must name an upgrade of the build and carry valid money', async () => {
     const before = await counts(...TABLES);
-    const text = 'upgrade,partNumber,description,quantity,unitCost,state\nPower liftgate,HT-1,Strut,2,10.00,ordered\nNo such upgrade,HT-2,Thing,1,1.00,ordered\nPower liftgate,HT-3,Thing,0,-1.00,lost\n';
+    const text =
+      'upgrade,partNumber,description,quantity,unitCost,state\nPower liftgate,HT-1,Strut,2,10.00,ordered\nNo such upgrade,HT-2,Thing,1,1.00,ordered\nPower liftgate,HT-3,Thing,0,-1.00,lost\n';
     const res = await postCsv(`/api/builds/${tern}/parts/import`, text);
     expect(res.status).toBe(400);
     const seen = res.body.errors.map((e: { line: number; field: string }) => `${e.line}:${e.field}`);

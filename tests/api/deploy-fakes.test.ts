@@ -19,9 +19,16 @@ afterAll(async () => {
 
 /** The multipart body that took s3rver's parser down: a file part cut off before its boundary. */
 function malformedPost(port: number) {
-  const body = '--xyz\r\nContent-Disposition: form-data; name="key"\r\n\r\nx\r\n--xyz\r\nContent-Disposition: form-data; name="file"; filename="a"\r\n\r\nabc';
+  const body =
+    '--xyz\r\nContent-Disposition: form-data; name="key"\r\n\r\nx\r\n--xyz\r\nContent-Disposition: form-data; name="file"; filename="a"\r\n\r\nabc';
   return new Promise<void>((resolve) => {
-    const req = request({ host: '127.0.0.1', port, method: 'POST', path: '/bayslate-media', headers: { 'Content-Type': 'multipart/form-data; boundary=xyz', 'Content-Length': Buffer.byteLength(body) } });
+    const req = request({
+      host: '127.0.0.1',
+      port,
+      method: 'POST',
+      path: '/bayslate-media',
+      headers: { 'Content-Type': 'multipart/form-data; boundary=xyz', 'Content-Length': Buffer.byteLength(body) },
+    });
     req.on('error', () => resolve());
     req.on('response', (res) => (res.resume(), resolve()));
     req.end(body);
@@ -40,7 +47,10 @@ describe('the local fake S3 in its own process', () => {
     while (!answered && Date.now() < until) {
       await new Promise((r) => setTimeout(r, 200));
       if (fake.pid() === firstPid) continue;
-      answered = await fetch(`http://127.0.0.1:${fake.port}/bayslate-media`).then((r) => r.status === 200, () => false);
+      answered = await fetch(`http://127.0.0.1:${fake.port}/bayslate-media`).then(
+        (r) => r.status === 200,
+        () => false,
+      );
     }
     expect(fake.pid()).not.toBe(firstPid);
     expect(answered).toBe(true);

@@ -32,7 +32,8 @@ describe('packages', () => {
     for (const dir of installed(path.join(root, 'node_modules'))) {
       const meta = JSON.parse(readFileSync(path.join(dir, 'package.json'), 'utf8'));
       const want = meta.engines?.node;
-      if (typeof want === 'string' && !semver.satisfies(process.version, want, { includePrerelease: true })) bad.push(`${meta.name}@${meta.version} wants node ${want}`);
+      if (typeof want === 'string' && !semver.satisfies(process.version, want, { includePrerelease: true }))
+        bad.push(`${meta.name}@${meta.version} wants node ${want}`);
     }
     expect(bad).toEqual([]);
   });

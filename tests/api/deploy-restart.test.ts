@@ -6,7 +6,14 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import pg from 'pg';
 import { startThrowawayCluster, type Cluster } from '../../scripts/lib/pg-cluster.mjs';
-import { buildServer, Client, removeBuild, runServerToEnd, startServerProcess, type ServerProcess } from '../helpers/server-process';
+import {
+  buildServer,
+  Client,
+  removeBuild,
+  runServerToEnd,
+  startServerProcess,
+  type ServerProcess,
+} from '../helpers/server-process';
 
 const OWNER = { email: 'restart-owner@shop.test', password: 'restart-pass-1234' };
 let cluster: Cluster;
@@ -16,9 +23,21 @@ beforeAll(async () => {
   buildServer();
   cluster = await startThrowawayCluster();
   // Migrates the empty cluster and makes an owner, as an operator does (build/server/create-owner.js).
-  const made = await runServerToEnd({ NODE_ENV: 'test', DATABASE_URL: cluster.url }, 'create-owner.js', [OWNER.email, 'Restart Owner', OWNER.password]);
+  const made = await runServerToEnd({ NODE_ENV: 'test', DATABASE_URL: cluster.url }, 'create-owner.js', [
+    OWNER.email,
+    'Restart Owner',
+    OWNER.password,
+  ]);
   if (made.code !== 0) throw new Error(made.output);
-  server = await startServerProcess({ NODE_ENV: 'test', DATABASE_URL: cluster.url, BAYSLATE_DEMO: '0', MAIL_WORKER: '1', MAIL_POLL_MS: '200', SHUTDOWN_GRACE_MS: '5000', LOG_TEST_ERRORS: '1' });
+  server = await startServerProcess({
+    NODE_ENV: 'test',
+    DATABASE_URL: cluster.url,
+    BAYSLATE_DEMO: '0',
+    MAIL_WORKER: '1',
+    MAIL_POLL_MS: '200',
+    SHUTDOWN_GRACE_MS: '5000',
+    LOG_TEST_ERRORS: '1',
+  });
 });
 
 afterAll(async () => {

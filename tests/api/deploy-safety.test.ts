@@ -40,14 +40,20 @@ afterAll(async () => {
 });
 
 // A production start needs its own viewer-key secret (32+ characters), like every real deployment.
-const production = { NODE_ENV: 'production', BAYSLATE_DEMO: undefined, MAIL_WORKER: '0', VIEWER_KEY_SECRET: 'deploy-test-viewer-key-secret-0123456789abcdef' };
+const production = {
+  NODE_ENV: 'production',
+  BAYSLATE_DEMO: undefined,
+  MAIL_WORKER: '0',
+  VIEWER_KEY_SECRET: 'deploy-test-viewer-key-secret-0123456789abcdef',
+};
 
 describe('the compiled production start on a fresh database', () => {
   it('has no demo sign-in, no /api/health/demo and no /dev/mail', async () => {
     const s = await startServerProcess({ ...production, DATABASE_URL: freshUrl.toString() });
     try {
       const c = new Client(s.url);
-      for (const email of DEMO_EMAILS) expect((await c.post('/api/auth/login', { email, password: DEMO_PASSWORD })).status).toBe(401);
+      for (const email of DEMO_EMAILS)
+        expect((await c.post('/api/auth/login', { email, password: DEMO_PASSWORD })).status).toBe(401);
       expect((await c.get('/api/health/demo')).status).toBe(404);
       expect((await c.get('/dev/mail')).status).toBe(404);
       expect((await c.get('/api/health/live')).body).toEqual({ ok: true });
@@ -88,7 +94,8 @@ describe('the compiled production start on a fresh database', () => {
 
   it('contains no development-only package, tsx or seeder in its start-up imports', () => {
     const code = readFileSync(path.join(buildServer(), 'index.js'), 'utf8');
-    for (const name of ['tsx', 's3rver', 'smtp-server', 'mailparser']) expect(code).not.toMatch(new RegExp(`^import[^;]*from\\s*["']${name}["']`, 'm'));
+    for (const name of ['tsx', 's3rver', 'smtp-server', 'mailparser'])
+      expect(code).not.toMatch(new RegExp(`^import[^;]*from\\s*["']${name}["']`, 'm'));
     // The seeders' data stays out (the demo route's password literal is answered in demo mode only).
     expect(code).not.toMatch(/Project Tern|Cedar Ridge Upfitters|seeders\//);
   });
@@ -99,7 +106,9 @@ describe('the compiled production start on a fresh database', () => {
     const statics = [...code.matchAll(/^import[^;]*?from\s*["']([^"'.][^"']*)["']/gm)].map((m) => m[1]);
     const dynamics = [...code.matchAll(/import\(\s*["']([^"'.][^"']*)["']\s*\)/g)].map((m) => m[1]);
     const pkgName = (n: string) => (n.startsWith('@') ? n.split('/').slice(0, 2).join('/') : n.split('/')[0]);
-    const outside = [...statics, ...dynamics].map(pkgName).filter((n) => !n.startsWith('node:') && !isBuiltin(n) && !pkg.dependencies[n]);
+    const outside = [...statics, ...dynamics]
+      .map(pkgName)
+      .filter((n) => !n.startsWith('node:') && !isBuiltin(n) && !pkg.dependencies[n]);
     expect([...new Set(outside)]).toEqual(['mailparser']);
     expect(statics.map(pkgName)).not.toContain('mailparser');
   });
@@ -127,8 +136,17 @@ describe('error answers', () => {
   it('an unexpected error answers 500 without its internal message outside development', () => {
     let status = 0;
     let body: unknown = null;
-    const res = { headersSent: false, status: (s: number) => ((status = s), res), json: (b: unknown) => ((body = b), res) };
-    errorHandler(new Error('relation "secret_table" does not exist'), { method: 'GET', originalUrl: '/x' } as never, res as never, () => undefined);
+    const res = {
+      headersSent: false,
+      status: (s: number) => ((status = s), res),
+      json: (b: unknown) => ((body = b), res),
+    };
+    errorHandler(
+      new Error('relation "secret_table" does not exist'),
+      { method: 'GET', originalUrl: '/x' } as never,
+      res as never,
+      () => undefined,
+    );
     expect(status).toBe(500);
     expect(JSON.stringify(body)).not.toContain('secret_table');
   });
@@ -136,8 +154,17 @@ describe('error answers', () => {
   it('a database that cannot be reached answers 503 with a clear message', () => {
     let status = 0;
     let body: { error?: { message?: string } } = {};
-    const res = { headersSent: false, status: (s: number) => ((status = s), res), json: (b: typeof body) => ((body = b), res) };
-    errorHandler(Object.assign(new Error('terminating connection due to administrator command'), { code: '57P01' }), { method: 'GET', originalUrl: '/x' } as never, res as never, () => undefined);
+    const res = {
+      headersSent: false,
+      status: (s: number) => ((status = s), res),
+      json: (b: typeof body) => ((body = b), res),
+    };
+    errorHandler(
+      Object.assign(new Error('terminating connection due to administrator command'), { code: '57P01' }),
+      { method: 'GET', originalUrl: '/x' } as never,
+      res as never,
+      () => undefined,
+    );
     expect(status).toBe(503);
     expect(body.error?.message).toMatch(/database is not reachable/);
   });

@@ -17,12 +17,37 @@ beforeAll(async () => {
   const tern = await Build.findOne({ where: { slug: 'project-tern' } });
   buildId = tern!.id;
   base = `/api/builds/${buildId}/episodes`;
-  const other = await Build.create({ slug: 'episodes-other', name: 'Other', year: 2020, make: 'Halvorsen', model: 'Skua', vin: null, mileage: null, budgetCents: null, labourRateCents: null, campaign: null, summary: null });
+  const other = await Build.create({
+    slug: 'episodes-other',
+    name: 'Other',
+    year: 2020,
+    make: 'Halvorsen',
+    model: 'Skua',
+    vin: null,
+    mileage: null,
+    budgetCents: null,
+    labourRateCents: null,
+    campaign: null,
+    summary: null,
+  });
   otherBase = `/api/builds/${other.id}/episodes`;
-  otherEpisodeId = (await Episode.create({ buildId: other.id, number: 1, title: 'Elsewhere', summary: null, shootDate: null, releaseDate: null, videoUrl: null, runtimeSeconds: null, publishedAt: null })).id;
+  otherEpisodeId = (
+    await Episode.create({
+      buildId: other.id,
+      number: 1,
+      title: 'Elsewhere',
+      summary: null,
+      shootDate: null,
+      releaseDate: null,
+      videoUrl: null,
+      runtimeSeconds: null,
+      publishedAt: null,
+    })
+  ).id;
 });
 
-const numbers = async () => (await Episode.findAll({ where: { buildId }, order: [['number', 'ASC']] })).map((e) => [e.number, e.title]);
+const numbers = async () =>
+  (await Episode.findAll({ where: { buildId }, order: [['number', 'ASC']] })).map((e) => [e.number, e.title]);
 
 describe('episodes', () => {
   it('any role lists the demo series in order with upgrade ids in running order', async () => {
@@ -46,7 +71,9 @@ describe('episodes', () => {
 
   it('the producer adds an episode at a place in the series and the rest renumber', async () => {
     const producer = await signInAs('producer');
-    const res = await producer.post(base).send({ title: 'Interlude: tools of the bay', number: 8, shootDate: '2027-02-01', releaseDate: '2027-02-08' });
+    const res = await producer
+      .post(base)
+      .send({ title: 'Interlude: tools of the bay', number: 8, shootDate: '2027-02-01', releaseDate: '2027-02-08' });
     expect(res.status).toBe(201);
     expect(res.body.episode).toMatchObject({ number: 8, state: 'draft', upgradeIds: [] });
     const list = await numbers();
@@ -55,7 +82,9 @@ describe('episodes', () => {
     expect(list[8][1]).toBe('Warm hands, soft light');
     expect(list.map(([n]) => n)).toEqual([...Array(14).keys()].map((i) => i + 1));
     // Moving it to the end renumbers the ones it passes.
-    const moved = await producer.patch(`${base}/${res.body.episode.id}`).send({ number: 99, version: res.body.episode.version });
+    const moved = await producer
+      .patch(`${base}/${res.body.episode.id}`)
+      .send({ number: 99, version: res.body.episode.version });
     expect(moved.status).toBe(200);
     expect(moved.body.episode.number).toBe(14);
     expect((await numbers())[7][1]).toBe('Warm hands, soft light');
@@ -88,18 +117,27 @@ describe('episodes', () => {
     const acts = await Activity.count({ where: { entity: 'episode', entityId: draft.id, action: 'state' } });
     const toShot = await producer.patch(`${base}/${draft.id}`).send({ state: 'shot', version: draft.version });
     // Only a finished episode goes live (issue 11).
-    await Upgrade.update({ installState: 'installed', installSegment: 'shot', demoSegment: 'shot' }, { where: { episodeId: draft.id } });
+    await Upgrade.update(
+      { installState: 'installed', installSegment: 'shot', demoSegment: 'shot' },
+      { where: { episodeId: draft.id } },
+    );
     expect(toShot.status).toBe(200);
     expect(toShot.body.episode.state).toBe('shot');
-    const noUrl = await producer.patch(`${base}/${draft.id}`).send({ state: 'live', version: toShot.body.episode.version });
+    const noUrl = await producer
+      .patch(`${base}/${draft.id}`)
+      .send({ state: 'live', version: toShot.body.episode.version });
     expect(noUrl.status).toBe(400);
     expect(noUrl.body.error.fields[0].path).toBe('videoUrl');
-    const live = await producer.patch(`${base}/${draft.id}`).send({ state: 'live', videoUrl: 'https://video.example/tern-ep8', version: toShot.body.episode.version });
+    const live = await producer
+      .patch(`${base}/${draft.id}`)
+      .send({ state: 'live', videoUrl: 'https://video.example/tern-ep8', version: toShot.body.episode.version });
     expect(live.status).toBe(200);
     expect(live.body.episode.publishedAt).toBeTruthy();
     expect(await Activity.count({ where: { entity: 'episode', entityId: draft.id, action: 'state' } })).toBe(acts + 2);
     // The producer may move it back; that is recorded too.
-    const back = await producer.patch(`${base}/${draft.id}`).send({ state: 'in_edit', version: live.body.episode.version });
+    const back = await producer
+      .patch(`${base}/${draft.id}`)
+      .send({ state: 'in_edit', version: live.body.episode.version });
     expect(back.status).toBe(200);
     expect(back.body.episode.publishedAt).toBeNull();
     expect(await Activity.count({ where: { entity: 'episode', entityId: draft.id, action: 'state' } })).toBe(acts + 3);
@@ -111,13 +149,20 @@ describe('episodes', () => {
     // "Warm hands, soft light" holds the heated steering wheel, a viewer request the demo accepted.
     const ep = eps.find((e: { title: string }) => e.title === 'Warm hands, soft light');
     const before = await count('mail_outbox');
-    await Upgrade.update({ installState: 'installed', installSegment: 'shot', demoSegment: 'shot' }, { where: { episodeId: ep.id } });
-    const live = await producer.patch(`${base}/${ep.id}`).send({ state: 'live', videoUrl: 'https://video.example/tern-ep8', version: ep.version });
+    await Upgrade.update(
+      { installState: 'installed', installSegment: 'shot', demoSegment: 'shot' },
+      { where: { episodeId: ep.id } },
+    );
+    const live = await producer
+      .patch(`${base}/${ep.id}`)
+      .send({ state: 'live', videoUrl: 'https://video.example/tern-ep8', version: ep.version });
     expect(live.status).toBe(200);
     const queued = (await count('mail_outbox')) - before;
     expect(queued).toBeGreaterThan(0);
     // Back and live again: the same people are not told twice.
-    const back = await producer.patch(`${base}/${ep.id}`).send({ state: 'in_edit', version: live.body.episode.version });
+    const back = await producer
+      .patch(`${base}/${ep.id}`)
+      .send({ state: 'in_edit', version: live.body.episode.version });
     await producer.patch(`${base}/${ep.id}`).send({ state: 'live', version: back.body.episode.version });
     expect((await count('mail_outbox')) - before).toBe(queued);
   });
@@ -130,7 +175,9 @@ describe('episodes', () => {
     const back = await installer.patch(`${base}/${inEdit.id}`).send({ state: 'scheduled', version: inEdit.version });
     expect(back.status).toBe(409);
     expect(back.body.error.code).toBe('backward_move');
-    const title = await installer.patch(`${base}/${scheduled.id}`).send({ title: 'Mine now', version: scheduled.version });
+    const title = await installer
+      .patch(`${base}/${scheduled.id}`)
+      .send({ title: 'Mine now', version: scheduled.version });
     expect(title.status).toBe(403);
     const fwd = await installer.patch(`${base}/${scheduled.id}`).send({ state: 'shot', version: scheduled.version });
     expect(fwd.status).toBe(200);
@@ -140,16 +187,22 @@ describe('episodes', () => {
   it('a stale version answers 409 with the current episode; scheduling needs a shoot date', async () => {
     const producer = await signInAs('producer');
     const created = (await producer.post(base).send({ title: 'Undated' })).body.episode;
-    const ok = await producer.patch(`${base}/${created.id}`).send({ title: 'Undated, renamed', version: created.version });
+    const ok = await producer
+      .patch(`${base}/${created.id}`)
+      .send({ title: 'Undated, renamed', version: created.version });
     expect(ok.status).toBe(200);
     const stale = await producer.patch(`${base}/${created.id}`).send({ title: 'Old form', version: created.version });
     expect(stale.status).toBe(409);
     expect(stale.body.error.code).toBe('stale');
     expect(stale.body.error.current.title).toBe('Undated, renamed');
-    const sched = await producer.patch(`${base}/${created.id}`).send({ state: 'scheduled', version: ok.body.episode.version });
+    const sched = await producer
+      .patch(`${base}/${created.id}`)
+      .send({ state: 'scheduled', version: ok.body.episode.version });
     expect(sched.status).toBe(400);
     expect(sched.body.error.fields[0].path).toBe('shootDate');
-    const order = await producer.patch(`${base}/${created.id}`).send({ releaseDate: '2020-01-01', shootDate: '2020-02-01', version: ok.body.episode.version });
+    const order = await producer
+      .patch(`${base}/${created.id}`)
+      .send({ releaseDate: '2020-01-01', shootDate: '2020-02-01', version: ok.body.episode.version });
     expect(order.status).toBe(400);
   });
 
@@ -160,7 +213,9 @@ describe('episodes', () => {
     const refused = await producer.delete(`${base}/${live.id}`);
     expect(refused.status).toBe(409);
     expect(refused.body.error.code).toBe('episode_locked');
-    const draft = eps.filter((e: { state: string; upgradeIds: number[] }) => e.state === 'draft' && e.upgradeIds.length).pop();
+    const draft = eps
+      .filter((e: { state: string; upgradeIds: number[] }) => e.state === 'draft' && e.upgradeIds.length)
+      .pop();
     expect((await producer.delete(`${base}/${draft.id}`)).status).toBe(204);
     const after = (await producer.get(base)).body.episodes;
     expect(after.length).toBe(eps.length - 1);

@@ -27,7 +27,10 @@ afterAll(async () => {
 });
 
 async function cookieOf(role: DemoRole) {
-  const res = await request(testApp()).post('/api/auth/login').set('X-Requested-With', 'Bayslate').send({ email: DEMO_EMAIL[role], password: DEMO_PASSWORD });
+  const res = await request(testApp())
+    .post('/api/auth/login')
+    .set('X-Requested-With', 'Bayslate')
+    .send({ email: DEMO_EMAIL[role], password: DEMO_PASSWORD });
   return (res.headers['set-cookie'] as unknown as string[]).map((c) => c.split(';')[0]).join('; ');
 }
 
@@ -67,7 +70,10 @@ function open(path: string, cookie?: string) {
 }
 
 const within = <T>(ms: number, p: Promise<T>) =>
-  Promise.race([p, new Promise<never>((_, reject) => setTimeout(() => reject(new Error(`nothing within ${ms} ms`)), ms))]);
+  Promise.race([
+    p,
+    new Promise<never>((_, reject) => setTimeout(() => reject(new Error(`nothing within ${ms} ms`)), ms)),
+  ]);
 
 describe('live updates of a build', () => {
   it("a producer's stream hears the installer's mark within two seconds, naming what changed", async () => {
@@ -77,7 +83,11 @@ describe('live updates of a build', () => {
       await within(2000, stream.next('ready'));
       const u = (await Upgrade.findOne({ where: { buildId, title: 'Remote start' } }))!;
       const started = Date.now();
-      const res = await (await signInAs('installer')).patch(`/api/builds/${buildId}/upgrades/${u.id}`).send({ installState: 'in_bay', version: u.version });
+      const res = await (
+        await signInAs('installer')
+      )
+        .patch(`/api/builds/${buildId}/upgrades/${u.id}`)
+        .send({ installState: 'in_bay', version: u.version });
       expect(res.status).toBe(200);
       const data = BuildChange.parse(JSON.parse(await within(2000, stream.next('change'))));
       expect(Date.now() - started).toBeLessThan(2000);
@@ -91,7 +101,10 @@ describe('live updates of a build', () => {
     const stream = await open(`/api/builds/${buildId}/events`, await cookieOf('marketing'));
     try {
       await within(2000, stream.next('ready'));
-      await sequelize.query(`UPDATE parts SET supplier = supplier WHERE build_id = :b AND id = (SELECT min(id) FROM parts WHERE build_id = :b)`, { replacements: { b: buildId } });
+      await sequelize.query(
+        `UPDATE parts SET supplier = supplier WHERE build_id = :b AND id = (SELECT min(id) FROM parts WHERE build_id = :b)`,
+        { replacements: { b: buildId } },
+      );
       const data = await within(2000, stream.next('change'));
       expect(BuildChange.parse(JSON.parse(data))).toEqual({ what: ['parts'] });
     } finally {
@@ -100,12 +113,48 @@ describe('live updates of a build', () => {
   });
 
   it("another build's change is not sent; anonymous 401; an unknown build 404", async () => {
-    const other = await Build.create({ slug: 'events-other', name: 'Other', year: 2020, make: 'Halvorsen', model: 'Skua', vin: null, mileage: null, budgetCents: null, labourRateCents: null, campaign: null, summary: null });
+    const other = await Build.create({
+      slug: 'events-other',
+      name: 'Other',
+      year: 2020,
+      make: 'Halvorsen',
+      model: 'Skua',
+      vin: null,
+      mileage: null,
+      budgetCents: null,
+      labourRateCents: null,
+      campaign: null,
+      summary: null,
+    });
     const stream = await open(`/api/builds/${buildId}/events`, await cookieOf('installer'));
     try {
       await within(2000, stream.next('ready'));
-      await Upgrade.create({ buildId: other.id, title: 'Elsewhere', area: 'cabin', replaces: null, becomes: null, installedOn: null, episodeId: null, episodePosition: null, notes: null, tireFrom: null, tireTo: null });
-      await Upgrade.create({ buildId, title: 'Here', area: 'cabin', replaces: null, becomes: null, installedOn: null, episodeId: null, episodePosition: null, notes: null, tireFrom: null, tireTo: null });
+      await Upgrade.create({
+        buildId: other.id,
+        title: 'Elsewhere',
+        area: 'cabin',
+        replaces: null,
+        becomes: null,
+        installedOn: null,
+        episodeId: null,
+        episodePosition: null,
+        notes: null,
+        tireFrom: null,
+        tireTo: null,
+      });
+      await Upgrade.create({
+        buildId,
+        title: 'Here',
+        area: 'cabin',
+        replaces: null,
+        becomes: null,
+        installedOn: null,
+        episodeId: null,
+        episodePosition: null,
+        notes: null,
+        tireFrom: null,
+        tireTo: null,
+      });
       // The first change message is this build's own insert, not the other build's.
       expect(BuildChange.parse(JSON.parse(await within(2000, stream.next('change'))))).toEqual({ what: ['upgrades'] });
     } finally {

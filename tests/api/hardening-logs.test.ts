@@ -57,16 +57,37 @@ describe('log lines', () => {
     const app = express();
     app.use(requestLogger(log));
     app.use(express.json());
-    app.post('/api/auth/login', (_req, res) => void res.cookie('bayslate.sid', 'session-cookie-value').json({ ok: true }));
+    app.post(
+      '/api/auth/login',
+      (_req, res) => void res.cookie('bayslate.sid', 'session-cookie-value').json({ ok: true }),
+    );
     app.get('/api/invitations/:token', (_req, res) => void res.json({ ok: true }));
     app.get('/api/public/unsubscribe/:token', (_req, res) => void res.json({ ok: true }));
-    await request(app).post('/api/auth/login').set('Cookie', 'bayslate.sid=secret-cookie-value').set('Authorization', 'Basic c2VjcmV0').send({ email: 'a@b.test', password: 'hunter2-password' });
+    await request(app)
+      .post('/api/auth/login')
+      .set('Cookie', 'bayslate.sid=secret-cookie-value')
+      .set('Authorization', 'Basic c2VjcmV0')
+      .send({ email: 'a@b.test', password: 'hunter2-password' });
     await request(app).get('/api/invitations/InviteTokenSecret12345?x=1');
     await request(app).get('/api/public/unsubscribe/abcdef0123456789.sigsigsig');
     const all = raw.join('\n');
-    for (const secret of ['secret-cookie-value', 'session-cookie-value', 'hunter2-password', 'c2VjcmV0', 'InviteTokenSecret12345', 'abcdef0123456789']) expect(all).not.toContain(secret);
-    expect(lines.map((l) => (l.req as { url: string }).url)).toEqual(['/api/auth/login', '/api/invitations/[token]', '/api/public/unsubscribe/[token]']);
-    expect(lines.every((l) => typeof (l.req as { id: string }).id === 'string' && typeof l.responseTime === 'number')).toBe(true);
+    for (const secret of [
+      'secret-cookie-value',
+      'session-cookie-value',
+      'hunter2-password',
+      'c2VjcmV0',
+      'InviteTokenSecret12345',
+      'abcdef0123456789',
+    ])
+      expect(all).not.toContain(secret);
+    expect(lines.map((l) => (l.req as { url: string }).url)).toEqual([
+      '/api/auth/login',
+      '/api/invitations/[token]',
+      '/api/public/unsubscribe/[token]',
+    ]);
+    expect(
+      lines.every((l) => typeof (l.req as { id: string }).id === 'string' && typeof l.responseTime === 'number'),
+    ).toBe(true);
   });
 });
 

@@ -47,10 +47,20 @@ async function slowSmtp(delayMs: number) {
 }
 
 const stateOf = async (id: number) =>
-  (await sequelize.query<{ state: string; attempts: number; claimed_until: Date | null }>(`SELECT state, attempts, claimed_until FROM mail_outbox WHERE id = :id`, { replacements: { id }, type: QueryTypes.SELECT }))[0]!;
+  (
+    await sequelize.query<{ state: string; attempts: number; claimed_until: Date | null }>(
+      `SELECT state, attempts, claimed_until FROM mail_outbox WHERE id = :id`,
+      { replacements: { id }, type: QueryTypes.SELECT },
+    )
+  )[0]!;
 async function queue(to: string, subject: string) {
   await enqueueMail(null, { kind: 'test', to, subject, text: 'Hello from the bay.' });
-  return (await sequelize.query<{ id: number }>(`SELECT id::int AS id FROM mail_outbox WHERE to_address = :to ORDER BY id DESC LIMIT 1`, { replacements: { to }, type: QueryTypes.SELECT }))[0]!.id;
+  return (
+    await sequelize.query<{ id: number }>(
+      `SELECT id::int AS id FROM mail_outbox WHERE to_address = :to ORDER BY id DESC LIMIT 1`,
+      { replacements: { to }, type: QueryTypes.SELECT },
+    )
+  )[0]!.id;
 }
 
 let smtp: Awaited<ReturnType<typeof slowSmtp>>;
@@ -78,7 +88,9 @@ describe('the mail worker and the database', () => {
     const locked = await other.query('SELECT id FROM mail_outbox WHERE id = $1 FOR UPDATE NOWAIT', [id]);
     await other.query('ROLLBACK');
     expect(locked.rowCount).toBe(1);
-    const open = await other.query(`SELECT count(*)::int AS n FROM pg_stat_activity WHERE datname = current_database() AND state LIKE 'idle in transaction%'`);
+    const open = await other.query(
+      `SELECT count(*)::int AS n FROM pg_stat_activity WHERE datname = current_database() AND state LIKE 'idle in transaction%'`,
+    );
     expect(open.rows[0].n).toBe(0);
     // The mail is claimed: a second worker meanwhile does not send it too.
     const second = await processDueMail({ transport: fakeTransport(smtp.port) });
@@ -91,21 +103,31 @@ describe('the mail worker and the database', () => {
 
   it('a claim that ran out (a crashed worker) is picked up again, with the same Message-ID', async () => {
     const id = await queue('crashed@crew.test', 'After a crash');
-    await sequelize.query(`UPDATE mail_outbox SET claimed_until = now() - interval '1 second', claim_id = gen_random_uuid() WHERE id = :id`, { replacements: { id } });
+    await sequelize.query(
+      `UPDATE mail_outbox SET claimed_until = now() - interval '1 second', claim_id = gen_random_uuid() WHERE id = :id`,
+      { replacements: { id } },
+    );
     const fresh = await queue('claimed@crew.test', 'Still claimed');
-    await sequelize.query(`UPDATE mail_outbox SET claimed_until = now() + interval '1 minute', claim_id = gen_random_uuid() WHERE id = :id`, { replacements: { id: fresh } });
+    await sequelize.query(
+      `UPDATE mail_outbox SET claimed_until = now() + interval '1 minute', claim_id = gen_random_uuid() WHERE id = :id`,
+      { replacements: { id: fresh } },
+    );
     expect(await processDueMail({ transport: fakeTransport(smtp.port) })).toMatchObject({ sent: 1 });
     expect((await stateOf(id)).state).toBe('sent');
     expect((await stateOf(fresh)).state).toBe('queued');
     expect(smtp.received.some((m) => m.messageId === `<outbox-${id}@bayslate.test>`)).toBe(true);
-    await sequelize.query(`UPDATE mail_outbox SET state = 'sent', sent_at = now() WHERE id = :id`, { replacements: { id: fresh } });
+    await sequelize.query(`UPDATE mail_outbox SET state = 'sent', sent_at = now() WHERE id = :id`, {
+      replacements: { id: fresh },
+    });
   });
 });
 
 describe('failed mails', () => {
   it('a mail that used up its attempts is counted, listed for the owner, and sent again on request', async () => {
     const id = await queue('bounce@crew.test', 'Will fail');
-    await sequelize.query(`UPDATE mail_outbox SET attempts = :n WHERE id = :id`, { replacements: { id, n: config().MAIL_MAX_ATTEMPTS - 1 } });
+    await sequelize.query(`UPDATE mail_outbox SET attempts = :n WHERE id = :id`, {
+      replacements: { id, n: config().MAIL_MAX_ATTEMPTS - 1 },
+    });
     const failedBefore = await countFailedMails();
     // Port 9 on loopback: nothing listens, the connection is refused.
     expect(await processDueMail({ transport: fakeTransport(9) })).toMatchObject({ failed: 1 });
@@ -118,7 +140,11 @@ describe('failed mails', () => {
     const owner = await signInAs('owner');
     const list = await owner.get('/api/mail/failed');
     expect(list.status).toBe(200);
-    expect(list.body.mails.find((m: { id: number }) => m.id === id)).toMatchObject({ to: 'bounce@crew.test', subject: 'Will fail', attempts: config().MAIL_MAX_ATTEMPTS });
+    expect(list.body.mails.find((m: { id: number }) => m.id === id)).toMatchObject({
+      to: 'bounce@crew.test',
+      subject: 'Will fail',
+      attempts: config().MAIL_MAX_ATTEMPTS,
+    });
     expect((await (await signInAs('producer')).post(`/api/mail/${id}/resend`).send({})).status).toBe(403);
 
     const again = await owner.post(`/api/mail/${id}/resend`).send({});
@@ -131,7 +157,13 @@ describe('failed mails', () => {
   });
 
   it("a viewer's unconfirmed address is shown only in part", async () => {
-    await enqueueMail(null, { kind: 'vote_confirm', to: 'private.viewer@viewers.test', subject: 'Confirm', text: 'x', scrubAfterSend: true });
+    await enqueueMail(null, {
+      kind: 'vote_confirm',
+      to: 'private.viewer@viewers.test',
+      subject: 'Confirm',
+      text: 'x',
+      scrubAfterSend: true,
+    });
     await sequelize.query(`UPDATE mail_outbox SET state = 'failed' WHERE to_address = 'private.viewer@viewers.test'`);
     const list = await (await signInAs('owner')).get('/api/mail/failed');
     const row = list.body.mails.find((m: { kind: string }) => m.kind === 'vote_confirm');
@@ -143,9 +175,14 @@ describe('failed mails', () => {
 describe('confirmation mails', () => {
   it('carry a fixed subject; the viewer text is only in the body, on one quoted line, links broken', async () => {
     const title = 'Free parts at http://win.example\nReply with your card';
-    const res = await anonymous().post('/api/public/builds/project-tern/requests').send({ title, email: 'subject-test@viewers.test' });
+    const res = await anonymous()
+      .post('/api/public/builds/project-tern/requests')
+      .send({ title, email: 'subject-test@viewers.test' });
     expect(res.status).toBe(202);
-    const [mail] = await sequelize.query<{ subject: string; text_body: string }>(`SELECT subject, text_body FROM mail_outbox WHERE to_address = 'subject-test@viewers.test'`, { type: QueryTypes.SELECT });
+    const [mail] = await sequelize.query<{ subject: string; text_body: string }>(
+      `SELECT subject, text_body FROM mail_outbox WHERE to_address = 'subject-test@viewers.test'`,
+      { type: QueryTypes.SELECT },
+    );
     expect(mail!.subject).toBe('Confirm your vote on the Project Tern build');
     expect(mail!.text_body).toContain('“Free parts at http[:]//win.example Reply with your card”');
     expect(mail!.text_body).not.toContain('http://win.example');

@@ -20,7 +20,10 @@ const testAppServer = () => http.createServer(testApp());
 import { startMediaSweeper, stopMediaSweeper } from '../../server/services/mediaSweep';
 
 type Agent = Awaited<ReturnType<typeof signInAs>>;
-const png = () => sharp({ create: { width: 300, height: 200, channels: 4, background: '#4a7a33' } }).png().toBuffer();
+const png = () =>
+  sharp({ create: { width: 300, height: 200, channels: 4, background: '#4a7a33' } })
+    .png()
+    .toBuffer();
 function mp4(bytes: number): Buffer {
   const b = Buffer.alloc(bytes, 0x2a);
   Buffer.from('000000186674797069736f6d0000020069736f6d69736f32', 'hex').copy(b, 0);
@@ -65,16 +68,33 @@ describe('uploads', () => {
     const server = testAppServer();
     await new Promise<void>((r) => server.listen(0, '127.0.0.1', () => r()));
     const port = (server.address() as AddressInfo).port;
-    const login = await request(testApp()).post('/api/auth/login').set('X-Requested-With', 'Bayslate').send({ email: 'installer@cedar-ridge.test', password: 'bayslate-demo' });
+    const login = await request(testApp())
+      .post('/api/auth/login')
+      .set('X-Requested-With', 'Bayslate')
+      .send({ email: 'installer@cedar-ridge.test', password: 'bayslate-demo' });
     const cookie = String(login.headers['set-cookie']?.[0] ?? '').split(';')[0]!;
     const boundary = 'bayslate-broken-upload';
-    const head = Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="broken.mp4"\r\nContent-Type: video/mp4\r\n\r\n`);
-    const req = http.request({ host: '127.0.0.1', port, method: 'POST', path: `/api/builds/${build.id}/media`, headers: { 'Content-Type': `multipart/form-data; boundary=${boundary}`, 'Content-Length': String(head.length + 40 * 1024 * 1024), 'X-Requested-With': 'Bayslate', Cookie: cookie } });
+    const head = Buffer.from(
+      `--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="broken.mp4"\r\nContent-Type: video/mp4\r\n\r\n`,
+    );
+    const req = http.request({
+      host: '127.0.0.1',
+      port,
+      method: 'POST',
+      path: `/api/builds/${build.id}/media`,
+      headers: {
+        'Content-Type': `multipart/form-data; boundary=${boundary}`,
+        'Content-Length': String(head.length + 40 * 1024 * 1024),
+        'X-Requested-With': 'Bayslate',
+        Cookie: cookie,
+      },
+    });
     req.on('error', () => undefined);
     req.write(head);
     // 20 MB of a 40 MB body: past the first 8 MB part of the multipart upload, then the line drops.
     const chunk = mp4(1024 * 1024);
-    for (let i = 0; i < 20; i++) await new Promise<void>((r) => (req.write(chunk) ? r() : req.once('drain', () => r())));
+    for (let i = 0; i < 20; i++)
+      await new Promise<void>((r) => (req.write(chunk) ? r() : req.once('drain', () => r())));
     await new Promise((r) => setTimeout(r, 500));
     req.destroy();
     // The server notices the broken line, aborts the multipart upload and removes the temp file.
@@ -98,13 +118,19 @@ describe('uploads', () => {
     writeFileSync(youngTemp, 'half');
     const hourAgo = new Date(Date.now() - 3600_000);
     utimesSync(oldTemp, hourAgo, hourAgo);
-    const kept = (await installer.post(`/api/builds/${build.id}/media`).attach('file', await png(), 'kept.png')).body.media;
+    const kept = (await installer.post(`/api/builds/${build.id}/media`).attach('file', await png(), 'kept.png')).body
+      .media;
     // Objects: the grace (1 s) is shorter than the wait, so only "no row names it" keeps one.
     // Temp files: 30 minutes of grace keep the young one and not the hour-old one.
     await new Promise((r) => setTimeout(r, 1100));
     const passes = await new Promise<number>((resolve) => {
       let n = 0;
-      startMediaSweeper({ intervalMs: 100, objectGraceMs: 1000, tempGraceMs: 30 * 60_000, onPass: () => (++n === 2 ? resolve(n) : undefined) });
+      startMediaSweeper({
+        intervalMs: 100,
+        objectGraceMs: 1000,
+        tempGraceMs: 30 * 60_000,
+        onPass: () => (++n === 2 ? resolve(n) : undefined),
+      });
     });
     await stopMediaSweeper();
     expect(passes).toBe(2);
@@ -121,7 +147,13 @@ describe('uploads', () => {
 
 describe('media edits', () => {
   it('a PATCH with only the stage keeps the caption, and one with only the caption keeps the stage', async () => {
-    const m = (await installer.post(`/api/builds/${build.id}/media`).field('caption', 'Bracket before paint').field('stage', 'before').attach('file', await png(), 'bracket.png')).body.media;
+    const m = (
+      await installer
+        .post(`/api/builds/${build.id}/media`)
+        .field('caption', 'Bracket before paint')
+        .field('stage', 'before')
+        .attach('file', await png(), 'bracket.png')
+    ).body.media;
     const a = await installer.patch(`/api/builds/${build.id}/media/${m.id}`).send({ stage: 'after' });
     expect(a.status).toBe(200);
     expect(a.body.media).toMatchObject({ caption: 'Bracket before paint', stage: 'after' });

@@ -15,7 +15,8 @@ describe('sign-in throttling per account', () => {
   it('eleven wrong passwords from eleven addresses are not all tried', async () => {
     // LOGIN_RATE_LIMIT defaults to 10 failed attempts per account and window.
     const answers: number[] = [];
-    for (let i = 1; i <= 11; i++) answers.push((await attempt(`203.0.113.${i}`, 'Producer@Cedar-Ridge.test', `wrong-guess-${i}`)).status);
+    for (let i = 1; i <= 11; i++)
+      answers.push((await attempt(`203.0.113.${i}`, 'Producer@Cedar-Ridge.test', `wrong-guess-${i}`)).status);
     expect(answers.slice(0, 10)).toEqual(Array(10).fill(401));
     expect(answers[10]).toBe(429);
     // Another account from one of those addresses is still tried: the address limit is separate.
@@ -32,7 +33,8 @@ describe('sign-in throttling per account', () => {
   it('the per-address limit sees the forwarded address, not the proxy', async () => {
     // The address limit is five times the account limit (50): one viewer trying fifty accounts is
     // held back on the 51st; another viewer behind the same proxy is not.
-    for (let i = 0; i < 50; i++) expect((await attempt('192.0.2.7', `nobody-${i}@cedar-ridge.test`, 'wrong')).status).toBe(401);
+    for (let i = 0; i < 50; i++)
+      expect((await attempt('192.0.2.7', `nobody-${i}@cedar-ridge.test`, 'wrong')).status).toBe(401);
     expect((await attempt('192.0.2.7', 'nobody-50@cedar-ridge.test', 'wrong')).status).toBe(429);
     expect((await attempt('192.0.2.8', 'nobody-50@cedar-ridge.test', 'wrong')).status).toBe(401);
   });

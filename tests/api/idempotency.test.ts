@@ -25,19 +25,35 @@ beforeAll(async () => {
 describe('a change resent with the same key happens once', () => {
   it('hours logged twice with one key make one entry; the second answer is the first, marked replayed', async () => {
     const before = await counts('labour_entries', 'activities');
-    const first = await installer.post(labourUrl()).set('Idempotency-Key', 'hours-key-0001').send({ ...hours, upgradeId });
+    const first = await installer
+      .post(labourUrl())
+      .set('Idempotency-Key', 'hours-key-0001')
+      .send({ ...hours, upgradeId });
     expect(first.status).toBe(201);
-    const again = await installer.post(labourUrl()).set('Idempotency-Key', 'hours-key-0001').send({ ...hours, upgradeId });
+    const again = await installer
+      .post(labourUrl())
+      .set('Idempotency-Key', 'hours-key-0001')
+      .send({ ...hours, upgradeId });
     expect(again.status).toBe(201);
     expect(again.headers['idempotent-replayed']).toBe('true');
     expect(again.body).toEqual(first.body);
-    expect(await counts('labour_entries', 'activities')).toEqual({ labour_entries: before.labour_entries + 1, activities: before.activities + 1 });
+    expect(await counts('labour_entries', 'activities')).toEqual({
+      labour_entries: before.labour_entries + 1,
+      activities: before.activities + 1,
+    });
   });
 
   it('without a key, or with a new key, the same hours are logged again (nothing changes for other callers)', async () => {
     const before = await counts('labour_entries');
     expect((await installer.post(labourUrl()).send({ ...hours, upgradeId })).status).toBe(201);
-    expect((await installer.post(labourUrl()).set('Idempotency-Key', 'hours-key-0002').send({ ...hours, upgradeId })).status).toBe(201);
+    expect(
+      (
+        await installer
+          .post(labourUrl())
+          .set('Idempotency-Key', 'hours-key-0002')
+          .send({ ...hours, upgradeId })
+      ).status,
+    ).toBe(201);
     expect((await counts('labour_entries')).labour_entries).toBe(before.labour_entries + 2);
   });
 
@@ -56,10 +72,16 @@ describe('a change resent with the same key happens once', () => {
   });
 
   it('a photo resent with its key is stored once', async () => {
-    const file = await sharp({ create: { width: 64, height: 48, channels: 3, background: '#3d5a73' } }).jpeg().toBuffer();
+    const file = await sharp({ create: { width: 64, height: 48, channels: 3, background: '#3d5a73' } })
+      .jpeg()
+      .toBuffer();
     const before = await counts('media');
     const send = () =>
-      installer.post(`/api/builds/${buildId}/media`).set('Idempotency-Key', 'photo-key-0001').field('upgradeId', String(upgradeId)).attach('file', file, { filename: 'bay.jpg', contentType: 'image/jpeg' });
+      installer
+        .post(`/api/builds/${buildId}/media`)
+        .set('Idempotency-Key', 'photo-key-0001')
+        .field('upgradeId', String(upgradeId))
+        .attach('file', file, { filename: 'bay.jpg', contentType: 'image/jpeg' });
     const first = await send();
     expect(first.status).toBe(201);
     const again = await send();
@@ -72,25 +94,51 @@ describe('a change resent with the same key happens once', () => {
 describe('keys are checked and kept apart', () => {
   it('a refusal is kept too: the resend gets the same refusal', async () => {
     const before = await counts('labour_entries');
-    const first = await installer.post(labourUrl()).set('Idempotency-Key', 'refused-key-01').send({ ...hours, hours: -2, upgradeId });
+    const first = await installer
+      .post(labourUrl())
+      .set('Idempotency-Key', 'refused-key-01')
+      .send({ ...hours, hours: -2, upgradeId });
     expect(first.status).toBe(400);
-    const again = await installer.post(labourUrl()).set('Idempotency-Key', 'refused-key-01').send({ ...hours, hours: -2, upgradeId });
+    const again = await installer
+      .post(labourUrl())
+      .set('Idempotency-Key', 'refused-key-01')
+      .send({ ...hours, hours: -2, upgradeId });
     expect(again.status).toBe(400);
     expect(again.body).toEqual(first.body);
     expect((await counts('labour_entries')).labour_entries).toBe(before.labour_entries);
   });
 
   it('one key for two different changes answers 422 naming the first change', async () => {
-    expect((await installer.post(labourUrl()).set('Idempotency-Key', 'reused-key-01').send({ ...hours, upgradeId })).status).toBe(201);
-    const other = await installer.patch(`/api/builds/${buildId}/upgrades/${upgradeId}`).set('Idempotency-Key', 'reused-key-01').send({ installState: 'in_bay', version: 1 });
+    expect(
+      (
+        await installer
+          .post(labourUrl())
+          .set('Idempotency-Key', 'reused-key-01')
+          .send({ ...hours, upgradeId })
+      ).status,
+    ).toBe(201);
+    const other = await installer
+      .patch(`/api/builds/${buildId}/upgrades/${upgradeId}`)
+      .set('Idempotency-Key', 'reused-key-01')
+      .send({ installState: 'in_bay', version: 1 });
     expect(other.status).toBe(422);
     expect(other.body.error.message).toMatch(/already used for POST \/api\/builds\/\d+\/labour/);
   });
 
   it('another person using the same key makes their own change', async () => {
     const before = await counts('labour_entries');
-    expect((await installer.post(labourUrl()).set('Idempotency-Key', 'shared-key-01').send({ ...hours, upgradeId })).status).toBe(201);
-    const theirs = await producer.post(labourUrl()).set('Idempotency-Key', 'shared-key-01').send({ ...hours, upgradeId });
+    expect(
+      (
+        await installer
+          .post(labourUrl())
+          .set('Idempotency-Key', 'shared-key-01')
+          .send({ ...hours, upgradeId })
+      ).status,
+    ).toBe(201);
+    const theirs = await producer
+      .post(labourUrl())
+      .set('Idempotency-Key', 'shared-key-01')
+      .send({ ...hours, upgradeId });
     expect(theirs.status).toBe(201);
     expect(theirs.headers['idempotent-replayed']).toBeUndefined();
     expect((await counts('labour_entries')).labour_entries).toBe(before.labour_entries + 2);
@@ -98,7 +146,10 @@ describe('keys are checked and kept apart', () => {
 
   it('a malformed key answers 400 naming the header, and nothing is written', async () => {
     const before = await counts('labour_entries');
-    const res = await installer.post(labourUrl()).set('Idempotency-Key', 'bad key!').send({ ...hours, upgradeId });
+    const res = await installer
+      .post(labourUrl())
+      .set('Idempotency-Key', 'bad key!')
+      .send({ ...hours, upgradeId });
     expect(res.status).toBe(400);
     expect(res.body.error.message).toMatch(/Idempotency-Key/);
     expect((await counts('labour_entries')).labour_entries).toBe(before.labour_entries);

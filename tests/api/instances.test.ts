@@ -14,7 +14,14 @@ let a: ServerProcess;
 let b: ServerProcess;
 
 beforeAll(async () => {
-  const env = { NODE_ENV: 'test', BAYSLATE_DEMO: '1', LOGIN_RATE_LIMIT: String(LIMIT), MAIL_WORKER: '1', MAIL_POLL_MS: '50', LOG_TEST_ERRORS: '1' };
+  const env = {
+    NODE_ENV: 'test',
+    BAYSLATE_DEMO: '1',
+    LOGIN_RATE_LIMIT: String(LIMIT),
+    MAIL_WORKER: '1',
+    MAIL_POLL_MS: '50',
+    LOG_TEST_ERRORS: '1',
+  };
   [a, b] = await Promise.all([startServerProcess(env), startServerProcess(env)]);
 });
 afterAll(async () => {
@@ -51,7 +58,9 @@ describe('two instances on one database', () => {
     const next = await onA.post('/api/auth/login', { ...wrong, password: DEMO_PASSWORD });
     expect(next.status).toBe(429);
     expect((await onB.post('/api/auth/login', { ...wrong, password: DEMO_PASSWORD })).status).toBe(429);
-    const [rows] = await sequelize.query(`SELECT hits FROM rate_limit_counters WHERE key LIKE 'login:%' AND key LIKE '%${DEMO_EMAIL.marketing}'`);
+    const [rows] = await sequelize.query(
+      `SELECT hits FROM rate_limit_counters WHERE key LIKE 'login:%' AND key LIKE '%${DEMO_EMAIL.marketing}'`,
+    );
     expect((rows as { hits: number }[])[0].hits).toBe(LIMIT + 2);
   });
 
@@ -89,7 +98,9 @@ describe('two instances on one database', () => {
     const installerB = await signedIn(b, DEMO_EMAIL.installer);
     expect((await installerB.get('/api/auth/me')).status).toBe(200);
     const users = await ownerA.get('/api/users');
-    const installer = (users.body.users as { id: number; email: string }[]).find((u) => u.email === DEMO_EMAIL.installer)!;
+    const installer = (users.body.users as { id: number; email: string }[]).find(
+      (u) => u.email === DEMO_EMAIL.installer,
+    )!;
     expect((await ownerA.patch(`/api/users/${installer.id}`, { active: false })).status).toBe(200);
     // B had the person in its two-second cache; the change notice drops it well before that.
     await new Promise((r) => setTimeout(r, 300));
@@ -98,10 +109,13 @@ describe('two instances on one database', () => {
 
   it('two mail workers send each mail exactly once', async () => {
     const addresses = Array.from({ length: 24 }, (_, i) => uniqueAddress(`twice-${i}`));
-    for (const to of addresses) await enqueueMail(null, { kind: 'test', to, subject: 'One of a batch', text: 'Sent once.' });
+    for (const to of addresses)
+      await enqueueMail(null, { kind: 'test', to, subject: 'One of a batch', text: 'Sent once.' });
     const until = Date.now() + 20_000;
     for (;;) {
-      const [rows] = await sequelize.query(`SELECT count(*)::int AS n FROM mail_outbox WHERE kind = 'test' AND state = 'sent'`);
+      const [rows] = await sequelize.query(
+        `SELECT count(*)::int AS n FROM mail_outbox WHERE kind = 'test' AND state = 'sent'`,
+      );
       if ((rows as { n: number }[])[0].n === addresses.length) break;
       if (Date.now() > until) throw new Error('the workers did not send the batch in time');
       await new Promise((r) => setTimeout(r, 100));

@@ -34,19 +34,31 @@ describe('labour', () => {
   });
   it('installer logs own hours: the entry is theirs whatever they do not say', async () => {
     const before = await counts('labour_entries', 'activities');
-    const res = await as.installer.post(url()).send({ upgradeId, workedOn: '2026-12-01', hours: 1.5, kind: 'install', note: 'Wheel swap' });
+    const res = await as.installer
+      .post(url())
+      .send({ upgradeId, workedOn: '2026-12-01', hours: 1.5, kind: 'install', note: 'Wheel swap' });
     expect(res.status).toBe(201);
     expect(res.body.labourEntry).toMatchObject({ userId: installerId, personName: 'Ruben Castell', hours: 1.5 });
-    expect(await counts('labour_entries', 'activities')).toEqual({ labour_entries: before.labour_entries + 1, activities: before.activities + 1 });
+    expect(await counts('labour_entries', 'activities')).toEqual({
+      labour_entries: before.labour_entries + 1,
+      activities: before.activities + 1,
+    });
   });
   it('installer may not log hours for someone else', async () => {
     const before = await counts('labour_entries');
-    expect((await as.installer.post(url()).send({ upgradeId, workedOn: '2026-12-01', hours: 1, userId: producerId })).status).toBe(403);
-    expect((await as.installer.post(url()).send({ upgradeId, workedOn: '2026-12-01', hours: 1, personName: 'Someone' })).status).toBe(403);
+    expect(
+      (await as.installer.post(url()).send({ upgradeId, workedOn: '2026-12-01', hours: 1, userId: producerId })).status,
+    ).toBe(403);
+    expect(
+      (await as.installer.post(url()).send({ upgradeId, workedOn: '2026-12-01', hours: 1, personName: 'Someone' }))
+        .status,
+    ).toBe(403);
     expect(await counts('labour_entries')).toEqual(before);
   });
   it('producer logs hours for another person', async () => {
-    const res = await as.producer.post(url()).send({ upgradeId, workedOn: '2026-11-30', hours: 2, kind: 'filming', userId: installerId });
+    const res = await as.producer
+      .post(url())
+      .send({ upgradeId, workedOn: '2026-11-30', hours: 2, kind: 'filming', userId: installerId });
     expect(res.status).toBe(201);
     expect(res.body.labourEntry).toMatchObject({ userId: installerId, personName: 'Ruben Castell', kind: 'filming' });
   });
@@ -54,8 +66,10 @@ describe('labour', () => {
     expect((await as.marketing.post(url()).send({ upgradeId, workedOn: '2026-12-01', hours: 1 })).status).toBe(403);
   });
   it('installer changes and deletes own entries only', async () => {
-    const mine = (await as.installer.post(url()).send({ upgradeId, workedOn: '2026-12-01', hours: 1 })).body.labourEntry;
-    const theirs = (await as.producer.post(url()).send({ upgradeId, workedOn: '2026-12-01', hours: 1 })).body.labourEntry;
+    const mine = (await as.installer.post(url()).send({ upgradeId, workedOn: '2026-12-01', hours: 1 })).body
+      .labourEntry;
+    const theirs = (await as.producer.post(url()).send({ upgradeId, workedOn: '2026-12-01', hours: 1 })).body
+      .labourEntry;
     expect(theirs.userId).toBe(producerId);
     const ok = await as.installer.patch(url(`/${mine.id}`)).send({ hours: 2.25 });
     expect(ok.status).toBe(200);
@@ -83,9 +97,41 @@ describe('labour', () => {
     expect(await counts('labour_entries', 'activities')).toEqual(before);
   });
   it('another build’s entry answers 404; an unknown upgrade answers 400', async () => {
-    const other = await Build.create({ slug: 'labour-other', name: 'Other', year: 2020, make: 'Halvorsen', model: 'Skua', vin: null, mileage: null, budgetCents: null, labourRateCents: null, campaign: null, summary: null });
-    const ou = await Upgrade.create({ buildId: other.id, title: 'Other', area: 'front', replaces: null, becomes: null, installedOn: null, episodeId: null, episodePosition: null, notes: null, tireFrom: null, tireTo: null });
-    const l = await LabourEntry.create({ buildId: other.id, upgradeId: ou.id, userId: installerId, personName: 'Ruben Castell', workedOn: '2026-11-30', hours: 1, note: null });
+    const other = await Build.create({
+      slug: 'labour-other',
+      name: 'Other',
+      year: 2020,
+      make: 'Halvorsen',
+      model: 'Skua',
+      vin: null,
+      mileage: null,
+      budgetCents: null,
+      labourRateCents: null,
+      campaign: null,
+      summary: null,
+    });
+    const ou = await Upgrade.create({
+      buildId: other.id,
+      title: 'Other',
+      area: 'front',
+      replaces: null,
+      becomes: null,
+      installedOn: null,
+      episodeId: null,
+      episodePosition: null,
+      notes: null,
+      tireFrom: null,
+      tireTo: null,
+    });
+    const l = await LabourEntry.create({
+      buildId: other.id,
+      upgradeId: ou.id,
+      userId: installerId,
+      personName: 'Ruben Castell',
+      workedOn: '2026-11-30',
+      hours: 1,
+      note: null,
+    });
     expect((await as.installer.patch(url(`/${l.id}`)).send({ hours: 2 })).status).toBe(404);
     expect((await as.owner.delete(url(`/${l.id}`))).status).toBe(404);
     const res = await as.installer.post(url()).send({ upgradeId: ou.id, workedOn: '2026-12-01', hours: 1 });

@@ -27,7 +27,13 @@ async function closedPort(): Promise<number> {
 }
 
 const queue = (to: string, extra: Partial<Parameters<typeof enqueueMail>[1]> = {}) =>
-  enqueueMail(null, { kind: 'test', to, subject: `Hello ${to}`, text: 'Body with a link https://example.test/x', ...extra });
+  enqueueMail(null, {
+    kind: 'test',
+    to,
+    subject: `Hello ${to}`,
+    text: 'Body with a link https://example.test/x',
+    ...extra,
+  });
 
 describe('mail queue and worker', () => {
   it('sends a queued mail exactly once and records it', async () => {
@@ -60,7 +66,9 @@ describe('mail queue and worker', () => {
     expect((await processDueMail()).sent).toBe(0);
     expect(await mailsTo(to)).toHaveLength(0);
     // Time passes (the retry is due): the working SMTP gets it, once.
-    await sequelize.query('UPDATE mail_outbox SET next_attempt_at = now() WHERE id = :id', { replacements: { id: row.id } });
+    await sequelize.query('UPDATE mail_outbox SET next_attempt_at = now() WHERE id = :id', {
+      replacements: { id: row.id },
+    });
     expect((await processDueMail()).sent).toBe(1);
     expect(await mailsTo(to)).toHaveLength(1);
     await row.reload();
@@ -73,7 +81,9 @@ describe('mail queue and worker', () => {
     expect(backoffMs(40)).toBe(6 * 3_600_000);
     const to = uniqueAddress('giveup');
     await queue(to);
-    await sequelize.query('UPDATE mail_outbox SET attempts = :n WHERE to_address = :to', { replacements: { n: config().MAIL_MAX_ATTEMPTS - 1, to } });
+    await sequelize.query('UPDATE mail_outbox SET attempts = :n WHERE to_address = :to', {
+      replacements: { n: config().MAIL_MAX_ATTEMPTS - 1, to },
+    });
     await processDueMail({ transport: fakeTransport(await closedPort()) });
     const row = (await MailOutbox.findOne({ where: { toAddress: to } }))!;
     expect(row.state).toBe('failed');
@@ -94,7 +104,10 @@ describe('mail queue and worker', () => {
           return real.sendMail(m as never);
         },
       }) as unknown as Transporter;
-    const [a, b] = await Promise.all([processDueMail({ transport: counting('a') }), processDueMail({ transport: counting('b') })]);
+    const [a, b] = await Promise.all([
+      processDueMail({ transport: counting('a') }),
+      processDueMail({ transport: counting('b') }),
+    ]);
     expect(a.sent + b.sent).toBeGreaterThanOrEqual(12);
     const ids = seen.map((s) => s.split(':')[1]);
     expect(new Set(ids).size).toBe(ids.length);
@@ -118,7 +131,9 @@ describe('mail queue and worker', () => {
     expect(await count('mail_outbox')).toBe(before);
     expect(await MailOutbox.count({ where: { toAddress: to } })).toBe(0);
     expect((await mailsTo(to))[0]!.text).toContain('confirm/abc');
-    const [rows] = await sequelize.query(`SELECT count(*)::int AS n FROM mail_outbox WHERE text_body LIKE '%confirm/abc%'`);
+    const [rows] = await sequelize.query(
+      `SELECT count(*)::int AS n FROM mail_outbox WHERE text_body LIKE '%confirm/abc%'`,
+    );
     expect((rows as { n: number }[])[0]!.n).toBe(0);
   });
 });
@@ -151,7 +166,9 @@ describe('mail health, invitation and the development inbox', () => {
     const [mail] = await mailsTo(email);
     const token = linkIn(mail!, '/welcome/').split('/welcome/')[1]!;
     expect(await count('invitation_links')).toBeGreaterThan(0);
-    const [stored] = await sequelize.query(`SELECT count(*)::int AS n FROM invitation_links WHERE token_hash = :t`, { replacements: { t: token } });
+    const [stored] = await sequelize.query(`SELECT count(*)::int AS n FROM invitation_links WHERE token_hash = :t`, {
+      replacements: { t: token },
+    });
     expect((stored as { n: number }[])[0]!.n).toBe(0); // only the hash is kept
     const who = await anonymous().get(`/api/invitations/${token}`);
     expect(who.status).toBe(200);
@@ -159,12 +176,18 @@ describe('mail health, invitation and the development inbox', () => {
     const short = await anonymous().post(`/api/invitations/${token}`).send({ password: 'short' });
     expect(short.status).toBe(400);
     expect(short.body.error.fields[0].path).toBe('password');
-    expect((await anonymous().post(`/api/invitations/${token}`).send({ password: 'a-good-long-password' })).status).toBe(200);
-    expect((await anonymous().post('/api/auth/login').send({ email, password: 'a-good-long-password' })).status).toBe(200);
+    expect(
+      (await anonymous().post(`/api/invitations/${token}`).send({ password: 'a-good-long-password' })).status,
+    ).toBe(200);
+    expect((await anonymous().post('/api/auth/login').send({ email, password: 'a-good-long-password' })).status).toBe(
+      200,
+    );
     const again = await anonymous().post(`/api/invitations/${token}`).send({ password: 'another-long-password' });
     expect(again.status).toBe(410);
     expect(again.body.error.code).toBe('link_used');
-    expect((await anonymous().post('/api/auth/login').send({ email, password: 'another-long-password' })).status).toBe(401);
+    expect((await anonymous().post('/api/auth/login').send({ email, password: 'another-long-password' })).status).toBe(
+      401,
+    );
   });
 
   it('an expired or unknown invitation link is refused', async () => {
@@ -183,14 +206,19 @@ describe('mail health, invitation and the development inbox', () => {
   it('a refused new person (duplicate e-mail) queues no mail', async () => {
     const owner = await signInAs('owner');
     const before = await count('mail_outbox');
-    const res = await owner.post('/api/users').send({ email: 'installer@cedar-ridge.test', name: 'Twice', roles: ['installer'] });
+    const res = await owner
+      .post('/api/users')
+      .send({ email: 'installer@cedar-ridge.test', name: 'Twice', roles: ['installer'] });
     expect(res.status).toBe(409);
     expect(await count('mail_outbox')).toBe(before);
   });
 
   it('/dev/mail lists mail newest first and shows a message escaped, with links', async () => {
     const to = uniqueAddress('inbox');
-    await queue(to, { subject: '<script>alert(1)</script> hi', text: 'Open <b>this</b>: https://example.test/confirm/xyz now' });
+    await queue(to, {
+      subject: '<script>alert(1)</script> hi',
+      text: 'Open <b>this</b>: https://example.test/confirm/xyz now',
+    });
     await processDueMail();
     const list = await anonymous().get('/dev/mail');
     expect(list.status).toBe(200);

@@ -29,15 +29,24 @@ const sha = (b: Buffer) => createHash('sha256').update(b).digest('hex');
 type Agent = Awaited<ReturnType<typeof signInAs>>;
 
 // --- generated test files (no fixtures on disk) ---
-const jpeg = () => sharp({ create: { width: 1200, height: 800, channels: 3, background: '#3d5a73' } }).jpeg({ quality: 80 }).toBuffer();
-const png = () => sharp({ create: { width: 300, height: 200, channels: 4, background: '#b34a14' } }).png().toBuffer();
+const jpeg = () =>
+  sharp({ create: { width: 1200, height: 800, channels: 3, background: '#3d5a73' } })
+    .jpeg({ quality: 80 })
+    .toBuffer();
+const png = () =>
+  sharp({ create: { width: 300, height: 200, channels: 4, background: '#b34a14' } })
+    .png()
+    .toBuffer();
 /** An ISO base-media header (ftyp isom) followed by filler: passes as MP4 by content. */
 function mp4(bytes = 256 * 1024): Buffer {
   const b = Buffer.alloc(bytes, 0x2a);
   Buffer.from('000000186674797069736f6d0000020069736f6d69736f32', 'hex').copy(b, 0);
   return b;
 }
-const pdf = () => Buffer.from('%PDF-1.4\n1 0 obj<</Type/Catalog/Pages 2 0 R>>endobj\n2 0 obj<</Type/Pages/Kids[]/Count 0>>endobj\ntrailer<</Root 1 0 R>>\n%%EOF\n');
+const pdf = () =>
+  Buffer.from(
+    '%PDF-1.4\n1 0 obj<</Type/Catalog/Pages 2 0 R>>endobj\n2 0 obj<</Type/Pages/Kids[]/Count 0>>endobj\ntrailer<</Root 1 0 R>>\n%%EOF\n',
+  );
 /** An ELF executable header: what a renamed program starts with. */
 const elf = () => Buffer.concat([Buffer.from([0x7f, 0x45, 0x4c, 0x46, 2, 1, 1, 0]), Buffer.alloc(8000, 0)]);
 
@@ -53,15 +62,45 @@ beforeAll(async () => {
   build = (await Build.findOne({ where: { slug: 'project-tern' } }))!;
   upgrade = (await Upgrade.findOne({ where: { buildId: build.id, title: 'Trailer wiring, 7-pin' } }))!;
   part = (await Part.findOne({ where: { buildId: build.id } }))!;
-  other = await Build.create({ slug: 'media-other', name: 'Other', year: 2021, make: 'Halvorsen', model: 'Skua', vin: null, mileage: null, budgetCents: null, labourRateCents: null, campaign: null, summary: null });
-  otherUpgrade = await Upgrade.create({ buildId: other.id, title: 'Other build upgrade', area: 'front', replaces: null, becomes: null, installedOn: null, episodeId: null, episodePosition: null, notes: null, tireFrom: null, tireTo: null });
+  other = await Build.create({
+    slug: 'media-other',
+    name: 'Other',
+    year: 2021,
+    make: 'Halvorsen',
+    model: 'Skua',
+    vin: null,
+    mileage: null,
+    budgetCents: null,
+    labourRateCents: null,
+    campaign: null,
+    summary: null,
+  });
+  otherUpgrade = await Upgrade.create({
+    buildId: other.id,
+    title: 'Other build upgrade',
+    area: 'front',
+    replaces: null,
+    becomes: null,
+    installedOn: null,
+    episodeId: null,
+    episodePosition: null,
+    notes: null,
+    tireFrom: null,
+    tireTo: null,
+  });
   // A temporary folder of this file's own, so "nothing left on disk" is this file's claim only.
   uploadDir = mkdtempSync(path.join(os.tmpdir(), 'bayslate-media-uploads-'));
   (config() as { UPLOAD_DIR: string }).UPLOAD_DIR = uploadDir;
 });
 afterAll(() => rmSync(uploadDir, { recursive: true, force: true }));
 
-function upload(agent: Agent, file: Buffer, name: string, fields: Record<string, string | number> = {}, buildId = build.id) {
+function upload(
+  agent: Agent,
+  file: Buffer,
+  name: string,
+  fields: Record<string, string | number> = {},
+  buildId = build.id,
+) {
   let req = agent.post(`/api/builds/${buildId}/media`);
   for (const [k, v] of Object.entries(fields)) req = req.field(k, String(v));
   return req.attach('file', file, { filename: name, contentType: 'image/jpeg' });
@@ -84,10 +123,23 @@ describe('media: uploads round-trip byte-exact', () => {
   it('a photo: stored, thumbnail made once, sha256 of the download equals the upload', async () => {
     const installer = await as('installer');
     const file = await jpeg();
-    const res = await upload(installer, file, 'wiring-under-frame.jpg', { upgradeId: upgrade.id, stage: 'during', caption: 'Loom along the rail' });
+    const res = await upload(installer, file, 'wiring-under-frame.jpg', {
+      upgradeId: upgrade.id,
+      stage: 'during',
+      caption: 'Loom along the rail',
+    });
     expect(res.status, JSON.stringify(res.body)).toBe(201);
     const m = res.body.media;
-    expect(m).toMatchObject({ kind: 'photo', stage: 'during', caption: 'Loom along the rail', upgradeId: upgrade.id, contentType: 'image/jpeg', sizeBytes: file.length, sha256: sha(file), originalName: 'wiring-under-frame.jpg' });
+    expect(m).toMatchObject({
+      kind: 'photo',
+      stage: 'during',
+      caption: 'Loom along the rail',
+      upgradeId: upgrade.id,
+      contentType: 'image/jpeg',
+      sizeBytes: file.length,
+      sha256: sha(file),
+      originalName: 'wiring-under-frame.jpg',
+    });
     const row = (await Media.findByPk(m.id))!;
     // Our own key, never the person's file name.
     expect(row.objectKey).toMatch(new RegExp(`^builds/${build.id}/\\d{4}-\\d{2}/[0-9a-f-]{36}\\.jpg$`));
@@ -109,7 +161,12 @@ describe('media: uploads round-trip byte-exact', () => {
     const file = mp4(3 * 1024 * 1024 + 17);
     const res = await upload(producer, file, 'install-take-2.mp4', { upgradeId: upgrade.id, stage: 'during' });
     expect(res.status, JSON.stringify(res.body)).toBe(201);
-    expect(res.body.media).toMatchObject({ kind: 'video', contentType: 'video/mp4', sizeBytes: file.length, thumbUrl: null });
+    expect(res.body.media).toMatchObject({
+      kind: 'video',
+      contentType: 'video/mp4',
+      sizeBytes: file.length,
+      thumbUrl: null,
+    });
     const got = await download(producer, res.body.media.id);
     expect(sha(got.body)).toBe(sha(file));
     // The inline URL plays in the page under the right type.
@@ -122,7 +179,12 @@ describe('media: uploads round-trip byte-exact', () => {
     const file = pdf();
     const res = await upload(owner, file, 'Rechnung Nr. 7 – Kabelbaum.pdf', { partId: part.id });
     expect(res.status, JSON.stringify(res.body)).toBe(201);
-    expect(res.body.media).toMatchObject({ kind: 'document', partId: part.id, upgradeId: part.upgradeId, originalName: 'Rechnung Nr. 7 – Kabelbaum.pdf' });
+    expect(res.body.media).toMatchObject({
+      kind: 'document',
+      partId: part.id,
+      upgradeId: part.upgradeId,
+      originalName: 'Rechnung Nr. 7 – Kabelbaum.pdf',
+    });
     const got = await download(owner, res.body.media.id);
     expect(sha(got.body)).toBe(sha(file));
     const cd = got.headers.get('content-disposition')!;
@@ -139,7 +201,12 @@ describe('media: uploads round-trip byte-exact', () => {
 });
 
 describe('media: refused uploads store nothing', () => {
-  async function refused(res: { status: number; body: { error?: { message?: string; code?: string } } }, status: number, words: RegExp, before: Record<string, number>) {
+  async function refused(
+    res: { status: number; body: { error?: { message?: string; code?: string } } },
+    status: number,
+    words: RegExp,
+    before: Record<string, number>,
+  ) {
     expect(res.status, JSON.stringify(res.body)).toBe(status);
     expect(res.body.error?.message).toMatch(words);
     expect(await counts(...TABLES)).toEqual(before);
@@ -161,9 +228,19 @@ describe('media: refused uploads store nothing', () => {
   it('an SVG, with a script inside or not', async () => {
     const installer = await as('installer');
     const before = await counts(...TABLES);
-    const svg = '<svg xmlns="http://www.w3.org/2000/svg" width="10" height="10"><script>alert(1)</script><rect width="10" height="10"/></svg>';
+    const svg =
+      '<svg xmlns="http://www.w3.org/2000/svg" width="10" height="10"><script>alert(1)</script><rect width="10" height="10"/></svg>';
     await refused(await upload(installer, Buffer.from(svg), 'badge.svg'), 415, /Bayslate accepts/, before);
-    await refused(await upload(installer, Buffer.from('<?xml version="1.0"?><svg xmlns="http://www.w3.org/2000/svg"/>'), 'plain.svg'), 415, /Bayslate accepts/, before);
+    await refused(
+      await upload(
+        installer,
+        Buffer.from('<?xml version="1.0"?><svg xmlns="http://www.w3.org/2000/svg"/>'),
+        'plain.svg',
+      ),
+      415,
+      /Bayslate accepts/,
+      before,
+    );
   });
 
   it('a zero-byte file', async () => {
@@ -178,7 +255,12 @@ describe('media: refused uploads store nothing', () => {
     try {
       const big = Buffer.concat([await jpeg(), Buffer.alloc(1024 * 1024 + 10, 0)]);
       const before = await counts(...TABLES);
-      await refused(await upload(await as('installer'), big, 'huge.jpg'), 413, /larger than 1 MB, the limit for photos/, before);
+      await refused(
+        await upload(await as('installer'), big, 'huge.jpg'),
+        413,
+        /larger than 1 MB, the limit for photos/,
+        before,
+      );
     } finally {
       c.UPLOAD_MAX_PHOTO_MB = saved;
     }
@@ -208,9 +290,24 @@ describe('media: refused uploads store nothing', () => {
     const before = await counts(...TABLES);
     await refused(await upload(installer, await png(), 'a.png', { colour: 'red' }), 400, /colour/, before);
     await refused(await upload(installer, await png(), 'a.png', { stage: 'later' }), 400, /stage/i, before);
-    await refused(await upload(installer, await png(), 'a.png', { kind: 'video' }), 400, /PNG image, so it cannot be stored as a video/, before);
-    await refused(await installer.post(`/api/builds/${build.id}/media`).field('caption', 'no file'), 400, /multipart|field "file"/, before);
-    await refused(await installer.post(`/api/builds/${build.id}/media`).send({ caption: 'json' }), 400, /multipart/, before);
+    await refused(
+      await upload(installer, await png(), 'a.png', { kind: 'video' }),
+      400,
+      /PNG image, so it cannot be stored as a video/,
+      before,
+    );
+    await refused(
+      await installer.post(`/api/builds/${build.id}/media`).field('caption', 'no file'),
+      400,
+      /multipart|field "file"/,
+      before,
+    );
+    await refused(
+      await installer.post(`/api/builds/${build.id}/media`).send({ caption: 'json' }),
+      400,
+      /multipart/,
+      before,
+    );
   });
 
   it('an unknown build answers 404', async () => {
@@ -239,23 +336,46 @@ describe('media: roles', () => {
   it('invoices are hidden from installer and marketing in lists, downloads and edits', async () => {
     const owner = await as('owner');
     const inv = (await upload(owner, pdf(), 'supplier-invoice.pdf', { partId: part.id })).body.media;
-    const ownerList = (await owner.get(`/api/builds/${build.id}/media?partId=${part.id}`)).body.media.map((m: { id: number }) => m.id);
+    const ownerList = (await owner.get(`/api/builds/${build.id}/media?partId=${part.id}`)).body.media.map(
+      (m: { id: number }) => m.id,
+    );
     expect(ownerList).toContain(inv.id);
     for (const role of ['installer', 'marketing'] as const) {
       const a = await as(role);
       const list = await a.get(`/api/builds/${build.id}/media?pageSize=200`);
       expect(list.status).toBe(200);
       expect(list.body.media.map((m: { id: number }) => m.id)).not.toContain(inv.id);
-      expect(list.body.media.every((m: { kind: string; partId: number | null }) => !(m.kind === 'document' && m.partId !== null))).toBe(true);
+      expect(
+        list.body.media.every(
+          (m: { kind: string; partId: number | null }) => !(m.kind === 'document' && m.partId !== null),
+        ),
+      ).toBe(true);
       expect((await a.get(`/api/builds/${build.id}/media/${inv.id}/download`).redirects(0)).status).toBe(404);
     }
-    expect((await (await as('installer')).patch(`/api/builds/${build.id}/media/${inv.id}`).send({ caption: 'x' })).status).toBe(404);
-    expect((await (await as('producer')).get(`/api/builds/${build.id}/media/${inv.id}/download`).redirects(0)).status).toBe(302);
+    expect(
+      (await (await as('installer')).patch(`/api/builds/${build.id}/media/${inv.id}`).send({ caption: 'x' })).status,
+    ).toBe(404);
+    expect(
+      (await (await as('producer')).get(`/api/builds/${build.id}/media/${inv.id}/download`).redirects(0)).status,
+    ).toBe(302);
   });
 
   it('an invoice stays hidden from installer and marketing after its part is deleted', async () => {
     const owner = await as('owner');
-    const spare = await Part.create({ buildId: build.id, upgradeId: part.upgradeId, partNumber: 'HT-INV-1', description: 'Part with an invoice', quantity: 1, unitCostCents: 100, retailPriceCents: null, supplier: null, productUrl: null, expectedArrival: null, orderedOn: null, receivedOn: null });
+    const spare = await Part.create({
+      buildId: build.id,
+      upgradeId: part.upgradeId,
+      partNumber: 'HT-INV-1',
+      description: 'Part with an invoice',
+      quantity: 1,
+      unitCostCents: 100,
+      retailPriceCents: null,
+      supplier: null,
+      productUrl: null,
+      expectedArrival: null,
+      orderedOn: null,
+      receivedOn: null,
+    });
     const inv = (await upload(owner, pdf(), 'invoice-of-a-part.pdf', { partId: spare.id })).body.media;
     expect((await owner.delete(`/api/builds/${build.id}/parts/${spare.id}`)).status).toBe(204);
     for (const role of ['installer', 'marketing'] as const) {
@@ -299,14 +419,22 @@ describe('media: roles', () => {
     const producer = await as('producer');
     const own = (await upload(installer, await png(), 'mine.png', { stage: 'before' })).body.media;
     const theirs = (await upload(producer, await png(), 'theirs.png')).body.media;
-    const res = await installer.patch(`/api/builds/${build.id}/media/${own.id}`).send({ caption: 'Clamp detail', stage: 'after' });
+    const res = await installer
+      .patch(`/api/builds/${build.id}/media/${own.id}`)
+      .send({ caption: 'Clamp detail', stage: 'after' });
     expect(res.status).toBe(200);
     expect(res.body.media).toMatchObject({ caption: 'Clamp detail', stage: 'after' });
-    expect((await installer.patch(`/api/builds/${build.id}/media/${theirs.id}`).send({ caption: 'no' })).status).toBe(403);
+    expect((await installer.patch(`/api/builds/${build.id}/media/${theirs.id}`).send({ caption: 'no' })).status).toBe(
+      403,
+    );
     expect((await producer.patch(`/api/builds/${build.id}/media/${own.id}`).send({ stage: 'soon' })).status).toBe(400);
     expect((await producer.patch(`/api/builds/${build.id}/media/${own.id}`).send({ sha256: 'x' })).status).toBe(400);
-    expect((await producer.patch(`/api/builds/${other.id}/media/${own.id}`).send({ caption: 'idor' })).status).toBe(404);
-    expect((await (await as('marketing')).patch(`/api/builds/${build.id}/media/${own.id}`).send({ caption: 'x' })).status).toBe(403);
+    expect((await producer.patch(`/api/builds/${other.id}/media/${own.id}`).send({ caption: 'idor' })).status).toBe(
+      404,
+    );
+    expect(
+      (await (await as('marketing')).patch(`/api/builds/${build.id}/media/${own.id}`).send({ caption: 'x' })).status,
+    ).toBe(403);
     expect((await Media.findByPk(own.id))!.caption).toBe('Clamp detail');
   });
 
@@ -320,7 +448,10 @@ describe('media: roles', () => {
     expect((await producer.delete(`/api/builds/${other.id}/media/${own.id}`)).status).toBe(404);
     expect((await (await as('marketing')).delete(`/api/builds/${build.id}/media/${own.id}`)).status).toBe(403);
     // Yesterday's upload: the installer asks the producer.
-    await Media.update({ createdAt: new Date(Date.now() - 2 * 24 * 3600_000) }, { where: { id: theirs.id }, silent: true });
+    await Media.update(
+      { createdAt: new Date(Date.now() - 2 * 24 * 3600_000) },
+      { where: { id: theirs.id }, silent: true },
+    );
     const res = await installer.delete(`/api/builds/${build.id}/media/${own.id}`);
     expect(res.status).toBe(204);
     expect(await Media.findByPk(own.id)).toBeNull();
@@ -364,7 +495,10 @@ describe('media: storage down, and leftovers', () => {
     } finally {
       c.UPLOAD_MAX_PHOTO_MB = saved;
     }
-    const late = await installer.post(`/api/builds/${build.id}/media`).attach('file', mp4(9 * 1024 * 1024), 'late.mp4').field('upgradeId', String(otherUpgrade.id));
+    const late = await installer
+      .post(`/api/builds/${build.id}/media`)
+      .attach('file', mp4(9 * 1024 * 1024), 'late.mp4')
+      .field('upgradeId', String(otherUpgrade.id));
     expect(late.status).toBe(400);
     const stored: string[] = [];
     for await (const o of listKeys('builds/')) stored.push(o.key);

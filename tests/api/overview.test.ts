@@ -33,21 +33,53 @@ async function makeBuild(fields: Partial<{ budgetCents: number | null; labourRat
 }
 
 async function upgrade(buildId: number, f: Partial<Upgrade> & { title: string }) {
-  return Upgrade.create({ buildId, area: 'front', replaces: null, becomes: null, episodeId: null, episodePosition: null, notes: null, tireFrom: null, tireTo: null, installedOn: null, ...f } as never);
+  return Upgrade.create({
+    buildId,
+    area: 'front',
+    replaces: null,
+    becomes: null,
+    episodeId: null,
+    episodePosition: null,
+    notes: null,
+    tireFrom: null,
+    tireTo: null,
+    installedOn: null,
+    ...f,
+  } as never);
 }
-async function part(buildId: number, upgradeId: number, quantity: number, unitCostCents: number, state = 'ordered', orderedOn: string | null = '2025-02-01') {
+async function part(
+  buildId: number,
+  upgradeId: number,
+  quantity: number,
+  unitCostCents: number,
+  state = 'ordered',
+  orderedOn: string | null = '2025-02-01',
+) {
   await sequelize.query(
     `INSERT INTO parts (build_id, upgrade_id, part_number, description, quantity, unit_cost_cents, state, ordered_on) VALUES ($1,$2,'HT-1','Kit',$3,$4,$5,$6)`,
     { bind: [buildId, upgradeId, quantity, unitCostCents, state, orderedOn] },
   );
 }
 async function labour(buildId: number, upgradeId: number, workedOn: string, hours: number) {
-  await sequelize.query(`INSERT INTO labour_entries (build_id, upgrade_id, person_name, worked_on, hours) VALUES ($1,$2,'Bay tech',$3,$4)`, { bind: [buildId, upgradeId, workedOn, hours] });
+  await sequelize.query(
+    `INSERT INTO labour_entries (build_id, upgrade_id, person_name, worked_on, hours) VALUES ($1,$2,'Bay tech',$3,$4)`,
+    { bind: [buildId, upgradeId, workedOn, hours] },
+  );
 }
 async function expense(buildId: number, upgradeId: number | null, amountCents: number, spentOn = '2025-02-10') {
-  await sequelize.query(`INSERT INTO expenses (build_id, upgrade_id, description, amount_cents, spent_on) VALUES ($1,$2,'Shop supplies',$3,$4)`, { bind: [buildId, upgradeId, amountCents, spentOn] });
+  await sequelize.query(
+    `INSERT INTO expenses (build_id, upgrade_id, description, amount_cents, spent_on) VALUES ($1,$2,'Shop supplies',$3,$4)`,
+    { bind: [buildId, upgradeId, amountCents, spentOn] },
+  );
 }
-async function removed(buildId: number, upgradeId: number | null, disposition: string, expected: number | null, actual: number | null, soldOn: string | null = null) {
+async function removed(
+  buildId: number,
+  upgradeId: number | null,
+  disposition: string,
+  expected: number | null,
+  actual: number | null,
+  soldOn: string | null = null,
+) {
   await sequelize.query(
     `INSERT INTO removed_parts (build_id, upgrade_id, description, disposition, expected_sale_cents, actual_sale_cents, sold_on) VALUES ($1,$2,'Stock part',$3,$4,$5,$6)`,
     { bind: [buildId, upgradeId, disposition, expected, actual, soldOn] },
@@ -62,7 +94,15 @@ function nonFinite(v: unknown, path = '$'): string[] {
   return [];
 }
 
-const MONEY: (keyof OverviewCostRow)[] = ['partsCents', 'labourCents', 'expensesCents', 'recoveredCents', 'expectedRecoveryCents', 'netCents', 'valueAddedCents'];
+const MONEY: (keyof OverviewCostRow)[] = [
+  'partsCents',
+  'labourCents',
+  'expensesCents',
+  'recoveredCents',
+  'expectedRecoveryCents',
+  'netCents',
+  'valueAddedCents',
+];
 function sumRows(rows: OverviewCostRow[], key: keyof OverviewCostRow) {
   return rows.reduce((s, r) => s + ((r[key] as number | null) ?? 0), 0);
 }
@@ -70,23 +110,36 @@ function sumRows(rows: OverviewCostRow[], key: keyof OverviewCostRow) {
 /** The overview's totals equal its detail rows, and its upgrade rows equal the raw rows of the database. */
 async function expectAgreesWithDatabase(o: BuildOverview, buildId: number) {
   for (const k of MONEY) {
-    expect(o.totals[k], `totals.${k} = upgrades + unassigned`).toBe(sumRows(o.upgrades, k) + ((o.unassigned[k] as number | null) ?? 0));
+    expect(o.totals[k], `totals.${k} = upgrades + unassigned`).toBe(
+      sumRows(o.upgrades, k) + ((o.unassigned[k] as number | null) ?? 0),
+    );
     expect(sumRows(o.areas, k) + ((o.unassigned[k] as number | null) ?? 0), `areas.${k}`).toBe(o.totals[k] ?? 0);
     expect(sumRows(o.episodes, k) + ((o.unassigned[k] as number | null) ?? 0), `episodes.${k}`).toBe(o.totals[k] ?? 0);
   }
-  const q = <T extends object>(sql: string): Promise<T[]> => sequelize.query<T>(sql, { bind: [buildId], type: QueryTypes.SELECT });
-  const parts = await q<{ upgrade_id: number; cents: number }>(`SELECT upgrade_id, sum(quantity * unit_cost_cents)::int AS cents FROM parts WHERE build_id = $1 AND state <> 'returned' GROUP BY upgrade_id`);
-  const hours = await q<{ upgrade_id: number; hours: number }>(`SELECT upgrade_id, sum(hours)::float8 AS hours FROM labour_entries WHERE build_id = $1 GROUP BY upgrade_id`);
-  const spent = await q<{ upgrade_id: number; cents: number }>(`SELECT upgrade_id, sum(amount_cents)::int AS cents FROM expenses WHERE build_id = $1 AND upgrade_id IS NOT NULL GROUP BY upgrade_id`);
-  const sold = await q<{ upgrade_id: number; cents: number }>(`SELECT upgrade_id, sum(actual_sale_cents)::int AS cents FROM removed_parts WHERE build_id = $1 AND disposition = 'sold' AND upgrade_id IS NOT NULL GROUP BY upgrade_id`);
+  const q = <T extends object>(sql: string): Promise<T[]> =>
+    sequelize.query<T>(sql, { bind: [buildId], type: QueryTypes.SELECT });
+  const parts = await q<{ upgrade_id: number; cents: number }>(
+    `SELECT upgrade_id, sum(quantity * unit_cost_cents)::int AS cents FROM parts WHERE build_id = $1 AND state <> 'returned' GROUP BY upgrade_id`,
+  );
+  const hours = await q<{ upgrade_id: number; hours: number }>(
+    `SELECT upgrade_id, sum(hours)::float8 AS hours FROM labour_entries WHERE build_id = $1 GROUP BY upgrade_id`,
+  );
+  const spent = await q<{ upgrade_id: number; cents: number }>(
+    `SELECT upgrade_id, sum(amount_cents)::int AS cents FROM expenses WHERE build_id = $1 AND upgrade_id IS NOT NULL GROUP BY upgrade_id`,
+  );
+  const sold = await q<{ upgrade_id: number; cents: number }>(
+    `SELECT upgrade_id, sum(actual_sale_cents)::int AS cents FROM removed_parts WHERE build_id = $1 AND disposition = 'sold' AND upgrade_id IS NOT NULL GROUP BY upgrade_id`,
+  );
   const [{ n }] = await q<{ n: number }>(`SELECT count(*)::int AS n FROM upgrades WHERE build_id = $1`);
   expect(o.upgrades).toHaveLength(n);
   const rate = o.build.labourRateCents ?? 0;
-  const of = (rows: { upgrade_id: number; cents?: number; hours?: number }[], id: number, k: 'cents' | 'hours') => rows.find((r) => r.upgrade_id === id)?.[k] ?? 0;
+  const of = (rows: { upgrade_id: number; cents?: number; hours?: number }[], id: number, k: 'cents' | 'hours') =>
+    rows.find((r) => r.upgrade_id === id)?.[k] ?? 0;
   for (const u of o.upgrades) {
     expect(u.partsCents, `parts of ${u.title}`).toBe(of(parts, u.upgradeId, 'cents'));
     expect(u.actualHours).toBeCloseTo(of(hours, u.upgradeId, 'hours'), 6);
-    if (o.labourCosted) expect(u.labourCents, `labour of ${u.title}`).toBe(roundHalfUpCents(of(hours, u.upgradeId, 'hours') * rate));
+    if (o.labourCosted)
+      expect(u.labourCents, `labour of ${u.title}`).toBe(roundHalfUpCents(of(hours, u.upgradeId, 'hours') * rate));
     expect(u.expensesCents).toBe(of(spent, u.upgradeId, 'cents'));
     expect(u.recoveredCents).toBe(of(sold, u.upgradeId, 'cents'));
     expect(u.netCents).toBe(u.partsCents + (u.labourCents ?? 0) + u.expensesCents - u.recoveredCents);
@@ -102,10 +155,38 @@ beforeAll(async () => {
   // A build worked by hand: rate $85.50/h, budget $10,000.
   handMade = await makeBuild();
   const b = handMade.id;
-  const e1 = await Episode.create({ buildId: b, number: 1, title: 'Front end', state: 'live', shootDate: '2025-03-01' } as never);
-  const e2 = await Episode.create({ buildId: b, number: 2, title: 'Cabin comfort', state: 'scheduled', shootDate: '2025-04-01' } as never);
-  const u1 = await upgrade(b, { title: 'Projector LED headlamps', area: 'front', estimatedHours: 4, valueAddedCents: 120_000, episodeId: e1.id, installState: 'installed', installSegment: 'shot', demoSegment: 'shot', installedOn: '2025-02-27' });
-  const u2 = await upgrade(b, { title: 'Heated seats', area: 'cabin', estimatedHours: 0, valueAddedCents: 45_000, episodeId: e2.id });
+  const e1 = await Episode.create({
+    buildId: b,
+    number: 1,
+    title: 'Front end',
+    state: 'live',
+    shootDate: '2025-03-01',
+  } as never);
+  const e2 = await Episode.create({
+    buildId: b,
+    number: 2,
+    title: 'Cabin comfort',
+    state: 'scheduled',
+    shootDate: '2025-04-01',
+  } as never);
+  const u1 = await upgrade(b, {
+    title: 'Projector LED headlamps',
+    area: 'front',
+    estimatedHours: 4,
+    valueAddedCents: 120_000,
+    episodeId: e1.id,
+    installState: 'installed',
+    installSegment: 'shot',
+    demoSegment: 'shot',
+    installedOn: '2025-02-27',
+  });
+  const u2 = await upgrade(b, {
+    title: 'Heated seats',
+    area: 'cabin',
+    estimatedHours: 0,
+    valueAddedCents: 45_000,
+    episodeId: e2.id,
+  });
   const u3 = await upgrade(b, { title: 'Roof rails', area: 'rear', estimatedHours: 2 });
   await part(b, u1.id, 2, 15_000); // 300.00
   await part(b, u1.id, 1, 9_999, 'returned'); // returned: costs nothing
@@ -127,15 +208,37 @@ describe('GET /api/builds/:buildId/overview', () => {
     expect(res.status).toBe(200);
     const o = expandOverview(overviewAnswer.parse(res.body));
     const u1 = o.upgrades.find((u) => u.upgradeId === ids.u1)!;
-    expect(u1).toMatchObject({ partsCents: 30_000, labourCents: 32_063, expensesCents: 4_500, recoveredCents: 7_000, expectedRecoveryCents: 2_000, netCents: 59_563, estimatedHours: 4, actualHours: 3.75, done: true });
+    expect(u1).toMatchObject({
+      partsCents: 30_000,
+      labourCents: 32_063,
+      expensesCents: 4_500,
+      recoveredCents: 7_000,
+      expectedRecoveryCents: 2_000,
+      netCents: 59_563,
+      estimatedHours: 4,
+      actualHours: 3.75,
+      done: true,
+    });
     expect(u1.valuePerDollar).toBeCloseTo(120_000 / 59_563, 5); // sent to six significant digits
     expect(u1.hoursRatio).toBeCloseTo(3.75 / 4, 12);
     const u2 = o.upgrades.find((u) => u.upgradeId === ids.u2)!;
-    expect(u2).toMatchObject({ partsCents: 50_000, labourCents: 4_019, netCents: 54_019, hoursRatio: null, done: false });
+    expect(u2).toMatchObject({
+      partsCents: 50_000,
+      labourCents: 4_019,
+      netCents: 54_019,
+      hoursRatio: null,
+      done: false,
+    });
     const u3 = o.upgrades.find((u) => u.upgradeId === ids.u3)!;
     expect(u3).toMatchObject({ netCents: 0, valuePerDollar: null, hoursRatio: 0 });
     expect(o.unassigned).toMatchObject({ expensesCents: 1_250, netCents: 1_250 });
-    expect(o.totals).toMatchObject({ partsCents: 80_000, labourCents: 36_082, expensesCents: 5_750, recoveredCents: 7_000, netCents: 114_832 });
+    expect(o.totals).toMatchObject({
+      partsCents: 80_000,
+      labourCents: 36_082,
+      expensesCents: 5_750,
+      recoveredCents: 7_000,
+      netCents: 114_832,
+    });
     expect(o.headline).toMatchObject({
       budgetCents: 1_000_000,
       spentCents: 121_832,
@@ -157,19 +260,50 @@ describe('GET /api/builds/:buildId/overview', () => {
     // one, so PV = BAC. EV = U1's budget (done). AC at fitting: U1's parts (its upgrade is installed),
     // all labour, expenses less the sale: 300 + 320.63 + 40.19 + 45 + 12.50 − 70 = 648.32; U2's
     // $500 part, not ordered, is not actual cost yet.
-    expect(o.earnedValue).toMatchObject({ rule: '0/100', bac: 131_300, pv: 131_300, ev: 64_200, ac: 64_832, unscheduledPlannedCents: 17_100 });
+    expect(o.earnedValue).toMatchObject({
+      rule: '0/100',
+      bac: 131_300,
+      pv: 131_300,
+      ev: 64_200,
+      ac: 64_832,
+      unscheduledPlannedCents: 17_100,
+    });
     expect(o.headline.actualCents).toBe(64_832);
-    expect(o.headline.pending).toEqual({ receivedNotFittedCents: 0, committedCents: 0, notOrderedCents: 50_000, laterDatedCents: 0 });
+    expect(o.headline.pending).toEqual({
+      receivedNotFittedCents: 0,
+      committedCents: 0,
+      notOrderedCents: 50_000,
+      laterDatedCents: 0,
+    });
     // Cash: paid = labour 360.82 + expenses 57.50 − sale 70; committed = U1's ordered parts; not ordered = U2's part.
-    expect(o.headline.cash).toEqual({ paidCents: 34_832, committedCents: 30_000, notOrderedCents: 50_000, netCents: 114_832 });
+    expect(o.headline.cash).toEqual({
+      paidCents: 34_832,
+      committedCents: 30_000,
+      notOrderedCents: 50_000,
+      netCents: 114_832,
+    });
     // Bottom-up: AC + U2 (0 h left, $500 of parts) + U3 (2 h × 85.50) = 648.32 + 500 + 171 = 1,319.32.
-    expect(o.headline).toMatchObject({ etcCents: 67_100, forecastCents: 131_932, forecastVarianceCents: 868_068, remainingHours: 2 });
+    expect(o.headline).toMatchObject({
+      etcCents: 67_100,
+      forecastCents: 131_932,
+      forecastVarianceCents: 868_068,
+      remainingHours: 2,
+    });
     const f = earnedValue({ bac: 131_300, pv: 131_300, ev: 64_200, ac: 64_832, eac: 131_932 });
-    for (const k of ['cv', 'sv', 'cpi', 'spi', 'eacCpi', 'eacOneOff', 'eacComposite', 'tcpi', 'tcpiEac'] as const) expect(o.earnedValue[k]).toBeCloseTo(f[k]!, 5);
+    for (const k of ['cv', 'sv', 'cpi', 'spi', 'eacCpi', 'eacOneOff', 'eacComposite', 'tcpi', 'tcpiEac'] as const)
+      expect(o.earnedValue[k]).toBeCloseTo(f[k]!, 5);
     expect(o.earnedValue.ruleDescription).toMatch(/done/);
     // Areas in the vehicle's order; episodes by number, then the upgrades in no episode.
-    expect(o.areas.map((a) => [a.area, a.upgrades])).toEqual([['front', 1], ['rear', 1], ['cabin', 1]]);
-    expect(o.episodes.map((e) => [e.number, e.upgrades, e.netCents])).toEqual([[1, 1, 59_563], [2, 1, 54_019], [null, 1, 0]]);
+    expect(o.areas.map((a) => [a.area, a.upgrades])).toEqual([
+      ['front', 1],
+      ['rear', 1],
+      ['cabin', 1],
+    ]);
+    expect(o.episodes.map((e) => [e.number, e.upgrades, e.netCents])).toEqual([
+      [1, 1, 59_563],
+      [2, 1, 54_019],
+      [null, 1, 0],
+    ]);
     // The burndown starts from the whole budget and ends where the budget stands now.
     expect(o.burndown[0]).toMatchObject({ date: '2025-01-06', planned: 1_000_000, actual: 1_000_000 });
     const lastActual = o.burndown.filter((p) => p.actual !== null).at(-1)!;
@@ -191,7 +325,9 @@ describe('GET /api/builds/:buildId/overview', () => {
   });
 
   it('refuses a producer at once when the owner takes the role away (no stale person is reused)', async () => {
-    const created = await owner.post('/api/users').send({ name: 'Temp Producer', email: 'temp-producer@cedar-ridge.test', roles: ['producer'] });
+    const created = await owner
+      .post('/api/users')
+      .send({ name: 'Temp Producer', email: 'temp-producer@cedar-ridge.test', roles: ['producer'] });
     expect(created.status).toBe(201);
     const agent = await signInAs({ email: 'temp-producer@cedar-ridge.test', password: created.body.temporaryPassword });
     expect((await agent.get(`/api/builds/${handMade.id}/overview`)).status).toBe(200);
@@ -229,8 +365,27 @@ describe('builds with missing inputs show nulls, never NaN or Infinity', () => {
     const o = await buildOverview(b);
     expect(nonFinite(o)).toEqual([]);
     expect(o.upgrades).toEqual([]);
-    expect(o.headline).toMatchObject({ netCents: 0, spentCents: 0, remainingCents: 1_000_000, valuePerDollar: null, upgradesTotal: 0, episodesTotal: 0 });
-    expect(o.earnedValue).toMatchObject({ bac: null, pv: 0, ev: 0, ac: 0, cpi: null, spi: null, eac: null, etc: null, vac: null, eacCpi: null, eacComposite: null });
+    expect(o.headline).toMatchObject({
+      netCents: 0,
+      spentCents: 0,
+      remainingCents: 1_000_000,
+      valuePerDollar: null,
+      upgradesTotal: 0,
+      episodesTotal: 0,
+    });
+    expect(o.earnedValue).toMatchObject({
+      bac: null,
+      pv: 0,
+      ev: 0,
+      ac: 0,
+      cpi: null,
+      spi: null,
+      eac: null,
+      etc: null,
+      vac: null,
+      eacCpi: null,
+      eacComposite: null,
+    });
     expect(o.headline).toMatchObject({ forecastCents: null, bacCents: null, reserveCents: null, etcCents: null });
     expect(await viaApi(b)).toEqual(o);
   });
@@ -243,7 +398,16 @@ describe('builds with missing inputs show nulls, never NaN or Infinity', () => {
     const o = await buildOverview(b);
     expect(nonFinite(o)).toEqual([]);
     // The part is ordered, not fitted: it is not actual cost; the forecast still counts it.
-    expect(o.headline).toMatchObject({ budgetCents: null, remainingCents: null, spentShare: null, forecastCents: 20_550, forecastVarianceCents: null, reserveCents: null, netCents: 20_550, bacCents: 20_550 });
+    expect(o.headline).toMatchObject({
+      budgetCents: null,
+      remainingCents: null,
+      spentShare: null,
+      forecastCents: 20_550,
+      forecastVarianceCents: null,
+      reserveCents: null,
+      netCents: 20_550,
+      bacCents: 20_550,
+    });
     expect(o.earnedValue).toMatchObject({ bac: 20_550, ev: 0, ac: 8_550, cpi: 0, eac: null, vac: null });
     expect(o.burndown).toEqual([]);
     expect(await viaApi(b)).toEqual(o);
@@ -260,7 +424,13 @@ describe('builds with missing inputs show nulls, never NaN or Infinity', () => {
     expect(o.upgrades[0]).toMatchObject({ labourCents: null, actualHours: 3, partsCents: 8_000, netCents: 8_000 });
     expect(o.totals.labourCents).toBeNull();
     expect(o.headline.actualHours).toBe(3);
-    expect(o.headline).toMatchObject({ forecastCents: null, etcCents: null, bacCents: null, reserveCents: null, remainingLabourCents: null });
+    expect(o.headline).toMatchObject({
+      forecastCents: null,
+      etcCents: null,
+      bacCents: null,
+      reserveCents: null,
+      remainingLabourCents: null,
+    });
     expect(await viaApi(b)).toEqual(o);
   });
 
@@ -272,8 +442,22 @@ describe('builds with missing inputs show nulls, never NaN or Infinity', () => {
     expect(nonFinite(o)).toEqual([]);
     expect(o.upgrades.every((u) => u.hoursRatio === null && u.valuePerDollar === null)).toBe(true);
     expect(o.totals.hoursRatio).toBeNull();
-    expect(o.headline).toMatchObject({ estimatedHours: 0, actualHours: 0, spentShare: null, bacCents: 0, reserveCents: 0, forecastCents: 0 });
-    expect(o.earnedValue).toMatchObject({ cpi: null, spi: null, eacCpi: null, eacComposite: null, tcpi: null, tcpiEac: null });
+    expect(o.headline).toMatchObject({
+      estimatedHours: 0,
+      actualHours: 0,
+      spentShare: null,
+      bacCents: 0,
+      reserveCents: 0,
+      forecastCents: 0,
+    });
+    expect(o.earnedValue).toMatchObject({
+      cpi: null,
+      spi: null,
+      eacCpi: null,
+      eacComposite: null,
+      tcpi: null,
+      tcpiEac: null,
+    });
     expect(await viaApi(b)).toEqual(o);
   });
 });
@@ -286,7 +470,11 @@ describe('one round trip, whatever the size of the build', () => {
     await labour(small.id, su.id, '2025-02-03', 1);
     const big = await makeBuild();
     for (let i = 0; i < 40; i++) {
-      const u = await upgrade(big.id, { title: `Upgrade ${i}`, area: i % 2 ? 'rear' : 'cabin', estimatedHours: 1 + (i % 3) });
+      const u = await upgrade(big.id, {
+        title: `Upgrade ${i}`,
+        area: i % 2 ? 'rear' : 'cabin',
+        estimatedHours: 1 + (i % 3),
+      });
       await part(big.id, u.id, 1 + (i % 2), 1_000 + i);
       await labour(big.id, u.id, `2025-02-${String(1 + (i % 28)).padStart(2, '0')}`, 0.5);
       await removed(big.id, u.id, 'sold', 100, 90, '2025-03-01');
@@ -368,7 +556,9 @@ describe('the cached overview', () => {
       await new Promise((r) => setTimeout(r, 30));
       return { day: '2026-01-01', zone: 'UTC', body: Buffer.from('{}'), gzipped: null, etag: 'W/"x"' };
     };
-    const same = await Promise.all(Array.from({ length: 8 }, () => singleFlight(424242, '1:0:0|2026-01-01|UTC', compute)));
+    const same = await Promise.all(
+      Array.from({ length: 8 }, () => singleFlight(424242, '1:0:0|2026-01-01|UTC', compute)),
+    );
     expect(runs).toBe(1);
     expect(new Set(same).size).toBe(1);
     await singleFlight(424242, '1:0:1|2026-01-01|UTC', compute); // a change came in: a new stamp
@@ -409,8 +599,13 @@ describe('a logged hour shows in the very next answer', () => {
     await read();
     const before = await read(); // now from the cache
     expect(before.upgrades[0]).toMatchObject({ actualHours: 0, labourCents: 0 });
-    for (const [n, hours] of [[1, 1.5], [2, 2]] as const) {
-      const logged = await owner.post(`/api/builds/${b.id}/labour`).send({ upgradeId: u.id, workedOn: '2025-02-03', hours, personName: 'Bay tech' });
+    for (const [n, hours] of [
+      [1, 1.5],
+      [2, 2],
+    ] as const) {
+      const logged = await owner
+        .post(`/api/builds/${b.id}/labour`)
+        .send({ upgradeId: u.id, workedOn: '2025-02-03', hours, personName: 'Bay tech' });
       expect(logged.status).toBe(201);
       // By hand: $85.50/h × 1.5 h = $128.25; then 3.5 h = $299.25.
       const after = await read();
@@ -429,7 +624,13 @@ describe('a logged hour shows in the very next answer', () => {
     await read();
     const reads = () => ({ ...overviewReads });
     let before = reads();
-    expect((await owner.post(`/api/builds/${b.id}/labour`).send({ upgradeId: u.id, workedOn: '2025-02-04', hours: 2, personName: 'Bay tech' })).status).toBe(201);
+    expect(
+      (
+        await owner
+          .post(`/api/builds/${b.id}/labour`)
+          .send({ upgradeId: u.id, workedOn: '2025-02-04', hours: 2, personName: 'Bay tech' })
+      ).status,
+    ).toBe(201);
     // By hand: 2 h × $85.50 = $171.00.
     expect((await read()).totals).toMatchObject({ labourCents: 17_100, actualHours: 2 });
     expect(reads()).toEqual({ full: before.full, labour: before.labour + 1 });
@@ -450,7 +651,19 @@ describe('the overview contract', () => {
     expect(expanded).toEqual(await buildOverview(tern));
     expect(compactOverview(expanded)).toEqual(answer);
     // No field a screen can work out travels: no net cost, value per dollar or hours ratio per row.
-    expect(Object.keys(res.body.upgrades).sort()).toEqual(['actualHours', 'done', 'estimatedHours', 'expectedRecoveryCents', 'expensesCents', 'labourCents', 'partsCents', 'recoveredCents', 'title', 'upgradeId', 'valueAddedCents']);
+    expect(Object.keys(res.body.upgrades).sort()).toEqual([
+      'actualHours',
+      'done',
+      'estimatedHours',
+      'expectedRecoveryCents',
+      'expensesCents',
+      'labourCents',
+      'partsCents',
+      'recoveredCents',
+      'title',
+      'upgradeId',
+      'valueAddedCents',
+    ]);
     expect(res.body.totals).not.toHaveProperty('netCents');
     const bare = overviewAnswerWithoutMoney.parse(res.body);
     expect(JSON.stringify(bare)).not.toMatch(/Cents|valuePer|budget|labourRate|cpi|spi/i);

@@ -12,19 +12,54 @@ let owner: Awaited<ReturnType<typeof signInAs>>;
 let seq = 0;
 const makeBuild = async (fields: Partial<Build> = {}) => {
   seq += 1;
-  const b = await Build.create({ slug: `forecast-${seq}`, name: `Forecast check ${seq}`, year: 2020, make: 'Halvorsen', model: 'Tern', vin: null, mileage: null, campaign: null, summary: null, budgetCents: 1_000_000, labourRateCents: 10_000, startDate: '2026-01-05', ...fields } as never);
+  const b = await Build.create({
+    slug: `forecast-${seq}`,
+    name: `Forecast check ${seq}`,
+    year: 2020,
+    make: 'Halvorsen',
+    model: 'Tern',
+    vin: null,
+    mileage: null,
+    campaign: null,
+    summary: null,
+    budgetCents: 1_000_000,
+    labourRateCents: 10_000,
+    startDate: '2026-01-05',
+    ...fields,
+  } as never);
   return b.reload(); // the version and defaults as the database holds them
 };
 const upgrade = (buildId: number, f: Partial<Upgrade> & { title: string }) =>
-  Upgrade.create({ buildId, area: 'front', replaces: null, becomes: null, episodeId: null, episodePosition: null, notes: null, tireFrom: null, tireTo: null, installedOn: null, ...f } as never);
-async function part(buildId: number, upgradeId: number, cents: number, state: string, dates: { ordered?: string; received?: string } = {}) {
+  Upgrade.create({
+    buildId,
+    area: 'front',
+    replaces: null,
+    becomes: null,
+    episodeId: null,
+    episodePosition: null,
+    notes: null,
+    tireFrom: null,
+    tireTo: null,
+    installedOn: null,
+    ...f,
+  } as never);
+async function part(
+  buildId: number,
+  upgradeId: number,
+  cents: number,
+  state: string,
+  dates: { ordered?: string; received?: string } = {},
+) {
   await sequelize.query(
     `INSERT INTO parts (build_id, upgrade_id, part_number, description, quantity, unit_cost_cents, state, ordered_on, received_on) VALUES ($1,$2,'TN-7','Kit',1,$3,$4,$5,$6)`,
     { bind: [buildId, upgradeId, cents, state, dates.ordered ?? null, dates.received ?? null] },
   );
 }
 const labour = (buildId: number, upgradeId: number, workedOn: string, hours: number) =>
-  sequelize.query(`INSERT INTO labour_entries (build_id, upgrade_id, person_name, worked_on, hours) VALUES ($1,$2,'Bay tech',$3,$4)`, { bind: [buildId, upgradeId, workedOn, hours] });
+  sequelize.query(
+    `INSERT INTO labour_entries (build_id, upgrade_id, person_name, worked_on, hours) VALUES ($1,$2,'Bay tech',$3,$4)`,
+    { bind: [buildId, upgradeId, workedOn, hours] },
+  );
 
 beforeAll(async () => {
   owner = await signInAs('owner');
@@ -38,7 +73,14 @@ describe('the worked check of issue 12, through the API', () => {
   // B: 10 h, $3,000 received not fitted. C: 5 h, $500 not ordered. BAC $7,000, reserve $3,000.
   it('gives the same $7,000 headline at fitting and at receipt; only AC and the index figures move', async () => {
     const b = await makeBuild();
-    const a = await upgrade(b.id, { title: 'A', estimatedHours: 10, installState: 'installed', installSegment: 'shot', demoSegment: 'shot', installedOn: '2026-02-10' });
+    const a = await upgrade(b.id, {
+      title: 'A',
+      estimatedHours: 10,
+      installState: 'installed',
+      installSegment: 'shot',
+      demoSegment: 'shot',
+      installedOn: '2026-02-10',
+    });
     const bu = await upgrade(b.id, { title: 'B', estimatedHours: 10 });
     const c = await upgrade(b.id, { title: 'C', estimatedHours: 5 });
     await part(b.id, a.id, 100_000, 'fitted', { ordered: '2026-01-10', received: '2026-01-20' });
@@ -48,7 +90,13 @@ describe('the worked check of issue 12, through the API', () => {
     const url = `/api/builds/${b.id}/overview`;
 
     const fit = expandOverview(overviewAnswer.parse((await owner.get(url)).body));
-    expect(fit.headline).toMatchObject({ bacCents: 700_000, reserveCents: 300_000, actualCents: 200_000, forecastCents: 700_000, costRecognition: 'fitting' });
+    expect(fit.headline).toMatchObject({
+      bacCents: 700_000,
+      reserveCents: 300_000,
+      actualCents: 200_000,
+      forecastCents: 700_000,
+      costRecognition: 'fitting',
+    });
     expect(fit.earnedValue).toMatchObject({ bac: 700_000, ev: 200_000, ac: 200_000, cpi: 1 });
     expect(fit.earnedValue.eacCpi).toBeCloseTo(700_000, 6);
 
@@ -60,7 +108,13 @@ describe('the worked check of issue 12, through the API', () => {
     expect(rec.earnedValue.cpi).toBe(0.4);
     expect(rec.earnedValue.eacCpi).toBeCloseTo(1_750_000, 6); // BAC / CPI = 7,000 / 0.4 = 17,500
     // The cash view does not depend on the setting and sums to the roll-up to the cent.
-    for (const o of [fit, rec]) expect(o.headline.cash).toEqual({ paidCents: 500_000, committedCents: 0, notOrderedCents: 50_000, netCents: 550_000 });
+    for (const o of [fit, rec])
+      expect(o.headline.cash).toEqual({
+        paidCents: 500_000,
+        committedCents: 0,
+        notOrderedCents: 50_000,
+        netCents: 550_000,
+      });
   });
 
   it('refuses a cost recognition that is not one of the two, and a producer setting it', async () => {
@@ -69,7 +123,9 @@ describe('the worked check of issue 12, through the API', () => {
     expect(bad.status).toBe(400);
     expect(bad.body.error.fields.map((f: { path: string }) => f.path)).toContain('costRecognition');
     const producer = await signInAs('producer');
-    expect((await producer.patch(`/api/builds/${b.id}`).send({ version: b.version, costRecognition: 'receipt' })).status).toBe(403);
+    expect(
+      (await producer.patch(`/api/builds/${b.id}`).send({ version: b.version, costRecognition: 'receipt' })).status,
+    ).toBe(403);
     expect((await Build.findByPk(b.id))!.costRecognition).toBe('fitting');
   });
 });
@@ -92,7 +148,9 @@ describe('the demo build', () => {
     const c = o.headline.cash;
     expect(c.paidCents + c.committedCents + c.notOrderedCents).toBe(o.headline.netCents);
     const p = o.headline.pending;
-    expect(o.headline.actualCents + p.receivedNotFittedCents + p.committedCents + p.notOrderedCents + p.laterDatedCents).toBe(o.headline.netCents);
+    expect(
+      o.headline.actualCents + p.receivedNotFittedCents + p.committedCents + p.notOrderedCents + p.laterDatedCents,
+    ).toBe(o.headline.netCents);
     expect(o.earnedValue.ac).toBe(o.headline.actualCents);
     expect(o.burndown.at(-1)!.planned).toBe(o.headline.reserveCents);
   });

@@ -16,14 +16,64 @@ let upgradeId: number;
 let as: Awaited<ReturnType<typeof agentsByRole>>;
 const parts = (s = '') => `/api/builds/${tern}/parts${s}`;
 const removed = (s = '') => `/api/builds/${tern}/removed-parts${s}`;
-const newPart = (over: Record<string, unknown> = {}) => ({ upgradeId, partNumber: 'HT-TEST-1', description: 'Test part', quantity: 2, unitCostCents: 1250, retailPriceCents: 2500, supplier: 'Northgate OEM Supply', ...over });
+const newPart = (over: Record<string, unknown> = {}) => ({
+  upgradeId,
+  partNumber: 'HT-TEST-1',
+  description: 'Test part',
+  quantity: 2,
+  unitCostCents: 1250,
+  retailPriceCents: 2500,
+  supplier: 'Northgate OEM Supply',
+  ...over,
+});
 
 beforeAll(async () => {
   tern = (await Build.findOne({ where: { slug: 'project-tern' } }))!.id;
   upgradeId = (await Upgrade.findOne({ where: { buildId: tern, title: 'Power liftgate' } }))!.id;
-  other = (await Build.create({ slug: 'parts-other', name: 'Other', year: 2020, make: 'Halvorsen', model: 'Skua', vin: null, mileage: null, budgetCents: null, labourRateCents: null, campaign: null, summary: null })).id;
-  otherUpgrade = (await Upgrade.create({ buildId: other, title: 'Other', area: 'front', replaces: null, becomes: null, installedOn: null, episodeId: null, episodePosition: null, notes: null, tireFrom: null, tireTo: null })).id;
-  otherPart = (await Part.create({ buildId: other, upgradeId: otherUpgrade, partNumber: 'HT-O', description: 'Other part', retailPriceCents: null, supplier: null, productUrl: null, expectedArrival: null, orderedOn: null, receivedOn: null })).id;
+  other = (
+    await Build.create({
+      slug: 'parts-other',
+      name: 'Other',
+      year: 2020,
+      make: 'Halvorsen',
+      model: 'Skua',
+      vin: null,
+      mileage: null,
+      budgetCents: null,
+      labourRateCents: null,
+      campaign: null,
+      summary: null,
+    })
+  ).id;
+  otherUpgrade = (
+    await Upgrade.create({
+      buildId: other,
+      title: 'Other',
+      area: 'front',
+      replaces: null,
+      becomes: null,
+      installedOn: null,
+      episodeId: null,
+      episodePosition: null,
+      notes: null,
+      tireFrom: null,
+      tireTo: null,
+    })
+  ).id;
+  otherPart = (
+    await Part.create({
+      buildId: other,
+      upgradeId: otherUpgrade,
+      partNumber: 'HT-O',
+      description: 'Other part',
+      retailPriceCents: null,
+      supplier: null,
+      productUrl: null,
+      expectedArrival: null,
+      orderedOn: null,
+      receivedOn: null,
+    })
+  ).id;
   as = await agentsByRole();
 });
 
@@ -40,7 +90,11 @@ describe('GET /parts', () => {
     const back = await as.owner.get(parts('?state=backordered&pageSize=2'));
     expect(back.body.parts).toHaveLength(2);
     expect(back.body.total).toBeGreaterThanOrEqual(4);
-    expect(back.body.parts.every((p: { state: string; expectedArrival: string }) => p.state === 'backordered' && p.expectedArrival)).toBe(true);
+    expect(
+      back.body.parts.every(
+        (p: { state: string; expectedArrival: string }) => p.state === 'backordered' && p.expectedArrival,
+      ),
+    ).toBe(true);
     const inst = await as.installer.get(parts('?pageSize=500'));
     expect(inst.body.parts.some((p: object) => 'unitCostCents' in p || 'retailPriceCents' in p)).toBe(false);
     const mkt = await as.marketing.get(parts('?pageSize=500'));
@@ -58,11 +112,18 @@ describe('POST /parts', () => {
     const before = await counts('parts', 'activities');
     const res = await as.producer.post(parts()).send(newPart());
     expect(res.status).toBe(201);
-    expect(res.body.part).toMatchObject({ partNumber: 'HT-TEST-1', quantity: 2, state: 'to_order', condition: 'new', version: 0 });
+    expect(res.body.part).toMatchObject({
+      partNumber: 'HT-TEST-1',
+      quantity: 2,
+      state: 'to_order',
+      condition: 'new',
+      version: 0,
+    });
     expect(await counts('parts', 'activities')).toEqual({ parts: before.parts + 1, activities: before.activities + 1 });
   });
   it('installer and marketing get 403', async () => {
-    for (const r of ['installer', 'marketing'] as const) expect((await as[r].post(parts()).send(newPart())).status).toBe(403);
+    for (const r of ['installer', 'marketing'] as const)
+      expect((await as[r].post(parts()).send(newPart())).status).toBe(403);
   });
   it.each([
     ['quantity', { quantity: 0 }],
@@ -102,14 +163,21 @@ describe('PATCH /parts/:partId', () => {
     expect(ok.body.part.state).toBe('received');
     expect(ok.body.part.receivedOn).toMatch(/^\d{4}-\d{2}-\d{2}$/);
     expect(ok.body.part).not.toHaveProperty('unitCostCents');
-    for (const body of [{ unitCostCents: 1 }, { description: 'x' }, { state: 'returned' }, { productUrl: 'https://shop.cedar-ridge.test/x' }]) {
+    for (const body of [
+      { unitCostCents: 1 },
+      { description: 'x' },
+      { state: 'returned' },
+      { productUrl: 'https://shop.cedar-ridge.test/x' },
+    ]) {
       expect((await as.installer.patch(parts(`/${p.id}`)).send(body)).status).toBe(403);
     }
     expect((await Part.findByPk(p.id))!.unitCostCents).toBe(1250);
   });
   it('marketing may set only the product page', async () => {
     const p = (await as.producer.post(parts()).send(newPart())).body.part;
-    const ok = await as.marketing.patch(parts(`/${p.id}`)).send({ productUrl: 'https://shop.cedar-ridge.test/parts/ht-test-1' });
+    const ok = await as.marketing
+      .patch(parts(`/${p.id}`))
+      .send({ productUrl: 'https://shop.cedar-ridge.test/parts/ht-test-1' });
     expect(ok.status).toBe(200);
     expect(ok.body.part.productUrl).toBe('https://shop.cedar-ridge.test/parts/ht-test-1');
     expect(ok.body.part.retailPriceCents).toBe(2500);
@@ -119,7 +187,9 @@ describe('PATCH /parts/:partId', () => {
   });
   it('producer changes any field; a stale version answers 409 with the current part', async () => {
     const p = (await as.producer.post(parts()).send(newPart())).body.part;
-    const ok = await as.producer.patch(parts(`/${p.id}`)).send({ version: p.version, unitCostCents: 999, state: 'backordered', expectedArrival: '2026-12-20' });
+    const ok = await as.producer
+      .patch(parts(`/${p.id}`))
+      .send({ version: p.version, unitCostCents: 999, state: 'backordered', expectedArrival: '2026-12-20' });
     expect(ok.status).toBe(200);
     const res = await as.producer.patch(parts(`/${p.id}`)).send({ version: p.version, unitCostCents: 1 });
     expect(res.status).toBe(409);
@@ -157,13 +227,20 @@ describe('removed parts', () => {
   });
   it('producer records a removed part and marks it sold', async () => {
     const before = await counts('removed_parts', 'activities');
-    const res = await as.producer.post(removed()).send({ upgradeId, description: 'Gas struts, spare', disposition: 'for_sale', expectedSaleCents: 3000 });
+    const res = await as.producer
+      .post(removed())
+      .send({ upgradeId, description: 'Gas struts, spare', disposition: 'for_sale', expectedSaleCents: 3000 });
     expect(res.status).toBe(201);
     const id = res.body.removedPart.id;
-    const sold = await as.producer.patch(removed(`/${id}`)).send({ disposition: 'sold', actualSaleCents: 2800, soldOn: '2026-11-30' });
+    const sold = await as.producer
+      .patch(removed(`/${id}`))
+      .send({ disposition: 'sold', actualSaleCents: 2800, soldOn: '2026-11-30' });
     expect(sold.status).toBe(200);
     expect(sold.body.removedPart).toMatchObject({ disposition: 'sold', actualSaleCents: 2800, soldOn: '2026-11-30' });
-    expect(await counts('removed_parts', 'activities')).toEqual({ removed_parts: before.removed_parts + 1, activities: before.activities + 2 });
+    expect(await counts('removed_parts', 'activities')).toEqual({
+      removed_parts: before.removed_parts + 1,
+      activities: before.activities + 2,
+    });
     expect((await as.installer.delete(removed(`/${id}`))).status).toBe(403);
     expect((await as.producer.delete(removed(`/${id}`))).status).toBe(204);
   });
@@ -180,7 +257,15 @@ describe('removed parts', () => {
     expect(await counts('removed_parts', 'activities')).toEqual(before);
   });
   it('another build’s removed part answers 404; an upgrade of another build answers 400', async () => {
-    const r = await RemovedPart.create({ buildId: other, upgradeId: null, description: 'Other', partNumber: null, expectedSaleCents: null, actualSaleCents: null, soldOn: null });
+    const r = await RemovedPart.create({
+      buildId: other,
+      upgradeId: null,
+      description: 'Other',
+      partNumber: null,
+      expectedSaleCents: null,
+      actualSaleCents: null,
+      soldOn: null,
+    });
     expect((await as.producer.patch(removed(`/${r.id}`)).send({ disposition: 'sold' })).status).toBe(404);
     const res = await as.producer.post(removed()).send({ description: 'x', upgradeId: otherUpgrade });
     expect(res.status).toBe(400);

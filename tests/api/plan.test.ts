@@ -13,20 +13,72 @@ let base: string;
 let otherUpgradeId: number;
 let otherEpisodeId: number;
 
-type Ep = { id: number | null; number: number; title: string; state: string; shootDate: string | null; releaseDate: string | null; upgradeIds: number[]; locked?: boolean };
+type Ep = {
+  id: number | null;
+  number: number;
+  title: string;
+  state: string;
+  shootDate: string | null;
+  releaseDate: string | null;
+  upgradeIds: number[];
+  locked?: boolean;
+};
 
 beforeAll(async () => {
   buildId = (await Build.findOne({ where: { slug: 'project-tern' } }))!.id;
   base = `/api/builds/${buildId}/plan`;
-  const other = await Build.create({ slug: 'plan-other', name: 'Other', year: 2020, make: 'Halvorsen', model: 'Skua', vin: null, mileage: null, budgetCents: null, labourRateCents: null, campaign: null, summary: null });
-  otherUpgradeId = (await Upgrade.create({ buildId: other.id, title: 'Not yours', replaces: null, becomes: null, area: 'front', installedOn: null, episodeId: null, episodePosition: null, notes: null, tireFrom: null, tireTo: null })).id;
-  otherEpisodeId = (await Episode.create({ buildId: other.id, number: 1, title: 'Elsewhere', summary: null, shootDate: null, releaseDate: null, videoUrl: null, runtimeSeconds: null, publishedAt: null })).id;
+  const other = await Build.create({
+    slug: 'plan-other',
+    name: 'Other',
+    year: 2020,
+    make: 'Halvorsen',
+    model: 'Skua',
+    vin: null,
+    mileage: null,
+    budgetCents: null,
+    labourRateCents: null,
+    campaign: null,
+    summary: null,
+  });
+  otherUpgradeId = (
+    await Upgrade.create({
+      buildId: other.id,
+      title: 'Not yours',
+      replaces: null,
+      becomes: null,
+      area: 'front',
+      installedOn: null,
+      episodeId: null,
+      episodePosition: null,
+      notes: null,
+      tireFrom: null,
+      tireTo: null,
+    })
+  ).id;
+  otherEpisodeId = (
+    await Episode.create({
+      buildId: other.id,
+      number: 1,
+      title: 'Elsewhere',
+      summary: null,
+      shootDate: null,
+      releaseDate: null,
+      videoUrl: null,
+      runtimeSeconds: null,
+      publishedAt: null,
+    })
+  ).id;
 });
 
 const upgradeTitles = async () => new Map((await Upgrade.findAll({ where: { buildId } })).map((u) => [u.id, u]));
 /** A plan body made from the plan version `basedOn`, accepting the listed date changes of scheduled episodes. */
 const asPlan = (eps: Ep[], basedOn: number, acceptDateChanges?: number[]) => ({
-  episodes: eps.map((e) => ({ ...(e.id ? { id: e.id } : { title: e.title }), shootDate: e.shootDate, releaseDate: e.releaseDate, upgradeIds: [...e.upgradeIds] })),
+  episodes: eps.map((e) => ({
+    ...(e.id ? { id: e.id } : { title: e.title }),
+    shootDate: e.shootDate,
+    releaseDate: e.releaseDate,
+    upgradeIds: [...e.upgradeIds],
+  })),
   basedOn,
   ...(acceptDateChanges ? { acceptDateChanges } : {}),
 });
@@ -65,23 +117,37 @@ describe('the episode plan', () => {
     expect(current.episodes.length).toBe(13);
     const ups = await upgradeTitles();
     const where = new Map<number, { n: number; p: number; shoot: string }>();
-    for (const e of proposal.episodes as Ep[]) e.upgradeIds.forEach((id, p) => where.set(id, { n: e.number, p, shoot: e.shootDate! }));
+    for (const e of proposal.episodes as Ep[])
+      e.upgradeIds.forEach((id, p) => where.set(id, { n: e.number, p, shoot: e.shootDate! }));
     // Every upgrade not done outside the series is placed, once.
     expect(proposal.unplaced).toEqual([]);
-    for (const [id, u] of ups) if (u.episodeId || u.installState !== 'installed') expect(where.has(id), u.title).toBe(true);
+    for (const [id, u] of ups)
+      if (u.episodeId || u.installState !== 'installed') expect(where.has(id), u.title).toBe(true);
     // Prerequisites first (earlier episode, or earlier in the same one).
-    const edges = await sequelize.query<{ upgrade_id: number; prerequisite_id: number }>('SELECT upgrade_id, prerequisite_id FROM upgrade_prerequisites WHERE build_id = :b', { replacements: { b: buildId }, type: 'SELECT' as never });
+    const edges = await sequelize.query<{ upgrade_id: number; prerequisite_id: number }>(
+      'SELECT upgrade_id, prerequisite_id FROM upgrade_prerequisites WHERE build_id = :b',
+      { replacements: { b: buildId }, type: 'SELECT' as never },
+    );
     for (const e of edges) {
       const a = where.get(e.upgrade_id)!;
       const b = where.get(e.prerequisite_id);
       if (!b) continue;
-      expect(b.n < a.n || (b.n === a.n && b.p < a.p), `${ups.get(e.prerequisite_id)!.title} before ${ups.get(e.upgrade_id)!.title}`).toBe(true);
+      expect(
+        b.n < a.n || (b.n === a.n && b.p < a.p),
+        `${ups.get(e.prerequisite_id)!.title} before ${ups.get(e.upgrade_id)!.title}`,
+      ).toBe(true);
     }
     // Filmed episodes are kept as they are.
     const filmed = (current.episodes as Ep[]).filter((e) => ['shot', 'in_edit', 'live'].includes(e.state));
-    for (const f of filmed) expect((proposal.episodes as Ep[]).find((e) => e.id === f.id)!.upgradeIds).toEqual(f.upgradeIds);
+    for (const f of filmed)
+      expect((proposal.episodes as Ep[]).find((e) => e.id === f.id)!.upgradeIds).toEqual(f.upgradeIds);
     // The two unplanned demo upgrades are added.
-    expect(differences.filter((d: { kind: string }) => d.kind === 'added').map((d: { title: string }) => d.title).sort()).toEqual(['Heated front seats', 'Rear parking sensors']);
+    expect(
+      differences
+        .filter((d: { kind: string }) => d.kind === 'added')
+        .map((d: { title: string }) => d.title)
+        .sort(),
+    ).toEqual(['Heated front seats', 'Rear parking sensors']);
     // Proposing writes nothing.
     expect(await counts('episodes', 'activities')).toEqual(before);
   });
@@ -101,13 +167,28 @@ describe('the episode plan', () => {
   it('accepting a proposal applies it in one go; the result checks clean and is recorded', async () => {
     const producer = await signInAs('producer');
     const { proposal, planVersion, summary } = (await producer.post(`${base}/proposal`).send({})).body;
-    const res = await producer.put(base).send(asPlan(proposal.episodes, planVersion, summary.dateChanges.map((d: { id: number }) => d.id)));
+    const res = await producer.put(base).send(
+      asPlan(
+        proposal.episodes,
+        planVersion,
+        summary.dateChanges.map((d: { id: number }) => d.id),
+      ),
+    );
     expect(res.status).toBe(200);
     expect(res.body.violations).toEqual([]);
     const got = res.body.episodes as Ep[];
     expect(got.map((e) => e.number)).toEqual(got.map((_, i) => i + 1));
-    expect(got.filter((e) => e.upgradeIds.length).map((e) => e.upgradeIds)).toEqual((proposal.episodes as Ep[]).filter((e) => e.upgradeIds.length).map((e) => e.upgradeIds));
-    expect((await sequelize.query(`SELECT count(*)::int AS n FROM activities WHERE entity = 'plan' AND build_id = ${buildId}`, { type: 'SELECT' as never }))[0]).toEqual({ n: 1 });
+    expect(got.filter((e) => e.upgradeIds.length).map((e) => e.upgradeIds)).toEqual(
+      (proposal.episodes as Ep[]).filter((e) => e.upgradeIds.length).map((e) => e.upgradeIds),
+    );
+    expect(
+      (
+        await sequelize.query(
+          `SELECT count(*)::int AS n FROM activities WHERE entity = 'plan' AND build_id = ${buildId}`,
+          { type: 'SELECT' as never },
+        )
+      )[0],
+    ).toEqual({ n: 1 });
     // A second proposal on the applied plan changes nothing.
     const again = (await producer.post(`${base}/proposal`).send({})).body;
     expect(again.differences).toEqual([]);
@@ -139,7 +220,12 @@ describe('the episode plan', () => {
     const overview = (await producer.get(base)).body;
     const eps = overview.episodes as Ep[];
     const before = await counts('episodes', 'activities');
-    const assignment = JSON.stringify(await sequelize.query(`SELECT id, episode_id, episode_position FROM upgrades WHERE build_id = ${buildId} ORDER BY id`, { type: 'SELECT' as never }));
+    const assignment = JSON.stringify(
+      await sequelize.query(
+        `SELECT id, episode_id, episode_position FROM upgrades WHERE build_id = ${buildId} ORDER BY id`,
+        { type: 'SELECT' as never },
+      ),
+    );
     const draftIdx = eps.findIndex((e) => e.state === 'draft');
     const mk = (mutate: (p: ReturnType<typeof asPlan>) => void) => {
       const p = asPlan(eps, overview.planVersion);
@@ -147,25 +233,50 @@ describe('the episode plan', () => {
       return p;
     };
     const cases: [ReturnType<typeof asPlan>, string][] = [
-      [mk((p) => p.episodes[draftIdx].upgradeIds.push(otherUpgradeId)), `episodes.${draftIdx}.upgradeIds.${eps[draftIdx].upgradeIds.length}`],
-      [mk((p) => p.episodes[draftIdx].upgradeIds.push(99_999_999)), `episodes.${draftIdx}.upgradeIds.${eps[draftIdx].upgradeIds.length}`],
-      [mk((p) => (p.episodes[draftIdx] = { ...p.episodes[draftIdx], id: otherEpisodeId } as never)), `episodes.${draftIdx}.id`],
-      [mk((p) => p.episodes[draftIdx].upgradeIds.push(eps[0].upgradeIds[0])), `episodes.${draftIdx}.upgradeIds.${eps[draftIdx].upgradeIds.length}`],
-      [mk((p) => Object.assign(p.episodes[draftIdx], { shootDate: '2027-03-10', releaseDate: '2027-03-01' })), `episodes.${draftIdx}.releaseDate`],
+      [
+        mk((p) => p.episodes[draftIdx].upgradeIds.push(otherUpgradeId)),
+        `episodes.${draftIdx}.upgradeIds.${eps[draftIdx].upgradeIds.length}`,
+      ],
+      [
+        mk((p) => p.episodes[draftIdx].upgradeIds.push(99_999_999)),
+        `episodes.${draftIdx}.upgradeIds.${eps[draftIdx].upgradeIds.length}`,
+      ],
+      [
+        mk((p) => (p.episodes[draftIdx] = { ...p.episodes[draftIdx], id: otherEpisodeId } as never)),
+        `episodes.${draftIdx}.id`,
+      ],
+      [
+        mk((p) => p.episodes[draftIdx].upgradeIds.push(eps[0].upgradeIds[0])),
+        `episodes.${draftIdx}.upgradeIds.${eps[draftIdx].upgradeIds.length}`,
+      ],
+      [
+        mk((p) => Object.assign(p.episodes[draftIdx], { shootDate: '2027-03-10', releaseDate: '2027-03-01' })),
+        `episodes.${draftIdx}.releaseDate`,
+      ],
       [mk((p) => p.episodes.push({ upgradeIds: [] } as never)), `episodes.${eps.length}.title`],
       [mk((p) => ((p.episodes[0] as Record<string, unknown>).colour = 'red')), `episodes.0`],
     ];
     for (const [body, field] of cases) {
       const res = await producer.put(base).send(body);
       expect(res.status, field).toBe(400);
-      expect(res.body.error.fields.map((f: { path: string }) => f.path), JSON.stringify(res.body)).toContain(field);
+      expect(
+        res.body.error.fields.map((f: { path: string }) => f.path),
+        JSON.stringify(res.body),
+      ).toContain(field);
     }
     // Moving an upgrade out of a live episode is refused.
     const locked = await producer.put(base).send(mk((p) => (p.episodes[0].upgradeIds = [])));
     expect(locked.status).toBe(409);
     expect(locked.body.error.code).toBe('episode_locked');
     expect(await counts('episodes', 'activities')).toEqual(before);
-    expect(JSON.stringify(await sequelize.query(`SELECT id, episode_id, episode_position FROM upgrades WHERE build_id = ${buildId} ORDER BY id`, { type: 'SELECT' as never }))).toBe(assignment);
+    expect(
+      JSON.stringify(
+        await sequelize.query(
+          `SELECT id, episode_id, episode_position FROM upgrades WHERE build_id = ${buildId} ORDER BY id`,
+          { type: 'SELECT' as never },
+        ),
+      ),
+    ).toBe(assignment);
   });
 
   it('a prerequisite cycle answers 422 naming it in order, for a proposal and for a plan, and writes nothing', async () => {
@@ -174,7 +285,9 @@ describe('the episode plan', () => {
     const id = (title: string) => [...ups.values()].find((u) => u.title === title)!.id;
     // The database allows it (the backlog API refuses it); the planner must still answer sensibly.
     const link = (u: string, p: string) =>
-      sequelize.query('INSERT INTO upgrade_prerequisites (build_id, upgrade_id, prerequisite_id) VALUES (:b, :u, :p)', { replacements: { b: buildId, u: id(u), p: id(p) } });
+      sequelize.query('INSERT INTO upgrade_prerequisites (build_id, upgrade_id, prerequisite_id) VALUES (:b, :u, :p)', {
+        replacements: { b: buildId, u: id(u), p: id(p) },
+      });
     await link('Remote start', '400 W cargo power outlet');
     await link('400 W cargo power outlet', 'Front skid plate');
     await link('Front skid plate', 'Remote start');
@@ -193,7 +306,9 @@ describe('the episode plan', () => {
     expect(put.status).toBe(422);
     expect(put.body.error.cycle.length).toBe(3);
     expect(await counts('episodes', 'activities')).toEqual(before);
-    await sequelize.query('DELETE FROM upgrade_prerequisites WHERE build_id = :b AND upgrade_id = :u', { replacements: { b: buildId, u: id('Front skid plate') } });
+    await sequelize.query('DELETE FROM upgrade_prerequisites WHERE build_id = :b AND upgrade_id = :u', {
+      replacements: { b: buildId, u: id('Front skid plate') },
+    });
   });
 
   it("another build's plan routes answer 404 for an unknown build", async () => {

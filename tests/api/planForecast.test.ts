@@ -7,7 +7,13 @@ let buildId: number;
 let base: string;
 // "Today" in the demo build's own zone (America/Denver), read with the runtime's Intl, not our date module:
 // between midnight UTC and midnight in Denver the two calendars differ by a day.
-const todayIso = () => new Intl.DateTimeFormat('en-CA', { timeZone: 'America/Denver', year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date());
+const todayIso = () =>
+  new Intl.DateTimeFormat('en-CA', {
+    timeZone: 'America/Denver',
+    year: 'numeric',
+    month: '2-digit',
+    day: '2-digit',
+  }).format(new Date());
 const later = (a: string, b: string) => (a > b ? a : b);
 
 beforeAll(async () => {
@@ -27,13 +33,20 @@ describe('the forecast finish', () => {
     const due = later(todayIso(), '2026-12-29');
     expect(cp.earliestFinish > due).toBe(true);
     // The planner names the late part that drives the date and the chain through it.
-    expect(cp.drivingPart).toMatchObject({ upgradeTitle: 'Surround-view camera', partNumber: 'HT-CAM-7100', expectedArrival: '2026-12-29' });
+    expect(cp.drivingPart).toMatchObject({
+      upgradeTitle: 'Surround-view camera',
+      partNumber: 'HT-CAM-7100',
+      expectedArrival: '2026-12-29',
+    });
     expect(cp.critical.map((c: { title: string }) => c.title)).toContain('Surround-view camera');
   });
 
   it('counts the shop hours per week: with every part in, all remaining hours must still be worked', async () => {
     const producer = await signInAs('producer');
-    await sequelize.query("UPDATE parts SET state = 'received', expected_arrival = NULL WHERE state NOT IN ('received','fitted','returned') AND upgrade_id IN (SELECT id FROM upgrades WHERE build_id = :b)", { replacements: { b: buildId } });
+    await sequelize.query(
+      "UPDATE parts SET state = 'received', expected_arrival = NULL WHERE state NOT IN ('received','fitted','returned') AND upgrade_id IN (SELECT id FROM upgrades WHERE build_id = :b)",
+      { replacements: { b: buildId } },
+    );
     const [{ hours }] = await sequelize.query<{ hours: number }>(
       "SELECT coalesce(sum(estimated_hours), 0)::float AS hours FROM upgrades WHERE build_id = :b AND install_state <> 'installed'",
       { replacements: { b: buildId }, type: 'SELECT' as never },

@@ -49,10 +49,15 @@ describe('the public build answer', () => {
   it('drops the copy when an upgrade of the build changes', async () => {
     const before = await cachedAnswer();
     const u = (await Upgrade.findOne({ where: { buildId: tern.id }, order: [['id', 'ASC']] }))!;
-    await sequelize.query('UPDATE upgrades SET title = :t WHERE id = :id', { replacements: { t: 'Renamed for the cache test', id: u.id } });
-    const titles = (body: { areas: { upgrades: { title: string }[] }[] }) => body.areas.flatMap((a) => a.upgrades.map((x) => x.title));
+    await sequelize.query('UPDATE upgrades SET title = :t WHERE id = :id', {
+      replacements: { t: 'Renamed for the cache test', id: u.id },
+    });
+    const titles = (body: { areas: { upgrades: { title: string }[] }[] }) =>
+      body.areas.flatMap((a) => a.upgrades.map((x) => x.title));
     expect(titles(before.body)).not.toContain('Renamed for the cache test');
-    expect(await until(async () => titles((await anonymous().get(URL_)).body).includes('Renamed for the cache test'))).toBe(true);
+    expect(
+      await until(async () => titles((await anonymous().get(URL_)).body).includes('Renamed for the cache test')),
+    ).toBe(true);
     const after = await cachedAnswer();
     expect(after.headers.etag).not.toBe(before.headers.etag);
     // The old ETag no longer matches: the client gets the new page.
@@ -60,11 +65,32 @@ describe('the public build answer', () => {
   });
 
   it('drops the copy when a vote is confirmed', async () => {
-    const r = await ViewerRequest.create({ buildId: tern.id, title: 'Cache test request', details: null, confirmedAt: new Date() });
-    const votesOf = (body: { requests: { id: number; votes: number }[] }) => body.requests.find((x) => x.id === r.id)?.votes ?? 0;
-    expect(await until(async () => votesOf((await anonymous().get(URL_)).body) === 0 && !!(await anonymous().get(URL_)).body.requests.find((x: { id: number }) => x.id === r.id))).toBe(true);
+    const r = await ViewerRequest.create({
+      buildId: tern.id,
+      title: 'Cache test request',
+      details: null,
+      confirmedAt: new Date(),
+    });
+    const votesOf = (body: { requests: { id: number; votes: number }[] }) =>
+      body.requests.find((x) => x.id === r.id)?.votes ?? 0;
+    expect(
+      await until(
+        async () =>
+          votesOf((await anonymous().get(URL_)).body) === 0 &&
+          !!(await anonymous().get(URL_)).body.requests.find((x: { id: number }) => x.id === r.id),
+      ),
+    ).toBe(true);
     await cachedAnswer();
-    await ViewerVote.create({ requestId: r.id, emailHash: emailHash('cache-voter@viewers.test'), emailSealed: null, email: 'cache-voter@viewers.test', name: null, confirmTokenHash: newToken().hash, expiresAt: new Date(), confirmedAt: new Date() });
+    await ViewerVote.create({
+      requestId: r.id,
+      emailHash: emailHash('cache-voter@viewers.test'),
+      emailSealed: null,
+      email: 'cache-voter@viewers.test',
+      name: null,
+      confirmTokenHash: newToken().hash,
+      expiresAt: new Date(),
+      confirmedAt: new Date(),
+    });
     expect(await until(async () => votesOf((await anonymous().get(URL_)).body) === 1)).toBe(true);
   });
 

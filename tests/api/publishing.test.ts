@@ -30,13 +30,38 @@ beforeAll(async () => {
   tern = (await Build.findOne({ where: { slug: 'project-tern' } }))!;
   ep3 = (await Episode.findOne({ where: { buildId: tern.id, number: 3 } }))!;
   ep8 = (await Episode.findOne({ where: { buildId: tern.id, number: 8 } }))!;
-  other = await Build.create({ slug: 'publishing-other', name: 'Other', year: 2020, make: 'Halvorsen', model: 'Skua', vin: null, mileage: null, budgetCents: 1, labourRateCents: 1, campaign: null, summary: null });
-  otherEp = await Episode.create({ buildId: other.id, number: 1, title: 'Elsewhere', summary: null, shootDate: null, releaseDate: null, videoUrl: null, runtimeSeconds: 600, publishedAt: null });
+  other = await Build.create({
+    slug: 'publishing-other',
+    name: 'Other',
+    year: 2020,
+    make: 'Halvorsen',
+    model: 'Skua',
+    vin: null,
+    mileage: null,
+    budgetCents: 1,
+    labourRateCents: 1,
+    campaign: null,
+    summary: null,
+  });
+  otherEp = await Episode.create({
+    buildId: other.id,
+    number: 1,
+    title: 'Elsewhere',
+    summary: null,
+    shootDate: null,
+    releaseDate: null,
+    videoUrl: null,
+    runtimeSeconds: 600,
+    publishedAt: null,
+  });
 });
 
 /** Every upgrade of the episode installed with both segments shot: only then may it go live. */
 async function finishEpisode(ep: Episode) {
-  await Upgrade.update({ installState: 'installed', installSegment: 'shot', demoSegment: 'shot' }, { where: { episodeId: ep.id } });
+  await Upgrade.update(
+    { installState: 'installed', installSegment: 'shot', demoSegment: 'shot' },
+    { where: { episodeId: ep.id } },
+  );
 }
 
 const GOOD = [
@@ -58,7 +83,9 @@ describe('chapters', () => {
     const m = await signInAs('marketing');
     const ep = (await Episode.findOne({ where: { buildId: tern.id, number: 2 } }))!;
     const bumper = (await Upgrade.findOne({ where: { buildId: tern.id, title: 'Roof rails' } }))!;
-    const res = await m.put(epUrl(ep, 'chapters')).send({ chapters: GOOD.map((c, i) => ({ ...c, upgradeId: i === 1 ? bumper.id : null })) });
+    const res = await m
+      .put(epUrl(ep, 'chapters'))
+      .send({ chapters: GOOD.map((c, i) => ({ ...c, upgradeId: i === 1 ? bumper.id : null })) });
     expect(res.status).toBe(200);
     expect(res.body.chapters).toHaveLength(3);
     expect(res.body.chapters[1]).toMatchObject({ startSeconds: 75, title: 'Cover off', upgradeId: bumper.id });
@@ -70,17 +97,49 @@ describe('chapters', () => {
   });
 
   const bad: [string, unknown[], number | null, string, RegExp][] = [
-    ['out of order', [GOOD[0], { startSeconds: 300, title: 'B' }, { startSeconds: 200, title: 'C' }], null, 'chapters.2.startSeconds', /row 3: Starts at 3:20, which is not after the chapter before it \(5:00\)/],
-    ['past the runtime', [GOOD[0], { startSeconds: 1300, title: 'Too late' }], null, 'chapters.1.startSeconds', /row 2: Starts at 21:40, at or past the end of the video \(20:10\)/],
-    ['not starting at 0:00', [{ startSeconds: 5, title: 'Intro' }], null, 'chapters.0.startSeconds', /row 1: The first chapter must start at 0:00, not 0:05/],
-    ['past a new runtime given with it', [GOOD[0], { startSeconds: 700, title: 'X' }], 600, 'chapters.1.startSeconds', /row 2: .*10:00/],
-    ['with an empty title', [{ startSeconds: 0, title: '  ' }], null, 'chapters.0.title', /row 1: A chapter title is required/],
+    [
+      'out of order',
+      [GOOD[0], { startSeconds: 300, title: 'B' }, { startSeconds: 200, title: 'C' }],
+      null,
+      'chapters.2.startSeconds',
+      /row 3: Starts at 3:20, which is not after the chapter before it \(5:00\)/,
+    ],
+    [
+      'past the runtime',
+      [GOOD[0], { startSeconds: 1300, title: 'Too late' }],
+      null,
+      'chapters.1.startSeconds',
+      /row 2: Starts at 21:40, at or past the end of the video \(20:10\)/,
+    ],
+    [
+      'not starting at 0:00',
+      [{ startSeconds: 5, title: 'Intro' }],
+      null,
+      'chapters.0.startSeconds',
+      /row 1: The first chapter must start at 0:00, not 0:05/,
+    ],
+    [
+      'past a new runtime given with it',
+      [GOOD[0], { startSeconds: 700, title: 'X' }],
+      600,
+      'chapters.1.startSeconds',
+      /row 2: .*10:00/,
+    ],
+    [
+      'with an empty title',
+      [{ startSeconds: 0, title: '  ' }],
+      null,
+      'chapters.0.title',
+      /row 1: A chapter title is required/,
+    ],
   ];
   for (const [label, chapters, runtime, path, message] of bad) {
     it(`refuses chapters ${label}, naming the row, and writes nothing`, async () => {
       const m = await signInAs('marketing');
       const before = await counts('episode_chapters', 'activities');
-      const res = await m.put(epUrl(ep3, 'chapters')).send({ chapters, ...(runtime ? { runtimeSeconds: runtime } : {}) });
+      const res = await m
+        .put(epUrl(ep3, 'chapters'))
+        .send({ chapters, ...(runtime ? { runtimeSeconds: runtime } : {}) });
       expect(res.status).toBe(400);
       expect(res.body.error.message).toMatch(message);
       expect(res.body.error.fields.map((f: { path: string }) => f.path)).toContain(path);
@@ -90,9 +149,25 @@ describe('chapters', () => {
   }
 
   it("refuses a chapter naming another build's upgrade", async () => {
-    const foreign = await Upgrade.create({ buildId: other.id, title: 'Foreign', area: 'front', replaces: null, becomes: null, installedOn: null, episodeId: null, episodePosition: null, notes: null, tireFrom: null, tireTo: null });
+    const foreign = await Upgrade.create({
+      buildId: other.id,
+      title: 'Foreign',
+      area: 'front',
+      replaces: null,
+      becomes: null,
+      installedOn: null,
+      episodeId: null,
+      episodePosition: null,
+      notes: null,
+      tireFrom: null,
+      tireTo: null,
+    });
     const before = await count('episode_chapters');
-    const res = await (await signInAs('producer')).put(epUrl(ep3, 'chapters')).send({ chapters: [{ startSeconds: 0, title: 'Intro', upgradeId: foreign.id }] });
+    const res = await (
+      await signInAs('producer')
+    )
+      .put(epUrl(ep3, 'chapters'))
+      .send({ chapters: [{ startSeconds: 0, title: 'Intro', upgradeId: foreign.id }] });
     expect(res.status).toBe(400);
     expect(res.body.error.fields[0].path).toBe('chapters.0.upgradeId');
     expect(await count('episode_chapters')).toBe(before);
@@ -116,7 +191,9 @@ describe('show notes and product links', () => {
     expect(text.startsWith(`Episode 3: ${ep3.title}`)).toBe(true);
     expect(text).toContain('Chapters\n0:00 Intro\n1:20 Why the stock cover cannot carry radar');
     expect(text).toContain('18:10 Walkaround and what comes next');
-    expect(text).toContain('https://shop.cedar-ridge.test/parts/ht-bmp-8100?utm_source=youtube&utm_medium=video&utm_campaign=project-tern&utm_content=episode-3');
+    expect(text).toContain(
+      'https://shop.cedar-ridge.test/parts/ht-bmp-8100?utm_source=youtube&utm_medium=video&utm_campaign=project-tern&utm_content=episode-3',
+    );
     expect(text).toContain('Lifting the vehicle (Rear bumper cover with sensor mounts)');
     expect(text).toContain(`${config().publicUrl}/b/project-tern`);
     // The paint has no product page: named as a problem, and listed by link health.
@@ -167,7 +244,9 @@ describe('publishing', () => {
 
   it('refuses to publish with a runtime that leaves chapters past the end', async () => {
     const m = await signInAs('marketing');
-    const res = await m.post(epUrl(ep3, 'publish')).send({ videoUrl: 'https://video.example/tern-ep3', runtimeSeconds: 600 });
+    const res = await m
+      .post(epUrl(ep3, 'publish'))
+      .send({ videoUrl: 'https://video.example/tern-ep3', runtimeSeconds: 600 });
     expect(res.status).toBe(400);
     expect(res.body.error.message).toMatch(/row 4: Starts at 11:30, at or past the end of the video \(10:00\)/);
     expect((await ep3.reload()).runtimeSeconds).toBe(1210);
@@ -176,14 +255,25 @@ describe('publishing', () => {
   it('goes live with the video and date, and tells each viewer who asked, once', async () => {
     const m = await signInAs('marketing');
     await finishEpisode(ep8);
-    const res = await m.post(epUrl(ep8, 'publish')).send({ videoUrl: 'https://video.example/tern-ep8', runtimeSeconds: 1500 });
+    const res = await m
+      .post(epUrl(ep8, 'publish'))
+      .send({ videoUrl: 'https://video.example/tern-ep8', runtimeSeconds: 1500 });
     expect(res.status).toBe(200);
-    expect(res.body.episode).toMatchObject({ state: 'live', videoUrl: 'https://video.example/tern-ep8', runtimeSeconds: 1500 });
+    expect(res.body.episode).toMatchObject({
+      state: 'live',
+      videoUrl: 'https://video.example/tern-ep8',
+      runtimeSeconds: 1500,
+    });
     expect(Date.now() - Date.parse(res.body.episode.publishedAt)).toBeLessThan(60_000);
     expect(await Activity.count({ where: { entity: 'episode', entityId: ep8.id, action: 'publish' } })).toBe(1);
     // The seeded accepted request "Heated steering wheel before winter" (in episode 8) has four voters.
     const live = await MailOutbox.findAll({ where: { kind: 'upgrade_live' } });
-    expect(live.map((l) => l.toAddress).sort()).toEqual(['dana.p@viewers.test', 'ole.k@viewers.test', 'priya.n@viewers.test', 'sam.w@viewers.test']);
+    expect(live.map((l) => l.toAddress).sort()).toEqual([
+      'dana.p@viewers.test',
+      'ole.k@viewers.test',
+      'priya.n@viewers.test',
+      'sam.w@viewers.test',
+    ]);
     // Publishing again (a corrected link) keeps the first date and sends nothing new.
     const first = res.body.episode.publishedAt;
     const again = await m.post(epUrl(ep8, 'publish')).send({ videoUrl: 'https://video.example/tern-ep8-fixed' });
@@ -206,17 +296,35 @@ describe('publishing', () => {
     // dana.p unsubscribed in the test above; Sam's request is accepted into an upgrade of episode 9.
     const ep9 = (await Episode.findOne({ where: { buildId: tern.id, number: 9 } }))!;
     const wheels = (await Upgrade.findOne({ where: { buildId: tern.id, episodeId: ep9.id } }))!;
-    await sequelize.query(`UPDATE viewer_requests SET state = 'accepted', upgrade_id = :u WHERE build_id = :b AND title = 'Cargo management rails in the back'`, { replacements: { u: wheels.id, b: tern.id } });
+    await sequelize.query(
+      `UPDATE viewer_requests SET state = 'accepted', upgrade_id = :u WHERE build_id = :b AND title = 'Cargo management rails in the back'`,
+      { replacements: { u: wheels.id, b: tern.id } },
+    );
     const m = await signInAs('producer');
     await finishEpisode(ep9);
     expect((await m.post(epUrl(ep9, 'publish')).send({ videoUrl: 'https://video.example/tern-ep9' })).status).toBe(200);
-    const to = (await MailOutbox.findAll({ where: { kind: 'upgrade_live', dedupeKey: { [(await import('sequelize')).Op.like]: `live:${ep9.id}:%` } } })).map((r) => r.toAddress);
+    const to = (
+      await MailOutbox.findAll({
+        where: { kind: 'upgrade_live', dedupeKey: { [(await import('sequelize')).Op.like]: `live:${ep9.id}:%` } },
+      })
+    ).map((r) => r.toAddress);
     expect(to).toEqual(['sam.w@viewers.test']);
   });
 
   it("answers 404 for another build's episode and 403 for the installer", async () => {
-    expect((await (await signInAs('marketing')).post(epUrl(otherEp, 'publish')).send({ videoUrl: 'https://video.example/x' })).status).toBe(404);
+    expect(
+      (
+        await (
+          await signInAs('marketing')
+        )
+          .post(epUrl(otherEp, 'publish'))
+          .send({ videoUrl: 'https://video.example/x' })
+      ).status,
+    ).toBe(404);
     expect((await otherEp.reload()).state).toBe('draft');
-    expect((await (await signInAs('installer')).post(epUrl(ep8, 'publish')).send({ videoUrl: 'https://video.example/x' })).status).toBe(403);
+    expect(
+      (await (await signInAs('installer')).post(epUrl(ep8, 'publish')).send({ videoUrl: 'https://video.example/x' }))
+        .status,
+    ).toBe(403);
   });
 });

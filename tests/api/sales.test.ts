@@ -19,21 +19,88 @@ const TABLES = ['sale_lines', 'sale_imports', 'sales_mappings', 'activities'];
 // A small build of our own: campaign "kit-test", labour rate 0, one live episode (released
 // 2026-10-01) showing upgrade "Kit A" with part HT-A (cost 100.00, bought 2026-09-20), one draft.
 async function smallBuild(slug: string) {
-  const res = await as.owner.post('/api/builds').send({ slug, name: slug, year: 2020, make: 'Halvorsen', model: 'Tern', campaign: 'kit-test', labourRateCents: 0, budgetCents: 100_000 });
+  const res = await as.owner
+    .post('/api/builds')
+    .send({
+      slug,
+      name: slug,
+      year: 2020,
+      make: 'Halvorsen',
+      model: 'Tern',
+      campaign: 'kit-test',
+      labourRateCents: 0,
+      budgetCents: 100_000,
+    });
   expect(res.status).toBe(201);
   const buildId = res.body.build.id as number;
-  const ep1 = await Episode.create({ buildId, number: 1, title: 'One', state: 'live', releaseDate: '2026-10-01', shootDate: '2026-09-25', summary: null, videoUrl: null, runtimeSeconds: null, publishedAt: null });
-  await Episode.create({ buildId, number: 2, title: 'Two', state: 'draft', releaseDate: null, shootDate: null, summary: null, videoUrl: null, runtimeSeconds: null, publishedAt: null });
+  const ep1 = await Episode.create({
+    buildId,
+    number: 1,
+    title: 'One',
+    state: 'live',
+    releaseDate: '2026-10-01',
+    shootDate: '2026-09-25',
+    summary: null,
+    videoUrl: null,
+    runtimeSeconds: null,
+    publishedAt: null,
+  });
+  await Episode.create({
+    buildId,
+    number: 2,
+    title: 'Two',
+    state: 'draft',
+    releaseDate: null,
+    shootDate: null,
+    summary: null,
+    videoUrl: null,
+    runtimeSeconds: null,
+    publishedAt: null,
+  });
   const u = await Upgrade.create({ buildId, title: 'Kit A', area: 'front', episodeId: ep1.id } as never);
-  const part = await Part.create({ buildId, upgradeId: u.id, partNumber: 'HT-A', description: 'Kit A', quantity: 1, unitCostCents: 10_000, retailPriceCents: 19_900, supplier: null, productUrl: null, expectedArrival: null, orderedOn: '2026-09-20', receivedOn: null, state: 'ordered' } as never);
+  const part = await Part.create({
+    buildId,
+    upgradeId: u.id,
+    partNumber: 'HT-A',
+    description: 'Kit A',
+    quantity: 1,
+    unitCostCents: 10_000,
+    retailPriceCents: 19_900,
+    supplier: null,
+    productUrl: null,
+    expectedArrival: null,
+    orderedOn: '2026-09-20',
+    receivedOn: null,
+    state: 'ordered',
+  } as never);
   return { buildId, episodeId: ep1.id, partId: part.id };
 }
 
-const MAP = { orderId: 'Order', lineId: 'Line', date: 'Date', sku: 'SKU', quantity: 'Qty', revenue: 'Total', currency: 'Currency', campaign: 'Campaign', content: 'Content' };
+const MAP = {
+  orderId: 'Order',
+  lineId: 'Line',
+  date: 'Date',
+  sku: 'SKU',
+  quantity: 'Qty',
+  revenue: 'Total',
+  currency: 'Currency',
+  campaign: 'Campaign',
+  content: 'Content',
+};
 const HEAD = 'Order,Line,Date,SKU,Qty,Total,Currency,Campaign,Content';
-const url = (buildId: number, q: Record<string, string> = {}) => `/api/builds/${buildId}/sales/import?${new URLSearchParams(q).toString()}`;
-const post = (role: keyof typeof as, buildId: number, text: string, q: Record<string, string> = {}, mapping: object | null = MAP) =>
-  as[role].post(url(buildId, { ...(mapping ? { mapping: JSON.stringify(mapping) } : {}), ...q })).set('Content-Type', 'text/csv').send(text);
+const url = (buildId: number, q: Record<string, string> = {}) =>
+  `/api/builds/${buildId}/sales/import?${new URLSearchParams(q).toString()}`;
+const post = (
+  role: keyof typeof as,
+  buildId: number,
+  text: string,
+  q: Record<string, string> = {},
+  mapping: object | null = MAP,
+) =>
+  as[role]
+    .post(url(buildId, { ...(mapping ? { mapping: JSON.stringify(mapping) } : {}), ...q }))
+    .set('Content-Type', 'text/csv')
+    .send(text);
 
 beforeAll(async () => {
   as = await agentsByRole();
@@ -52,7 +119,9 @@ describe('the demo build', () => {
     expect(typeof res.body.series.marginCents).toBe('number');
     expect(typeof res.body.series.netCostCents).toBe('number');
     expect(res.body.payback.points.length).toBeGreaterThan(10);
-    expect(res.body.series.revenueCents).toBe(res.body.series.direct.revenueCents + res.body.series.assisted.revenueCents);
+    expect(res.body.series.revenueCents).toBe(
+      res.body.series.direct.revenueCents + res.body.series.assisted.revenueCents,
+    );
     // The roof rails sell under the store's own code, recorded on the part as its store SKU.
     const rails = res.body.upgrades.find((u: { title: string }) => u.title === 'Roof rails');
     expect(rails.sinceRelease.units).toBeGreaterThan(0);
@@ -64,7 +133,15 @@ describe('the demo build', () => {
       expect(res.status).toBe(200);
       expect(res.body.series.revenueCents).toBeGreaterThan(0);
       expect(res.body.episodes[0].direct.units).toBeGreaterThan(0);
-      for (const hidden of ['marginCents', 'netCostCents', 'returnOnBuild', 'paybackDate', 'marginNeededCents', 'payback', 'cumulativeNetCostCents']) {
+      for (const hidden of [
+        'marginCents',
+        'netCostCents',
+        'returnOnBuild',
+        'paybackDate',
+        'marginNeededCents',
+        'payback',
+        'cumulativeNetCostCents',
+      ]) {
         expect(res.text, `${role} must not receive ${hidden}`).not.toContain(`"${hidden}"`);
       }
       const lines = await as[role].get(`/api/builds/${tern.id}/sales/lines?kind=direct&pageSize=5`);
@@ -82,7 +159,13 @@ describe('the demo build', () => {
     const lines = await count('sale_lines');
     const preview = await post('owner', tern.id, text, { dryRun: '1' }, TERN_SALES_MAPPING);
     expect(preview.status).toBe(200);
-    expect(preview.body).toMatchObject({ ok: true, linesRead: 209, newLines: 0, alreadyImported: 208, duplicatesInFile: 1 });
+    expect(preview.body).toMatchObject({
+      ok: true,
+      linesRead: 209,
+      newLines: 0,
+      alreadyImported: 208,
+      duplicatesInFile: 1,
+    });
     const res = await post('owner', tern.id, text, {}, TERN_SALES_MAPPING);
     expect(res.status).toBe(201);
     expect(res.body.added).toBe(0);
@@ -107,8 +190,23 @@ describe('import with a mapping', () => {
     const before = await counts(...TABLES);
     const preview = await post('owner', buildId, text, { dryRun: '1' });
     expect(preview.status).toBe(200);
-    expect(preview.body).toMatchObject({ ok: true, dryRun: true, linesRead: 5, newLines: 5, alreadyImported: 0, refunds: 1, errors: [] });
-    expect(preview.body.sample[1]).toMatchObject({ line: 3, orderId: 'A2', soldOn: '2026-10-10', quantity: 1, revenueCents: 19_900, currency: 'USD' });
+    expect(preview.body).toMatchObject({
+      ok: true,
+      dryRun: true,
+      linesRead: 5,
+      newLines: 5,
+      alreadyImported: 0,
+      refunds: 1,
+      errors: [],
+    });
+    expect(preview.body.sample[1]).toMatchObject({
+      line: 3,
+      orderId: 'A2',
+      soldOn: '2026-10-10',
+      quantity: 1,
+      revenueCents: 19_900,
+      currency: 'USD',
+    });
     expect(await counts(...TABLES)).toEqual(before); // a preview writes nothing
 
     const res = await post('owner', buildId, text, { fileName: 'orders.csv' });
@@ -119,7 +217,10 @@ describe('import with a mapping', () => {
     expect(after.sale_imports - before.sale_imports).toBe(1);
     expect(after.sales_mappings - before.sales_mappings).toBe(1);
     expect(after.activities - before.activities).toBe(1);
-    expect((await as.marketing.get(`/api/builds/${buildId}/sales/mapping`)).body.mapping).toEqual({ ...MAP, landingUrl: null });
+    expect((await as.marketing.get(`/api/builds/${buildId}/sales/mapping`)).body.mapping).toEqual({
+      ...MAP,
+      landingUrl: null,
+    });
 
     const s = (await as.owner.get(`/api/builds/${buildId}/sales`)).body;
     const ep1 = s.episodes.find((e: { number: number }) => e.number === 1);
@@ -148,7 +249,11 @@ describe('import with a mapping', () => {
   it('without line ids, a line is known by order, SKU, quantity and revenue; overlapping exports add only the new lines', async () => {
     const { buildId } = await smallBuild('sales-no-line-ids');
     const map = { ...MAP, lineId: null };
-    const first = ['Order,Date,SKU,Qty,Total,Currency,Campaign,Content', 'B1,2026-10-02,HT-A,1,199.00,USD,,', 'B2,2026-10-03,HT-A,1,199.00,USD,,'].join('\n');
+    const first = [
+      'Order,Date,SKU,Qty,Total,Currency,Campaign,Content',
+      'B1,2026-10-02,HT-A,1,199.00,USD,,',
+      'B2,2026-10-03,HT-A,1,199.00,USD,,',
+    ].join('\n');
     const second = [first, 'B3,2026-10-04,HT-A,1,199.00,USD,,'].join('\n');
     expect((await post('owner', buildId, first, {}, map)).body.added).toBe(2);
     const res = await post('owner', buildId, second, {}, map);
@@ -159,10 +264,22 @@ describe('import with a mapping', () => {
   it('reads utm tags from a landing page address', async () => {
     const { buildId, episodeId } = await smallBuild('sales-landing');
     const map = { orderId: 'id', date: 'day', sku: 'sku', quantity: 'n', revenue: 'total', landingUrl: 'landing' };
-    const text = ['id,day,sku,n,total,landing', 'C1,2026-11-30,HT-A,1,199.00,https://shop.test/p/ht-a?utm_source=youtube&utm_campaign=kit-test&utm_content=episode-1'].join('\n');
+    const text = [
+      'id,day,sku,n,total,landing',
+      'C1,2026-11-30,HT-A,1,199.00,https://shop.test/p/ht-a?utm_source=youtube&utm_campaign=kit-test&utm_content=episode-1',
+    ].join('\n');
     expect((await post('marketing', buildId, text, {}, map)).status).toBe(201);
     const lines = await as.owner.get(`/api/builds/${buildId}/sales/lines?kind=direct`);
-    expect(lines.body.lines).toMatchObject([{ orderId: 'C1', attribution: 'direct', episodeId, campaign: 'kit-test', content: 'episode-1', marginCents: 9_900 }]);
+    expect(lines.body.lines).toMatchObject([
+      {
+        orderId: 'C1',
+        attribution: 'direct',
+        episodeId,
+        campaign: 'kit-test',
+        content: 'episode-1',
+        marginCents: 9_900,
+      },
+    ]);
   });
 });
 
@@ -186,8 +303,12 @@ describe('bad input: clear messages by line and column, nothing written', () => 
   }
 
   it('a mapped column that is not in the file', async () => {
-    const errors = await refused(['Order,Line,Date,SKU,Qty,Total,Currency,Campaign', 'D1,1,2026-10-02,HT-A,1,199.00,USD,'].join('\n'));
-    expect(errors).toEqual([{ line: 1, column: 'Content', message: 'is not a column of this file (it is mapped as content (utm_content))' }]);
+    const errors = await refused(
+      ['Order,Line,Date,SKU,Qty,Total,Currency,Campaign', 'D1,1,2026-10-02,HT-A,1,199.00,USD,'].join('\n'),
+    );
+    expect(errors).toEqual([
+      { line: 1, column: 'Content', message: 'is not a column of this file (it is mapped as content (utm_content))' },
+    ]);
   });
 
   it('a bad date, a negative quantity on a sale, an unknown and a foreign currency', async () => {
@@ -206,10 +327,22 @@ describe('bad input: clear messages by line and column, nothing written', () => 
     expect(errors).toEqual([
       { line: 3, column: 'Date', message: '"10/02/2026" is not a date (use YYYY-MM-DD, optionally with a time)' },
       { line: 4, column: 'Date', message: '"2026-02-30" is not a date (use YYYY-MM-DD, optionally with a time)' },
-      { line: 5, column: 'Qty', message: 'is below zero on a line that is not a refund (a refund has quantity and revenue both below zero)' },
+      {
+        line: 5,
+        column: 'Qty',
+        message: 'is below zero on a line that is not a refund (a refund has quantity and revenue both below zero)',
+      },
       { line: 6, column: 'Currency', message: '"ZZZ" is not a currency code we know' },
-      { line: 7, column: 'Currency', message: "EUR is not this build's currency (USD); only USD lines can be imported here" },
-      { line: 8, column: 'Total', message: 'is below zero on a line that is not a refund (a refund has quantity and revenue both below zero)' },
+      {
+        line: 7,
+        column: 'Currency',
+        message: "EUR is not this build's currency (USD); only USD lines can be imported here",
+      },
+      {
+        line: 8,
+        column: 'Total',
+        message: 'is below zero on a line that is not a refund (a refund has quantity and revenue both below zero)',
+      },
     ]);
   });
 
@@ -231,7 +364,9 @@ describe('bad input: clear messages by line and column, nothing written', () => 
     const fresh = await smallBuild('sales-no-mapping');
     const none = await post('owner', fresh.buildId, `${HEAD}\nG1,1,2026-10-02,HT-A,1,199.00,USD,,`, {}, null);
     expect(none.status).toBe(400);
-    expect(none.body.error.fields).toEqual([expect.objectContaining({ path: 'mapping', message: expect.stringContaining('is required') })]);
+    expect(none.body.error.fields).toEqual([
+      expect.objectContaining({ path: 'mapping', message: expect.stringContaining('is required') }),
+    ]);
     const twice = await post('owner', fresh.buildId, HEAD, {}, { ...MAP, sku: 'Order' });
     expect(twice.status).toBe(400);
     expect(twice.body.error.fields[0].path).toBe('mapping.sku');
@@ -254,7 +389,9 @@ describe('settings that sales read', () => {
     const bad = await as.owner.patch(`/api/builds/${buildId}`).send({ currency: 'XX', version: b.version });
     expect(bad.status).toBe(400);
     expect(bad.body.error.fields[0].path).toBe('currency');
-    const ok = await as.owner.patch(`/api/builds/${buildId}`).send({ currency: 'eur', attributionWindowDays: 10, version: b.version });
+    const ok = await as.owner
+      .patch(`/api/builds/${buildId}`)
+      .send({ currency: 'eur', attributionWindowDays: 10, version: b.version });
     expect(ok.status).toBe(200);
     expect(ok.body.build).toMatchObject({ currency: 'EUR', attributionWindowDays: 10 });
 
@@ -265,7 +402,13 @@ describe('settings that sales read', () => {
     const text = [HEAD, 'K1,1,2026-10-05,STORE-KIT-A,1,199.00,EUR,,', 'K2,1,2026-10-05,HT-A,1,199.00,USD,,'].join('\n');
     const refused = await post('owner', buildId, text);
     expect(refused.status).toBe(400);
-    expect(refused.body.errors).toEqual([{ line: 3, column: 'Currency', message: "USD is not this build's currency (EUR); only EUR lines can be imported here" }]);
+    expect(refused.body.errors).toEqual([
+      {
+        line: 3,
+        column: 'Currency',
+        message: "USD is not this build's currency (EUR); only EUR lines can be imported here",
+      },
+    ]);
     expect((await post('owner', buildId, text.split('\n').slice(0, 2).join('\n'))).status).toBe(201);
     const s = (await as.owner.get(`/api/builds/${buildId}/sales`)).body;
     // Day 4 after the release, within the 10-day window: assisted by the store SKU.
@@ -277,7 +420,10 @@ describe('a large export', () => {
   it('50,000 lines import in one go within the time-out, and again add nothing', async () => {
     const { buildId } = await smallBuild('sales-large');
     const rows = [HEAD];
-    for (let i = 0; i < 50_000; i++) rows.push(`L${i},1,2026-10-${String(1 + (i % 28)).padStart(2, '0')},HT-A,1,199.00,USD,${i % 2 ? 'kit-test' : ''},${i % 2 ? 'episode-1' : ''}`);
+    for (let i = 0; i < 50_000; i++)
+      rows.push(
+        `L${i},1,2026-10-${String(1 + (i % 28)).padStart(2, '0')},HT-A,1,199.00,USD,${i % 2 ? 'kit-test' : ''},${i % 2 ? 'episode-1' : ''}`,
+      );
     const text = rows.join('\n');
     // Same-run baseline: the first 500 lines into a build of their own.
     const small = await smallBuild('sales-baseline');
@@ -300,6 +446,8 @@ describe('a large export', () => {
     // 25,000 tagged lines direct; the 25,000 untagged ones are all within 30 days of the release.
     expect(summary.body.series.direct.units).toBe(25_000);
     expect(summary.body.series.assisted.units).toBe(25_000);
-    console.log(`sales import of 50,000 lines (${(text.length / 1e6).toFixed(1)} MB): ${importMs} ms; again: ${againMs} ms; summary: ${summaryMs} ms; baseline 500 lines: ${baselineMs} ms`);
+    console.log(
+      `sales import of 50,000 lines (${(text.length / 1e6).toFixed(1)} MB): ${importMs} ms; again: ${againMs} ms; summary: ${summaryMs} ms; baseline 500 lines: ${baselineMs} ms`,
+    );
   }, 60_000);
 });

@@ -7,7 +7,13 @@ import { everyAnswerHasAContract, expectContract } from '../helpers/contract';
 import { Build } from '../../server/models';
 import { salesForViewer } from '../../server/services/visibility';
 import { allow } from '../../shared/contracts/common';
-import { SalesLines, SalesSummary, SalesSummaryForOwner, SalesSummaryForTeam, salesContractFor } from '../../shared/contracts/sales';
+import {
+  SalesLines,
+  SalesSummary,
+  SalesSummaryForOwner,
+  SalesSummaryForTeam,
+  salesContractFor,
+} from '../../shared/contracts/sales';
 
 everyAnswerHasAContract();
 
@@ -33,7 +39,9 @@ describe('sales answers per role', () => {
       } else {
         // The owner's contract needs the cost-based figures: a team answer cannot pass for it.
         expect(SalesSummaryForOwner.safeParse(res.body).success).toBe(false);
-        expect(JSON.stringify(res.body)).not.toMatch(/marginCents|netCostCents|returnOnBuild|paybackDate|marginNeededCents|cumulative/);
+        expect(JSON.stringify(res.body)).not.toMatch(
+          /marginCents|netCostCents|returnOnBuild|paybackDate|marginNeededCents|cumulative/,
+        );
       }
     }
   });

@@ -4,10 +4,15 @@ import { migrate, seedDemo } from '../../server/db/migrate';
 import { sequelize } from '../../server/models';
 
 async function tableCounts() {
-  const [tables] = await sequelize.query(`SELECT tablename FROM pg_tables WHERE schemaname = 'public' AND tablename NOT IN ('session') ORDER BY tablename`);
+  const [tables] = await sequelize.query(
+    `SELECT tablename FROM pg_tables WHERE schemaname = 'public' AND tablename NOT IN ('session') ORDER BY tablename`,
+  );
   const out: Record<string, number> = {};
   for (const { tablename } of tables as { tablename: string }[]) {
-    const [[row]] = (await sequelize.query(`SELECT count(*)::int AS n FROM "${tablename}"`)) as [{ n: number }[], unknown];
+    const [[row]] = (await sequelize.query(`SELECT count(*)::int AS n FROM "${tablename}"`)) as [
+      { n: number }[],
+      unknown,
+    ];
     out[tablename] = row.n;
   }
   return out;

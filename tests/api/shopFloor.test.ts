@@ -11,13 +11,44 @@ let buildId: number;
 let base: string;
 let otherEpisodeId: number;
 
-type Item = { upgrade: { id: number; title: string; installState: string; version: number; valueAddedCents?: number }; parts: Record<string, unknown>[]; prerequisitesMet: boolean; blockedBy: string[]; cautions: { flag: string; caution: string }[] };
+type Item = {
+  upgrade: { id: number; title: string; installState: string; version: number; valueAddedCents?: number };
+  parts: Record<string, unknown>[];
+  prerequisitesMet: boolean;
+  blockedBy: string[];
+  cautions: { flag: string; caution: string }[];
+};
 
 beforeAll(async () => {
   buildId = (await Build.findOne({ where: { slug: 'project-tern' } }))!.id;
   base = `/api/builds/${buildId}/shop-floor`;
-  const other = await Build.create({ slug: 'shop-other', name: 'Other', year: 2020, make: 'Halvorsen', model: 'Skua', vin: null, mileage: null, budgetCents: null, labourRateCents: null, campaign: null, summary: null });
-  otherEpisodeId = (await Episode.create({ buildId: other.id, number: 1, title: 'Elsewhere', summary: null, state: 'scheduled', shootDate: '2027-01-01', releaseDate: null, videoUrl: null, runtimeSeconds: null, publishedAt: null })).id;
+  const other = await Build.create({
+    slug: 'shop-other',
+    name: 'Other',
+    year: 2020,
+    make: 'Halvorsen',
+    model: 'Skua',
+    vin: null,
+    mileage: null,
+    budgetCents: null,
+    labourRateCents: null,
+    campaign: null,
+    summary: null,
+  });
+  otherEpisodeId = (
+    await Episode.create({
+      buildId: other.id,
+      number: 1,
+      title: 'Elsewhere',
+      summary: null,
+      state: 'scheduled',
+      shootDate: '2027-01-01',
+      releaseDate: null,
+      videoUrl: null,
+      runtimeSeconds: null,
+      publishedAt: null,
+    })
+  ).id;
 });
 
 describe('the shop floor', () => {
@@ -27,7 +58,11 @@ describe('the shop floor', () => {
     expect(res.status).toBe(200);
     expect(res.body.episode).toMatchObject({ title: 'Ready to tow', state: 'scheduled' });
     const items = res.body.upgrades as Item[];
-    expect(items.map((i) => i.upgrade.title)).toEqual(['Trailer wiring, 7-pin', 'Trailer brake controller', 'Wireless charging pad']);
+    expect(items.map((i) => i.upgrade.title)).toEqual([
+      'Trailer wiring, 7-pin',
+      'Trailer brake controller',
+      'Wireless charging pad',
+    ]);
     const [wiring, brake, charger] = items;
     expect(wiring.prerequisitesMet).toBe(true);
     expect(brake.prerequisitesMet).toBe(false);
@@ -60,11 +95,15 @@ describe('the shop floor', () => {
     const installer = await signInAs('installer');
     const items = (await installer.get(base)).body.upgrades as Item[];
     const [wiring, brake] = items;
-    const refused = await installer.patch(`/api/builds/${buildId}/upgrades/${brake.upgrade.id}`).send({ installState: 'in_bay', version: brake.upgrade.version });
+    const refused = await installer
+      .patch(`/api/builds/${buildId}/upgrades/${brake.upgrade.id}`)
+      .send({ installState: 'in_bay', version: brake.upgrade.version });
     expect(refused.status).toBe(409);
     expect(refused.body.error.code).toBe('prerequisites_not_installed');
     expect(refused.body.error.message).toContain('Trailer wiring, 7-pin');
-    const done = await installer.patch(`/api/builds/${buildId}/upgrades/${wiring.upgrade.id}`).send({ installState: 'installed', version: wiring.upgrade.version });
+    const done = await installer
+      .patch(`/api/builds/${buildId}/upgrades/${wiring.upgrade.id}`)
+      .send({ installState: 'installed', version: wiring.upgrade.version });
     expect(done.status).toBe(200);
     const after = (await installer.get(base)).body.upgrades as Item[];
     expect(after[1].prerequisitesMet).toBe(true);
@@ -72,14 +111,17 @@ describe('the shop floor', () => {
     expect(after[0].upgrade.installState).toBe('installed');
   });
 
-  it('picks an episode by id; another build\'s episode answers 404; a bad id 400', async () => {
+  it("picks an episode by id; another build's episode answers 404; a bad id 400", async () => {
     const installer = await signInAs('installer');
     const eps = (await installer.get(`/api/builds/${buildId}/episodes`)).body.episodes;
     const inEdit = eps.find((e: { state: string }) => e.state === 'in_edit');
     const res = await installer.get(`${base}?episodeId=${inEdit.id}`);
     expect(res.status).toBe(200);
     expect(res.body.episode.id).toBe(inEdit.id);
-    expect((res.body.upgrades as Item[]).map((i) => i.upgrade.title)).toEqual(['Clockspring for heated wheel', 'Blind-spot radar']);
+    expect((res.body.upgrades as Item[]).map((i) => i.upgrade.title)).toEqual([
+      'Clockspring for heated wheel',
+      'Blind-spot radar',
+    ]);
     expect((await installer.get(`${base}?episodeId=${otherEpisodeId}`)).status).toBe(404);
     expect((await installer.get(`${base}?episodeId=abc`)).status).toBe(400);
   });

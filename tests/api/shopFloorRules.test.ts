@@ -34,7 +34,9 @@ describe('in-bay upgrades are always on the shop floor', () => {
     expect(inBay.find((i) => i.upgrade.title === 'Heated steering wheel')!.episode).toMatchObject({ state: 'draft' });
     // The working episode's own in-bay upgrade stays in its place in the episode, not twice.
     expect(inBay.map((i) => i.upgrade.title)).not.toContain('Trailer wiring, 7-pin');
-    expect(res.body.upgrades.map((i: { upgrade: { title: string } }) => i.upgrade.title)).toContain('Trailer wiring, 7-pin');
+    expect(res.body.upgrades.map((i: { upgrade: { title: string } }) => i.upgrade.title)).toContain(
+      'Trailer wiring, 7-pin',
+    );
   });
 });
 
@@ -50,14 +52,24 @@ describe('marking installed with parts not received', () => {
     expect(refused.status).toBe(409);
     expect(refused.body.error.code).toBe('parts_not_received');
     expect(refused.body.error.message).toContain('Wireless charging pad, 15 W');
-    expect(refused.body.error.parts).toEqual([{ description: 'Wireless charging pad, 15 W', partNumber: 'HT-WCP-9510', state: 'ordered', expectedArrival: '2026-12-02' }]);
+    expect(refused.body.error.parts).toEqual([
+      {
+        description: 'Wireless charging pad, 15 W',
+        partNumber: 'HT-WCP-9510',
+        state: 'ordered',
+        expectedArrival: '2026-12-02',
+      },
+    ]);
     await pad.reload();
     expect(pad.installState).toBe('in_bay');
 
     const ok = await patch(installer, pad, { installState: 'installed', confirmPartsNotReceived: true });
     expect(ok.status).toBe(200);
     expect(ok.body.upgrade.installState).toBe('installed');
-    const act = await Activity.findOne({ where: { buildId, entity: 'upgrade', entityId: pad.id }, order: [['id', 'DESC']] });
+    const act = await Activity.findOne({
+      where: { buildId, entity: 'upgrade', entityId: pad.id },
+      order: [['id', 'DESC']],
+    });
     expect(act!.summary).toContain('parts not received: Wireless charging pad, 15 W (HT-WCP-9510, Ordered)');
   });
 
@@ -104,7 +116,9 @@ describe('a double tap never skips a state', () => {
     ]);
     expect([a.status, b.status].sort()).toEqual([200, 409]);
     // The reflowed "installed" tap made from the old version is refused too.
-    const skip = await installer.patch(`/api/builds/${buildId}/upgrades/${remote.id}`).send({ installState: 'installed', version: remote.version });
+    const skip = await installer
+      .patch(`/api/builds/${buildId}/upgrades/${remote.id}`)
+      .send({ installState: 'installed', version: remote.version });
     expect(skip.status).toBe(409);
     await remote.reload();
     expect(remote.installState).toBe('in_bay');
@@ -118,10 +132,14 @@ describe('stepping back a mark', () => {
     const inv = await byTitle('400 W cargo power outlet');
     expect((await patch(installer, inv, { installState: 'in_bay' })).status).toBe(200);
     await inv.reload();
-    const res = await installer.post(`${base}/upgrades/${inv.id}/step-back`).send({ mark: 'installState', version: inv.version });
+    const res = await installer
+      .post(`${base}/upgrades/${inv.id}/step-back`)
+      .send({ mark: 'installState', version: inv.version });
     expect(res.status).toBe(200);
     expect(res.body.upgrade.installState).toBe('queued');
-    const act = await Activity.findOne({ where: { buildId, entity: 'upgrade', entityId: inv.id, action: 'step_back' } });
+    const act = await Activity.findOne({
+      where: { buildId, entity: 'upgrade', entityId: inv.id, action: 'step_back' },
+    });
     expect(act!.summary).toBe('Stepped back 400 W cargo power outlet: install state In the bay → Queued');
     expect(act!.changes).toMatchObject({ installState: ['in_bay', 'queued'] });
   });
@@ -129,19 +147,30 @@ describe('stepping back a mark', () => {
   it('someone else cannot step back the mark (403); after ten minutes the maker needs a reason (400, then 200)', async () => {
     const installer = await signInAs('installer');
     const lamps = await byTitle('Remote start'); // started above by the installer
-    const other = await (await signInAs('producer')).post(`${base}/upgrades/${lamps.id}/step-back`).send({ mark: 'installState', version: lamps.version });
+    const other = await (
+      await signInAs('producer')
+    )
+      .post(`${base}/upgrades/${lamps.id}/step-back`)
+      .send({ mark: 'installState', version: lamps.version });
     expect(other.status).toBe(403);
     // Age the installer's mark by eleven minutes (activities refuse UPDATE, so insert an aged copy).
     const me = await User.findOne({ where: { email: 'installer@cedar-ridge.test' } });
     await sequelize.query(`ALTER TABLE activities DISABLE TRIGGER USER`);
-    await sequelize.query(`UPDATE activities SET created_at = now() - interval '11 minutes' WHERE entity = 'upgrade' AND entity_id = :id AND user_id = :u`, {
-      replacements: { id: lamps.id, u: me!.id },
-    });
+    await sequelize.query(
+      `UPDATE activities SET created_at = now() - interval '11 minutes' WHERE entity = 'upgrade' AND entity_id = :id AND user_id = :u`,
+      {
+        replacements: { id: lamps.id, u: me!.id },
+      },
+    );
     await sequelize.query(`ALTER TABLE activities ENABLE TRIGGER USER`);
-    const noReason = await installer.post(`${base}/upgrades/${lamps.id}/step-back`).send({ mark: 'installState', version: lamps.version });
+    const noReason = await installer
+      .post(`${base}/upgrades/${lamps.id}/step-back`)
+      .send({ mark: 'installState', version: lamps.version });
     expect(noReason.status).toBe(400);
     expect(noReason.body.error.fields[0].path).toBe('reason');
-    const ok = await installer.post(`${base}/upgrades/${lamps.id}/step-back`).send({ mark: 'installState', version: lamps.version, reason: 'Started the wrong job' });
+    const ok = await installer
+      .post(`${base}/upgrades/${lamps.id}/step-back`)
+      .send({ mark: 'installState', version: lamps.version, reason: 'Started the wrong job' });
     expect(ok.status).toBe(200);
     const act = await Activity.findOne({ where: { buildId, entityId: lamps.id, action: 'step_back' } });
     expect(act!.summary).toContain('reason: Started the wrong job');
@@ -150,9 +179,13 @@ describe('stepping back a mark', () => {
   it('a stale version answers 409; an unknown mark 400', async () => {
     const installer = await signInAs('installer');
     const wheel = await byTitle('Heated steering wheel');
-    const stale = await installer.post(`${base}/upgrades/${wheel.id}/step-back`).send({ mark: 'installSegment', version: wheel.version - 1 });
+    const stale = await installer
+      .post(`${base}/upgrades/${wheel.id}/step-back`)
+      .send({ mark: 'installSegment', version: wheel.version - 1 });
     expect(stale.status).toBe(409);
-    const bad = await installer.post(`${base}/upgrades/${wheel.id}/step-back`).send({ mark: 'colour', version: wheel.version });
+    const bad = await installer
+      .post(`${base}/upgrades/${wheel.id}/step-back`)
+      .send({ mark: 'colour', version: wheel.version });
     expect(bad.status).toBe(400);
   });
 });
@@ -161,14 +194,17 @@ describe('reading a safety caution', () => {
   it('is recorded in the upgrade history once and the floor says it was read by this person only', async () => {
     const installer = await signInAs('installer');
     const brake = await byTitle('Trailer brake controller');
-    const item = (body: { upgrades: { upgrade: { id: number }; cautionRead: boolean }[] }) => body.upgrades.find((i) => i.upgrade.id === brake.id)!;
+    const item = (body: { upgrades: { upgrade: { id: number }; cautionRead: boolean }[] }) =>
+      body.upgrades.find((i) => i.upgrade.id === brake.id)!;
     expect(item((await installer.get(base)).body).cautionRead).toBe(false);
     const res = await installer.post(`${base}/upgrades/${brake.id}/caution-read`).send({});
     expect(res.status).toBe(204);
     expect((await installer.post(`${base}/upgrades/${brake.id}/caution-read`).send({})).status).toBe(204);
     const rows = await Activity.findAll({ where: { buildId, entityId: brake.id, action: 'caution_read' } });
     expect(rows).toHaveLength(1);
-    expect(rows[0].summary).toBe('Read the safety caution of Trailer brake controller: Brakes and trailer brakes, High-current electrical');
+    expect(rows[0].summary).toBe(
+      'Read the safety caution of Trailer brake controller: Brakes and trailer brakes, High-current electrical',
+    );
     expect(item((await installer.get(base)).body).cautionRead).toBe(true);
     expect(item((await (await signInAs('producer')).get(base)).body).cautionRead).toBe(false);
     const history = await installer.get(`/api/builds/${buildId}/upgrades/${brake.id}/activity`);
@@ -181,9 +217,20 @@ describe('hours on the shop floor', () => {
     const installer = await signInAs('installer');
     const wheel = await byTitle('Heated steering wheel');
     // Today on the demo shop's clock (America/Denver), read with the runtime's Intl.
-    const today = new Intl.DateTimeFormat('en-CA', { timeZone: 'America/Denver', year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date());
-    await installer.post(`/api/builds/${buildId}/labour`).send({ upgradeId: wheel.id, hours: 1.25, kind: 'install', workedOn: today });
-    await (await signInAs('producer')).post(`/api/builds/${buildId}/labour`).send({ upgradeId: wheel.id, hours: 0.5, kind: 'filming', workedOn: today });
+    const today = new Intl.DateTimeFormat('en-CA', {
+      timeZone: 'America/Denver',
+      year: 'numeric',
+      month: '2-digit',
+      day: '2-digit',
+    }).format(new Date());
+    await installer
+      .post(`/api/builds/${buildId}/labour`)
+      .send({ upgradeId: wheel.id, hours: 1.25, kind: 'install', workedOn: today });
+    await (
+      await signInAs('producer')
+    )
+      .post(`/api/builds/${buildId}/labour`)
+      .send({ upgradeId: wheel.id, hours: 0.5, kind: 'filming', workedOn: today });
     const body = (await installer.get(base)).body;
     const w = body.inBay.find((i: { upgrade: { id: number } }) => i.upgrade.id === wheel.id);
     // The demo seeds 1.5 h on the wheel by the installer on 2026-11-27 (seeders/data/project-tern.ts):

@@ -11,16 +11,22 @@ import { everyAnswerHasAContract } from '../helpers/contract';
 everyAnswerHasAContract();
 
 let buildId: number;
-const plus = (iso: string, days: number) => new Date(Date.parse(`${iso}T00:00:00Z`) + days * 86_400_000).toISOString().slice(0, 10);
+const plus = (iso: string, days: number) =>
+  new Date(Date.parse(`${iso}T00:00:00Z`) + days * 86_400_000).toISOString().slice(0, 10);
 // Today on the demo build's clock (America/Denver), as the server counts overdue parts.
 const todayIso = () => todayIn('America/Denver');
 
 type Slip = {
-  episodeId: number; number: number; title: string; state: string;
+  episodeId: number;
+  number: number;
+  title: string;
+  state: string;
   baseline: { shootDate: string | null; releaseDate: string | null };
   planned: { shootDate: string | null; releaseDate: string | null };
   projected: { shootDate: string | null; releaseDate: string | null };
-  partsDelayDays: number; slipDays: { shoot: number | null; release: number | null }; releaseAtRisk: boolean;
+  partsDelayDays: number;
+  slipDays: { shoot: number | null; release: number | null };
+  releaseAtRisk: boolean;
   cause: { partNumber: string; upgradeTitle: string; expectedArrival: string; overdue: boolean } | null;
 };
 
@@ -34,7 +40,10 @@ const slipsOf = async (agent: Awaited<ReturnType<typeof signInAs>>) => {
   return res.body as { episodes: Slip[]; atRisk: number[] };
 };
 const digests = async () =>
-  (await sequelize.query<{ to_address: string; subject: string; text_body: string }>("SELECT to_address, subject, text_body FROM mail_outbox WHERE kind = 'slip_digest' ORDER BY id", { type: 'SELECT' as never }));
+  await sequelize.query<{ to_address: string; subject: string; text_body: string }>(
+    "SELECT to_address, subject, text_body FROM mail_outbox WHERE kind = 'slip_digest' ORDER BY id",
+    { type: 'SELECT' as never },
+  );
 
 describe('baselines', () => {
   it('the demo shows "Ready to tow" a week behind its baseline, and the part date changes in the history', async () => {
@@ -50,21 +59,32 @@ describe('baselines', () => {
     // Live episodes keep their baseline as shot; drafts have none yet.
     expect(episodes.find((e) => e.state === 'live')!.slipDays).toEqual({ shoot: 0, release: 0 });
     expect(episodes.find((e) => e.state === 'draft')!.baseline).toEqual({ shootDate: null, releaseDate: null });
-    const [row] = await sequelize.query<{ summary: string }>("SELECT summary FROM activities WHERE entity = 'part' AND summary LIKE 'Expected arrival moved%' LIMIT 1", { type: 'SELECT' as never });
-    expect(row.summary).toMatch(/^Expected arrival moved from \d{4}-\d{2}-\d{2} to \d{4}-\d{2}-\d{2} \(8 days later\) for part HT-WCP-9510$/);
+    const [row] = await sequelize.query<{ summary: string }>(
+      "SELECT summary FROM activities WHERE entity = 'part' AND summary LIKE 'Expected arrival moved%' LIMIT 1",
+      { type: 'SELECT' as never },
+    );
+    expect(row.summary).toMatch(
+      /^Expected arrival moved from \d{4}-\d{2}-\d{2} to \d{4}-\d{2}-\d{2} \(8 days later\) for part HT-WCP-9510$/,
+    );
   });
 
   it('an episode takes its baseline when it is scheduled, and keeps it when its dates move', async () => {
     const producer = await signInAs('producer');
-    const created = await producer.post(`/api/builds/${buildId}/episodes`).send({ title: 'Baseline check', shootDate: '2027-03-01', releaseDate: '2027-03-08' });
+    const created = await producer
+      .post(`/api/builds/${buildId}/episodes`)
+      .send({ title: 'Baseline check', shootDate: '2027-03-01', releaseDate: '2027-03-08' });
     expect(created.status).toBe(201);
     const id = created.body.episode.id;
     const baselineOf = async () => (await slipsOf(producer)).episodes.find((e) => e.episodeId === id)!.baseline;
     expect(await baselineOf()).toEqual({ shootDate: null, releaseDate: null });
-    const scheduled = await producer.patch(`/api/builds/${buildId}/episodes/${id}`).send({ state: 'scheduled', version: created.body.episode.version });
+    const scheduled = await producer
+      .patch(`/api/builds/${buildId}/episodes/${id}`)
+      .send({ state: 'scheduled', version: created.body.episode.version });
     expect(scheduled.status).toBe(200);
     expect(await baselineOf()).toEqual({ shootDate: '2027-03-01', releaseDate: '2027-03-08' });
-    const moved = await producer.patch(`/api/builds/${buildId}/episodes/${id}`).send({ shootDate: '2027-03-04', releaseDate: '2027-03-12', version: scheduled.body.episode.version });
+    const moved = await producer
+      .patch(`/api/builds/${buildId}/episodes/${id}`)
+      .send({ shootDate: '2027-03-04', releaseDate: '2027-03-12', version: scheduled.body.episode.version });
     expect(moved.status).toBe(200);
     expect(await baselineOf()).toEqual({ shootDate: '2027-03-01', releaseDate: '2027-03-08' });
     const slip = (await slipsOf(producer)).episodes.find((e) => e.episodeId === id)!;
@@ -74,7 +94,7 @@ describe('baselines', () => {
 });
 
 describe('slip alerts', () => {
-  it('a part moving past its episode\'s shoot puts the release at risk, tells producers once a day, and is in the history', async () => {
+  it("a part moving past its episode's shoot puts the release at risk, tells producers once a day, and is in the history", async () => {
     const producer = await signInAs('producer');
     const tow = (await slipsOf(producer)).episodes.find((e) => e.title === 'Ready to tow')!;
     const pad = (await Part.findOne({ where: { buildId, partNumber: 'HT-WCP-9510' } }))!;
@@ -83,19 +103,29 @@ describe('slip alerts', () => {
 
     // Five days after the planned shoot: the shoot and the release move 5 days (12 against the baseline).
     const due = plus(tow.planned.shootDate!, 5);
-    const res = await producer.patch(`/api/builds/${buildId}/parts/${pad.id}`).send({ expectedArrival: due, version: pad.version });
+    const res = await producer
+      .patch(`/api/builds/${buildId}/parts/${pad.id}`)
+      .send({ expectedArrival: due, version: pad.version });
     expect(res.status).toBe(200);
-    const after = (await slipsOf(producer));
+    const after = await slipsOf(producer);
     const now = after.episodes.find((e) => e.title === 'Ready to tow')!;
     expect(now.partsDelayDays).toBe(5);
     expect(now.projected).toEqual({ shootDate: due, releaseDate: plus(tow.planned.releaseDate!, 5) });
     expect(now.slipDays).toEqual({ shoot: 12, release: 12 });
     expect(now.releaseAtRisk).toBe(true);
-    expect(now.cause).toMatchObject({ partNumber: 'HT-WCP-9510', upgradeTitle: 'Wireless charging pad', expectedArrival: due, overdue: false });
+    expect(now.cause).toMatchObject({
+      partNumber: 'HT-WCP-9510',
+      upgradeTitle: 'Wireless charging pad',
+      expectedArrival: due,
+      overdue: false,
+    });
     expect(after.atRisk).toEqual([now.episodeId]);
 
     // History, in words, with the number of days from the pad's seeded date.
-    const [act] = await sequelize.query<{ summary: string }>("SELECT summary FROM activities WHERE entity = 'part' AND entity_id = :id ORDER BY id DESC LIMIT 1", { replacements: { id: pad.id }, type: 'SELECT' as never });
+    const [act] = await sequelize.query<{ summary: string }>(
+      "SELECT summary FROM activities WHERE entity = 'part' AND entity_id = :id ORDER BY id DESC LIMIT 1",
+      { replacements: { id: pad.id }, type: 'SELECT' as never },
+    );
     const was = pad.expectedArrival!;
     const days = Math.round((Date.parse(due) - Date.parse(was)) / 86_400_000);
     expect(act.summary).toBe(`Expected arrival moved from ${was} to ${due} (${days} days later) for part HT-WCP-9510`);
@@ -116,7 +146,9 @@ describe('slip alerts', () => {
     expect(mails[0].text_body).toContain('HT-WCP-9510');
 
     // A second move the same day adds notices but no second digest.
-    const again = await producer.patch(`/api/builds/${buildId}/parts/${pad.id}`).send({ expectedArrival: plus(due, 3), version: res.body.version });
+    const again = await producer
+      .patch(`/api/builds/${buildId}/parts/${pad.id}`)
+      .send({ expectedArrival: plus(due, 3), version: res.body.version });
     expect(again.status).toBe(200);
     expect((await slipsOf(producer)).episodes.find((e) => e.title === 'Ready to tow')!.partsDelayDays).toBe(8);
     expect((await digests()).length).toBe(2);
@@ -129,7 +161,9 @@ describe('slip alerts', () => {
     expect((await owner.get(`/api/builds/${buildId}/notices`)).body.unread).toBeGreaterThan(0);
 
     // The part arriving clears the risk.
-    const received = await producer.patch(`/api/builds/${buildId}/parts/${pad.id}`).send({ state: 'received', version: again.body.version });
+    const received = await producer
+      .patch(`/api/builds/${buildId}/parts/${pad.id}`)
+      .send({ state: 'received', version: again.body.version });
     expect(received.status).toBe(200);
     expect((await slipsOf(producer)).atRisk).toEqual([]);
   });
@@ -141,11 +175,17 @@ describe('slip alerts', () => {
       { replacements: { b: buildId }, type: 'SELECT' as never },
     );
     const yesterday = plus(todayIso(), -1);
-    await sequelize.query('UPDATE parts SET expected_arrival = :d WHERE id = :id', { replacements: { d: yesterday, id: part.id } });
+    await sequelize.query('UPDATE parts SET expected_arrival = :d WHERE id = :id', {
+      replacements: { d: yesterday, id: part.id },
+    });
     const list = await producer.get(`/api/builds/${buildId}/notices`);
-    const overdue = list.body.notices.filter((n: { kind: string; data: { partId: number } }) => n.kind === 'part_overdue' && n.data.partId === part.id);
+    const overdue = list.body.notices.filter(
+      (n: { kind: string; data: { partId: number } }) => n.kind === 'part_overdue' && n.data.partId === part.id,
+    );
     expect(overdue).toHaveLength(1);
-    expect(overdue[0].message).toBe(`Part HT-SVM-7101 (Surround-view module) for Surround-view camera was expected ${yesterday} and has not been received.`);
+    expect(overdue[0].message).toBe(
+      `Part HT-SVM-7101 (Surround-view module) for Surround-view camera was expected ${yesterday} and has not been received.`,
+    );
     // Looking again adds nothing.
     const before = await counts('notices');
     await producer.get(`/api/builds/${buildId}/notices`);

@@ -25,7 +25,21 @@ async function create(agent: DemoRole, body: Record<string, unknown>) {
 
 beforeAll(async () => {
   tern = (await Build.findOne({ where: { slug: 'project-tern' } }))!.id;
-  other = (await Build.create({ slug: 'upgrades-other', name: 'Other', year: 2020, make: 'Halvorsen', model: 'Skua', vin: null, mileage: null, budgetCents: null, labourRateCents: null, campaign: null, summary: null })).id;
+  other = (
+    await Build.create({
+      slug: 'upgrades-other',
+      name: 'Other',
+      year: 2020,
+      make: 'Halvorsen',
+      model: 'Skua',
+      vin: null,
+      mileage: null,
+      budgetCents: null,
+      labourRateCents: null,
+      campaign: null,
+      summary: null,
+    })
+  ).id;
   as = await agentsByRole();
 });
 
@@ -40,8 +54,12 @@ describe('GET /upgrades', () => {
     expect(res.body.upgrades).toHaveLength(10);
     expect(res.body).toMatchObject({ page: 2, pageSize: 10 });
     const all = await as.producer.get(url('?pageSize=500&sort=title'));
-    expect(res.body.upgrades.map((u: { id: number }) => u.id)).toEqual(all.body.upgrades.slice(10, 20).map((u: { id: number }) => u.id));
-    const byPriority = (await as.producer.get(url('?pageSize=500&sort=priority'))).body.upgrades.map((u: { priority: number }) => u.priority);
+    expect(res.body.upgrades.map((u: { id: number }) => u.id)).toEqual(
+      all.body.upgrades.slice(10, 20).map((u: { id: number }) => u.id),
+    );
+    const byPriority = (await as.producer.get(url('?pageSize=500&sort=priority'))).body.upgrades.map(
+      (u: { priority: number }) => u.priority,
+    );
     expect(byPriority).toEqual([...byPriority].sort((a: number, b: number) => a - b));
     expect(res.body.upgrades[0]).toHaveProperty('valueAddedCents');
     expect(res.body.upgrades[0]).toHaveProperty('prerequisiteIds');
@@ -51,7 +69,10 @@ describe('GET /upgrades', () => {
     expect(rear.body.upgrades.length).toBeGreaterThan(0);
     expect(rear.body.upgrades.every((u: { area: string }) => u.area === 'rear')).toBe(true);
     const inBay = await as.producer.get(url('?installState=in_bay'));
-    expect(inBay.body.upgrades.map((u: { title: string }) => u.title).sort()).toEqual(['Heated steering wheel', 'Trailer wiring, 7-pin']);
+    expect(inBay.body.upgrades.map((u: { title: string }) => u.title).sort()).toEqual([
+      'Heated steering wheel',
+      'Trailer wiring, 7-pin',
+    ]);
     const srs = await as.producer.get(url('?safetyFlag=srs_airbag'));
     expect(srs.body.upgrades.every((u: { safetyFlags: string[] }) => u.safetyFlags.includes('srs_airbag'))).toBe(true);
     expect(srs.body.total).toBeGreaterThanOrEqual(3);
@@ -65,7 +86,10 @@ describe('GET /upgrades', () => {
     expect(res.status).toBe(200);
     const { Episode } = await import('../../server/models');
     const numbers = new Map((await Episode.findAll({ where: { buildId: tern } })).map((e) => [e.id, e.number]));
-    const keys = res.body.upgrades.map((u: { episodeId: number | null; episodePosition: number | null }) => [u.episodeId === null ? Infinity : numbers.get(u.episodeId)!, u.episodePosition ?? Infinity]);
+    const keys = res.body.upgrades.map((u: { episodeId: number | null; episodePosition: number | null }) => [
+      u.episodeId === null ? Infinity : numbers.get(u.episodeId)!,
+      u.episodePosition ?? Infinity,
+    ]);
     const sorted = [...keys].sort((a, b) => a[0] - b[0] || a[1] - b[1]);
     expect(keys).toEqual(sorted);
   });
@@ -123,7 +147,19 @@ describe('GET /upgrades/:upgradeId', () => {
     expect(m.body.upgrade).not.toHaveProperty('valueAddedCents');
   });
   it('an unknown id or another build’s upgrade answers 404', async () => {
-    const o = await Upgrade.create({ buildId: other, title: 'Elsewhere', area: 'front', replaces: null, becomes: null, installedOn: null, episodeId: null, episodePosition: null, notes: null, tireFrom: null, tireTo: null });
+    const o = await Upgrade.create({
+      buildId: other,
+      title: 'Elsewhere',
+      area: 'front',
+      replaces: null,
+      becomes: null,
+      installedOn: null,
+      episodeId: null,
+      episodePosition: null,
+      notes: null,
+      tireFrom: null,
+      tireTo: null,
+    });
     expect((await as.owner.get(url('/99999999'))).status).toBe(404);
     expect((await as.owner.get(url(`/${o.id}`))).status).toBe(404);
     expect((await as.owner.patch(url(`/${o.id}`)).send({ version: 0, title: 'Mine now' })).status).toBe(404);
@@ -136,13 +172,30 @@ describe('POST /upgrades', () => {
   it('producer adds an upgrade with prerequisites; an activity row is written in the same change', async () => {
     const before = await counts(...TABLES);
     const head = await byTitle('Larger-screen head unit with phone mirroring');
-    const u = await create('producer', { title: 'Rear-seat screen', area: 'cabin', estimatedHours: 3, valueAddedCents: 50000, priority: 4, prerequisiteIds: [head.id] });
-    expect(u).toMatchObject({ title: 'Rear-seat screen', installState: 'queued', version: 0, prerequisiteIds: [head.id] });
+    const u = await create('producer', {
+      title: 'Rear-seat screen',
+      area: 'cabin',
+      estimatedHours: 3,
+      valueAddedCents: 50000,
+      priority: 4,
+      prerequisiteIds: [head.id],
+    });
+    expect(u).toMatchObject({
+      title: 'Rear-seat screen',
+      installState: 'queued',
+      version: 0,
+      prerequisiteIds: [head.id],
+    });
     const after = await counts(...TABLES);
-    expect(after).toEqual({ upgrades: before.upgrades + 1, upgrade_prerequisites: before.upgrade_prerequisites + 1, activities: before.activities + 1 });
+    expect(after).toEqual({
+      upgrades: before.upgrades + 1,
+      upgrade_prerequisites: before.upgrade_prerequisites + 1,
+      activities: before.activities + 1,
+    });
   });
   it('installer and marketing get 403', async () => {
-    for (const role of ['installer', 'marketing'] as const) expect((await as[role].post(url()).send({ title: 'x', area: 'front' })).status).toBe(403);
+    for (const role of ['installer', 'marketing'] as const)
+      expect((await as[role].post(url()).send({ title: 'x', area: 'front' })).status).toBe(403);
   });
   it.each([
     ['title', { title: '' }],
@@ -163,11 +216,25 @@ describe('POST /upgrades', () => {
     const before = await counts(...TABLES);
     const res = await as.producer.post(url()).send({ title: 'Bad input', area: 'front', ...over });
     expect(res.status).toBe(400);
-    expect(res.body.error.fields.some((f: { path: string }) => f.path === field || f.path.startsWith(`${field}.`))).toBe(true);
+    expect(
+      res.body.error.fields.some((f: { path: string }) => f.path === field || f.path.startsWith(`${field}.`)),
+    ).toBe(true);
     expect(await counts(...TABLES)).toEqual(before);
   });
   it('a prerequisite of another build answers 400 naming prerequisiteIds', async () => {
-    const o = await Upgrade.create({ buildId: other, title: 'Elsewhere 2', area: 'front', replaces: null, becomes: null, installedOn: null, episodeId: null, episodePosition: null, notes: null, tireFrom: null, tireTo: null });
+    const o = await Upgrade.create({
+      buildId: other,
+      title: 'Elsewhere 2',
+      area: 'front',
+      replaces: null,
+      becomes: null,
+      installedOn: null,
+      episodeId: null,
+      episodePosition: null,
+      notes: null,
+      tireFrom: null,
+      tireTo: null,
+    });
     const before = await counts(...TABLES);
     const res = await as.producer.post(url()).send({ title: 'Cross', area: 'front', prerequisiteIds: [o.id] });
     expect(res.status).toBe(400);
@@ -175,7 +242,13 @@ describe('POST /upgrades', () => {
     expect(await counts(...TABLES)).toEqual(before);
   });
   it('a wheel upgrade keeps sizes that parse', async () => {
-    const u = await create('producer', { title: 'Winter wheels', area: 'wheels_chassis', safetyFlags: ['wheels_tires', 'wheels_tires'], tireFrom: '235/65R18', tireTo: 'LT245/75R17' });
+    const u = await create('producer', {
+      title: 'Winter wheels',
+      area: 'wheels_chassis',
+      safetyFlags: ['wheels_tires', 'wheels_tires'],
+      tireFrom: '235/65R18',
+      tireTo: 'LT245/75R17',
+    });
     expect(u.safetyFlags).toEqual(['wheels_tires']);
     expect(u.tireTo).toBe('LT245/75R17');
   });
@@ -213,7 +286,9 @@ describe('PATCH /upgrades/:upgradeId', () => {
   });
   it('installer may change install and filming state only', async () => {
     const u = await create('producer', { title: 'Installer work', area: 'cabin' });
-    const ok = await as.installer.patch(url(`/${u.id}`)).send({ version: 0, installState: 'in_bay', installSegment: 'shot' });
+    const ok = await as.installer
+      .patch(url(`/${u.id}`))
+      .send({ version: 0, installState: 'in_bay', installSegment: 'shot' });
     expect(ok.status).toBe(200);
     expect(ok.body.upgrade).toMatchObject({ installState: 'in_bay', installSegment: 'shot' });
     expect(ok.body.upgrade).not.toHaveProperty('valueAddedCents');
@@ -231,8 +306,13 @@ describe('PATCH /upgrades/:upgradeId', () => {
     expect(res.body.error.code).toBe('prerequisites_not_installed');
     expect(res.body.error.message).toContain(wiring.title);
     // Installing the prerequisite first opens the way.
-    expect((await as.installer.patch(url(`/${wiring.id}`)).send({ version: wiring.version, installState: 'installed' })).status).toBe(200);
-    const again = await as.installer.patch(url(`/${brake.id}`)).send({ version: brake.version, installState: 'in_bay' });
+    expect(
+      (await as.installer.patch(url(`/${wiring.id}`)).send({ version: wiring.version, installState: 'installed' }))
+        .status,
+    ).toBe(200);
+    const again = await as.installer
+      .patch(url(`/${brake.id}`))
+      .send({ version: brake.version, installState: 'in_bay' });
     expect(again.status).toBe(200);
     expect((await Upgrade.findByPk(wiring.id))!.installedOn).toMatch(/^\d{4}-\d{2}-\d{2}$/);
   });
@@ -254,7 +334,9 @@ describe('PATCH /upgrades/:upgradeId', () => {
   });
   it('marketing gets 403', async () => {
     const u = await byTitle('Power liftgate');
-    expect((await as.marketing.patch(url(`/${u.id}`)).send({ version: u.version, installSegment: 'shot' })).status).toBe(403);
+    expect(
+      (await as.marketing.patch(url(`/${u.id}`)).send({ version: u.version, installSegment: 'shot' })).status,
+    ).toBe(403);
   });
   it('an episode of another build answers 400 naming episodeId', async () => {
     const u = await create('producer', { title: 'Episode check', area: 'front' });
@@ -286,7 +368,19 @@ describe('PUT /upgrades/:upgradeId/prerequisites', () => {
   it('refuses itself and ids of another build with 400', async () => {
     const a = await create('producer', { title: 'Self', area: 'rear' });
     expect((await as.producer.put(url(`/${a.id}/prerequisites`)).send({ prerequisiteIds: [a.id] })).status).toBe(400);
-    const o = await Upgrade.create({ buildId: other, title: 'Elsewhere 3', area: 'front', replaces: null, becomes: null, installedOn: null, episodeId: null, episodePosition: null, notes: null, tireFrom: null, tireTo: null });
+    const o = await Upgrade.create({
+      buildId: other,
+      title: 'Elsewhere 3',
+      area: 'front',
+      replaces: null,
+      becomes: null,
+      installedOn: null,
+      episodeId: null,
+      episodePosition: null,
+      notes: null,
+      tireFrom: null,
+      tireTo: null,
+    });
     const res = await as.producer.put(url(`/${a.id}/prerequisites`)).send({ prerequisiteIds: [o.id] });
     expect(res.status).toBe(400);
     expect(res.body.error.fields[0].path).toBe('prerequisiteIds');

@@ -17,14 +17,18 @@ describe('users and roles', () => {
 
   it('creates a person with several roles and a temporary password that signs in', async () => {
     const owner = await signInAs('owner');
-    const res = await owner.post('/api/users').send({ email: 'Sam@Cedar-Ridge.test', name: 'Sam Aldana', roles: ['installer', 'marketing'] });
+    const res = await owner
+      .post('/api/users')
+      .send({ email: 'Sam@Cedar-Ridge.test', name: 'Sam Aldana', roles: ['installer', 'marketing'] });
     expect(res.status).toBe(201);
     expect(res.body.user).toMatchObject({ email: 'sam@cedar-ridge.test', roles: ['installer', 'marketing'] });
     const temp = res.body.temporaryPassword as string;
     expect(temp.length).toBeGreaterThanOrEqual(10);
     const sam = await signInAs({ email: 'sam@cedar-ridge.test', password: temp });
     expect((await sam.get('/api/auth/me')).body.user.roles).toEqual(['installer', 'marketing']);
-    const dup = await owner.post('/api/users').send({ email: 'sam@cedar-ridge.test', name: 'Again', roles: ['installer'] });
+    const dup = await owner
+      .post('/api/users')
+      .send({ email: 'sam@cedar-ridge.test', name: 'Again', roles: ['installer'] });
     expect(dup.status).toBe(409);
     expect(dup.body.error.fields[0].path).toBe('email');
   });
@@ -42,7 +46,14 @@ describe('users and roles', () => {
 
   it('a second owner makes demotion possible', async () => {
     const owner = await signInAs('owner');
-    const created = await owner.post('/api/users').send({ email: 'second-owner@cedar-ridge.test', name: 'Second Owner', roles: ['owner'], password: 'second-owner-pw' });
+    const created = await owner
+      .post('/api/users')
+      .send({
+        email: 'second-owner@cedar-ridge.test',
+        name: 'Second Owner',
+        roles: ['owner'],
+        password: 'second-owner-pw',
+      });
     expect(created.status).toBe(201);
     const res = await owner.patch(`/api/users/${created.body.user.id}`).send({ roles: ['producer'] });
     expect(res.status).toBe(200);

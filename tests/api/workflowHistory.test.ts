@@ -16,7 +16,9 @@ describe('the history of an upgrade', () => {
     const created = await producer.post(`/api/builds/${tern.id}/upgrades`).send({ title: 'Cargo net', area: 'rear' });
     expect(created.status).toBe(201);
     const upgradeId = created.body.upgrade.id as number;
-    const part = await producer.post(`/api/builds/${tern.id}/parts`).send({ upgradeId, partNumber: 'CN-100', description: 'Cargo net kit', unitCostCents: 48_900 });
+    const part = await producer
+      .post(`/api/builds/${tern.id}/parts`)
+      .send({ upgradeId, partNumber: 'CN-100', description: 'Cargo net kit', unitCostCents: 48_900 });
     expect(part.status).toBe(201);
 
     const owner = await signInAs('owner');
@@ -28,7 +30,8 @@ describe('the history of an upgrade', () => {
     expect(upgradeRow.readable).toContainEqual({ field: 'Install segment', from: '—', to: 'Not shot' });
     expect(upgradeRow.readable).toContainEqual({ field: 'Area', from: '—', to: 'Rear' });
     const fields = rows.flatMap((r) => r.readable.map((c) => c.field));
-    for (const internal of ['Build', 'Id', 'Version', 'Upgrade', 'Build id', 'Episode position']) expect(fields).not.toContain(internal);
+    for (const internal of ['Build', 'Id', 'Version', 'Upgrade', 'Build id', 'Episode position'])
+      expect(fields).not.toContain(internal);
     expect(JSON.stringify(rows.map((r) => r.readable))).not.toMatch(/48900|not_shot|_id|Cents/);
 
     const installer = await signInAs('installer');

@@ -16,9 +16,22 @@ async function signInAs(role: DemoRole) {
   return agents.get(role)!;
 }
 
-type Ep = { id: number | null; number: number; title: string; state: string; shootDate: string | null; releaseDate: string | null; upgradeIds: number[] };
+type Ep = {
+  id: number | null;
+  number: number;
+  title: string;
+  state: string;
+  shootDate: string | null;
+  releaseDate: string | null;
+  upgradeIds: number[];
+};
 const body = (eps: Ep[], basedOn: number, acceptDateChanges?: number[]) => ({
-  episodes: eps.map((e) => ({ ...(e.id ? { id: e.id } : { title: e.title }), shootDate: e.shootDate, releaseDate: e.releaseDate, upgradeIds: [...e.upgradeIds] })),
+  episodes: eps.map((e) => ({
+    ...(e.id ? { id: e.id } : { title: e.title }),
+    shootDate: e.shootDate,
+    releaseDate: e.releaseDate,
+    upgradeIds: [...e.upgradeIds],
+  })),
   basedOn,
   ...(acceptDateChanges ? { acceptDateChanges } : {}),
 });
@@ -26,8 +39,21 @@ const TABLES = ['episodes', 'activities', 'plan_revisions', 'upgrades'];
 /** The plan as the database holds it: episodes in order with dates and upgrades. */
 async function planNow() {
   const eps = await Episode.findAll({ where: { buildId }, order: [['number', 'ASC']] });
-  const ups = await Upgrade.findAll({ where: { buildId }, order: [['episodePosition', 'ASC'], ['id', 'ASC']] });
-  return eps.map((e) => ({ id: e.id, number: e.number, title: e.title, shootDate: e.shootDate, releaseDate: e.releaseDate, upgradeIds: ups.filter((u) => u.episodeId === e.id).map((u) => u.id) }));
+  const ups = await Upgrade.findAll({
+    where: { buildId },
+    order: [
+      ['episodePosition', 'ASC'],
+      ['id', 'ASC'],
+    ],
+  });
+  return eps.map((e) => ({
+    id: e.id,
+    number: e.number,
+    title: e.title,
+    shootDate: e.shootDate,
+    releaseDate: e.releaseDate,
+    upgradeIds: ups.filter((u) => u.episodeId === e.id).map((u) => u.id),
+  }));
 }
 
 beforeAll(async () => {
@@ -47,9 +73,17 @@ describe('a proposal lists what it changes, and dates of a scheduled episode cha
     const proposed = (answer.proposal.episodes as Ep[]).find((e) => e.id === ep7.id)!;
     expect(proposed.shootDate).not.toBe('2026-11-01');
     const listed = answer.summary.dateChanges.find((d: { id: number }) => d.id === ep7.id);
-    expect(listed).toMatchObject({ number: 7, title: 'Ready to tow', state: 'scheduled', shootDate: ['2026-11-01', proposed.shootDate] });
+    expect(listed).toMatchObject({
+      number: 7,
+      title: 'Ready to tow',
+      state: 'scheduled',
+      shootDate: ['2026-11-01', proposed.shootDate],
+    });
     // Every upgrade the differences call moved is in the summary, and contents changes flag the episode.
-    const movedIds = answer.differences.filter((d: { kind: string }) => d.kind !== 'reordered').map((d: { upgradeId: number }) => d.upgradeId).sort();
+    const movedIds = answer.differences
+      .filter((d: { kind: string }) => d.kind !== 'reordered')
+      .map((d: { upgradeId: number }) => d.upgradeId)
+      .sort();
     expect(answer.summary.moved.map((m: { upgradeId: number }) => m.upgradeId).sort()).toEqual(movedIds);
     for (const e of answer.summary.episodesChanged) expect(e.added.length + e.removed.length).toBeGreaterThan(0);
 
@@ -66,16 +100,26 @@ describe('concurrent applies', () => {
   it('four parallel PUTs of one proposal: one applies, three answer 409 and write nothing', async () => {
     const producer = await signInAs('producer');
     const answer = (await producer.post(`${base}/proposal`).send({})).body;
-    const plan = body(answer.proposal.episodes, answer.planVersion, answer.summary.dateChanges.map((d: { id: number }) => d.id));
+    const plan = body(
+      answer.proposal.episodes,
+      answer.planVersion,
+      answer.summary.dateChanges.map((d: { id: number }) => d.id),
+    );
     const episodesBefore = await Episode.count({ where: { buildId } });
     const newEpisodes = (answer.proposal.episodes as Ep[]).filter((e) => e.id === null).length;
     const results = await Promise.all([1, 2, 3, 4].map(() => producer.put(base).send(plan)));
     expect(results.map((r) => r.status).sort()).toEqual([200, 409, 409, 409]);
     for (const r of results.filter((x) => x.status === 409)) expect(r.body.error.code).toBe('plan_changed');
     expect(await Episode.count({ where: { buildId } })).toBe(episodesBefore + newEpisodes);
-    const [rev] = await sequelize.query<{ n: number }>(`SELECT count(*)::int AS n FROM plan_revisions WHERE build_id = ${buildId}`, { type: 'SELECT' as never });
+    const [rev] = await sequelize.query<{ n: number }>(
+      `SELECT count(*)::int AS n FROM plan_revisions WHERE build_id = ${buildId}`,
+      { type: 'SELECT' as never },
+    );
     expect(rev!.n).toBe(1);
-    const [act] = await sequelize.query<{ n: number }>(`SELECT count(*)::int AS n FROM activities WHERE build_id = ${buildId} AND entity = 'plan'`, { type: 'SELECT' as never });
+    const [act] = await sequelize.query<{ n: number }>(
+      `SELECT count(*)::int AS n FROM activities WHERE build_id = ${buildId} AND entity = 'plan'`,
+      { type: 'SELECT' as never },
+    );
     expect(act!.n).toBe(1);
     expect((await producer.get(base)).body.planVersion).toBe(1);
   });
@@ -85,7 +129,9 @@ describe('concurrent applies', () => {
     const req = await ViewerRequest.create({ buildId, title: 'Bed step', details: null, confirmedAt: new Date() });
     const before = await Upgrade.count({ where: { buildId } });
     const accept = { action: 'accept', newUpgrade: { title: 'Bed step', area: 'rear' }, version: req.version };
-    const results = await Promise.all([1, 2, 3, 4, 5].map(() => marketing.patch(`/api/builds/${buildId}/viewer-requests/${req.id}`).send(accept)));
+    const results = await Promise.all(
+      [1, 2, 3, 4, 5].map(() => marketing.patch(`/api/builds/${buildId}/viewer-requests/${req.id}`).send(accept)),
+    );
     expect(results.map((r) => r.status).sort(), JSON.stringify(results[0]!.body)).toEqual([200, 409, 409, 409, 409]);
     expect(await Upgrade.count({ where: { buildId } })).toBe(before + 1);
     expect(await Upgrade.count({ where: { buildId, title: 'Bed step' } })).toBe(1);
@@ -102,7 +148,13 @@ describe('undo the last plan change', () => {
     version = first.body.planVersion;
     const before = await planNow();
     const answer = (await producer.post(`${base}/proposal`).send({})).body;
-    const applied = await producer.put(base).send(body(answer.proposal.episodes, version, answer.summary.dateChanges.map((d: { id: number }) => d.id)));
+    const applied = await producer.put(base).send(
+      body(
+        answer.proposal.episodes,
+        version,
+        answer.summary.dateChanges.map((d: { id: number }) => d.id),
+      ),
+    );
     expect(applied.status).toBe(200);
     expect(await planNow()).not.toEqual(before);
     const overview = (await producer.get(base)).body;
@@ -124,7 +176,17 @@ describe('undo the last plan change', () => {
     const version = (await producer.get(base)).body.planVersion as number;
     const answer = (await producer.post(`${base}/proposal`).send({})).body;
     expect(answer.summary.moved.length).toBeGreaterThan(0);
-    expect((await producer.put(base).send(body(answer.proposal.episodes, version, answer.summary.dateChanges.map((d: { id: number }) => d.id)))).status).toBe(200);
+    expect(
+      (
+        await producer.put(base).send(
+          body(
+            answer.proposal.episodes,
+            version,
+            answer.summary.dateChanges.map((d: { id: number }) => d.id),
+          ),
+        )
+      ).status,
+    ).toBe(200);
     const moved = answer.summary.moved[0] as { upgradeId: number; title: string };
     await Upgrade.update({ installSegment: 'shot' }, { where: { id: moved.upgradeId } });
     const plan = await planNow();

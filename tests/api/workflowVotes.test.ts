@@ -23,13 +23,17 @@ const stamp = Date.now().toString(36);
 beforeAll(async () => {
   tern = (await Build.findOne({ where: { slug } }))!;
 });
-const openRequest = (title: string) => ViewerRequest.create({ buildId: tern.id, title, details: null, confirmedAt: new Date() });
-const vote = (requestId: number, email: string) => anonymous().post(`/api/public/builds/${slug}/requests/${requestId}/votes`).send({ email });
+const openRequest = (title: string) =>
+  ViewerRequest.create({ buildId: tern.id, title, details: null, confirmedAt: new Date() });
+const vote = (requestId: number, email: string) =>
+  anonymous().post(`/api/public/builds/${slug}/requests/${requestId}/votes`).send({ email });
 const confirmed = (requestId: number) => ViewerVote.count({ where: { requestId, confirmedAt: { [Op.ne]: null } } });
 
 async function confirmAllLinksTo(address: string) {
   await processDueMail();
-  const mails = (await mailsTo(address)).filter((m) => m.to === address || m.to.includes(`<${address}>`) || m.to.split(', ').includes(address));
+  const mails = (await mailsTo(address)).filter(
+    (m) => m.to === address || m.to.includes(`<${address}>`) || m.to.split(', ').includes(address),
+  );
   let ok = 0;
   for (const m of mails) {
     const token = linkIn(m, '/confirm/').split('/confirm/')[1]!;
@@ -82,7 +86,9 @@ describe('caps on unconfirmed votes and requests', () => {
     const address = `busy${stamp}@example.test`;
     const before = await ViewerRequest.count({ where: { buildId: tern.id } });
     for (let i = 0; i < 6; i++) {
-      const res = await anonymous().post(`/api/public/builds/${slug}/requests`).send({ title: `Idea number ${i} from one person`, email: i % 2 ? address : address.replace('@', `+${i}@`) });
+      const res = await anonymous()
+        .post(`/api/public/builds/${slug}/requests`)
+        .send({ title: `Idea number ${i} from one person`, email: i % 2 ? address : address.replace('@', `+${i}@`) });
       expect([202, 429]).toContain(res.status);
     }
     expect(await ViewerVote.count({ where: { emailHash: emailHash(address), confirmedAt: null } })).toBe(4);
@@ -93,7 +99,15 @@ describe('caps on unconfirmed votes and requests', () => {
 describe('the database holds the rule too', () => {
   it('refuses a second confirmed vote of one person on one request', async () => {
     const req = await openRequest('Second confirmed vote');
-    const row = { requestId: req.id, emailHash: emailHash(`twice${stamp}@example.test`), emailSealed: null, email: null, name: null, expiresAt: new Date(Date.now() + 3_600_000), confirmedAt: new Date() };
+    const row = {
+      requestId: req.id,
+      emailHash: emailHash(`twice${stamp}@example.test`),
+      emailSealed: null,
+      email: null,
+      name: null,
+      expiresAt: new Date(Date.now() + 3_600_000),
+      confirmedAt: new Date(),
+    };
     const { newToken } = await import('../../server/services/viewerPrivacy');
     await ViewerVote.create({ ...row, confirmTokenHash: newToken().hash });
     await expect(ViewerVote.create({ ...row, confirmTokenHash: newToken().hash })).rejects.toThrow();

@@ -22,7 +22,9 @@ afterAll(async () => {
 const app = freshAppPerTest();
 
 async function apiGet<T>(s: BrowserSession, p: string): Promise<T> {
-  const res = await s.page.request.get(s.server.url + p, { headers: { 'X-Requested-With': 'Bayslate', Accept: 'application/json' } });
+  const res = await s.page.request.get(s.server.url + p, {
+    headers: { 'X-Requested-With': 'Bayslate', Accept: 'application/json' },
+  });
   expect(res.status(), `${p} answered ${res.status()}`).toBe(200);
   return (await res.json()) as T;
 }
@@ -39,17 +41,29 @@ async function signInTo(s: BrowserSession, role: DemoRole, next: string) {
 /** A photo of noise (does not compress), so its upload takes long enough to watch. */
 async function noisyJpeg(name: string) {
   const file = path.join(dir, name);
-  await sharp({ create: { width: 1400, height: 1000, channels: 3, background: '#5c616b', noise: { type: 'gaussian', mean: 120, sigma: 40 } } })
+  await sharp({
+    create: {
+      width: 1400,
+      height: 1000,
+      channels: 3,
+      background: '#5c616b',
+      noise: { type: 'gaussian', mean: 120, sigma: 40 },
+    },
+  })
     .jpeg({ quality: 95 })
     .toFile(file);
   return file;
 }
 /** True once every <img> in the locator has loaded pixels (the presigned URL worked). */
 async function imagesLoaded(s: BrowserSession, selector: string) {
-  await s.page.waitForFunction((sel) => {
-    const imgs = Array.from(document.querySelectorAll<HTMLImageElement>(sel));
-    return imgs.length > 0 && imgs.every((i) => i.complete && i.naturalWidth > 0);
-  }, selector, { timeout: 15_000 });
+  await s.page.waitForFunction(
+    (sel) => {
+      const imgs = Array.from(document.querySelectorAll<HTMLImageElement>(sel));
+      return imgs.length > 0 && imgs.every((i) => i.complete && i.naturalWidth > 0);
+    },
+    selector,
+    { timeout: 15_000 },
+  );
 }
 
 describe('media in the browser', () => {
@@ -58,7 +72,10 @@ describe('media in the browser', () => {
     try {
       const buildId = await ternId();
       await signInTo(s, 'installer', `/builds/${buildId}/media`);
-      const { upgrades } = await apiGet<{ upgrades: { id: number; title: string }[] }>(s, `/api/builds/${buildId}/upgrades?pageSize=500`);
+      const { upgrades } = await apiGet<{ upgrades: { id: number; title: string }[] }>(
+        s,
+        `/api/builds/${buildId}/upgrades?pageSize=500`,
+      );
       const wiring = upgrades.find((u) => u.title === 'Trailer wiring, 7-pin')!;
       const before = (await apiGet<{ total: number }>(s, `/api/builds/${buildId}/media?upgradeId=${wiring.id}`)).total;
 
@@ -74,33 +91,62 @@ describe('media in the browser', () => {
       // A slow uplink, as in a bay, so the progress is visible while it moves.
       const cdp = await s.context.newCDPSession(s.page);
       await cdp.send('Network.enable');
-      await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 20, downloadThroughput: -1, uploadThroughput: 400 * 1024 });
+      await cdp.send('Network.emulateNetworkConditions', {
+        offline: false,
+        latency: 20,
+        downloadThroughput: -1,
+        uploadThroughput: 400 * 1024,
+      });
       const files = [await noisyJpeg('wiring-loom-1.jpg'), await noisyJpeg('wiring-loom-2.jpg')];
       await input.setInputFiles(files);
       const bars = s.page.locator('[data-test="upload-progress"]');
       await bars.first().waitFor();
       expect(await bars.count()).toBe(2);
       // Part-way: some bytes sent, not all.
-      await s.page.waitForFunction(() => {
-        const b = document.querySelector<HTMLProgressElement>('[data-test="upload-progress"]');
-        return !!b && b.value > 0 && b.value < 100;
-      }, null, { timeout: 20_000 });
+      await s.page.waitForFunction(
+        () => {
+          const b = document.querySelector<HTMLProgressElement>('[data-test="upload-progress"]');
+          return !!b && b.value > 0 && b.value < 100;
+        },
+        null,
+        { timeout: 20_000 },
+      );
       await s.page.getByRole('button', { name: 'Cancel upload of wiring-loom-1.jpg' }).waitFor();
       await audit(s, 'media library, uploads in progress (phone)');
-      await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput: -1 });
+      await cdp.send('Network.emulateNetworkConditions', {
+        offline: false,
+        latency: 0,
+        downloadThroughput: -1,
+        uploadThroughput: -1,
+      });
 
-      await s.page.waitForFunction(() => {
-        const st = Array.from(document.querySelectorAll('[data-test="upload-status"]')).map((e) => e.textContent);
-        return st.length === 2 && st.every((t) => t === 'Uploaded');
-      }, null, { timeout: 30_000 });
-      expect(await s.page.locator('[data-test="upload-progress"]').evaluateAll((els) => els.map((e) => (e as HTMLProgressElement).value))).toEqual([100, 100]);
+      await s.page.waitForFunction(
+        () => {
+          const st = Array.from(document.querySelectorAll('[data-test="upload-status"]')).map((e) => e.textContent);
+          return st.length === 2 && st.every((t) => t === 'Uploaded');
+        },
+        null,
+        { timeout: 30_000 },
+      );
+      expect(
+        await s.page
+          .locator('[data-test="upload-progress"]')
+          .evaluateAll((els) => els.map((e) => (e as HTMLProgressElement).value)),
+      ).toEqual([100, 100]);
       // They appear in the upgrade's grid, with thumbnails that load.
       await s.page.locator('.cell', { hasText: 'wiring-loom-1.jpg' }).waitFor();
       await s.page.locator('.cell', { hasText: 'wiring-loom-2.jpg' }).waitFor();
       await imagesLoaded(s, '[data-test="media-grid"] img');
-      const after = await apiGet<{ total: number; media: { originalName: string; stage: string; upgradeId: number }[] }>(s, `/api/builds/${buildId}/media?upgradeId=${wiring.id}`);
+      const after = await apiGet<{
+        total: number;
+        media: { originalName: string; stage: string; upgradeId: number }[];
+      }>(s, `/api/builds/${buildId}/media?upgradeId=${wiring.id}`);
       expect(after.total).toBe(before + 2);
-      expect(after.media.filter((m) => m.originalName.startsWith('wiring-loom')).every((m) => m.stage === 'after' && m.upgradeId === wiring.id)).toBe(true);
+      expect(
+        after.media
+          .filter((m) => m.originalName.startsWith('wiring-loom'))
+          .every((m) => m.stage === 'after' && m.upgradeId === wiring.id),
+      ).toBe(true);
       await audit(s, 'media library after upload (phone)');
 
       // A file that is not a photo is refused with a message, per file.
@@ -125,7 +171,9 @@ describe('media in the browser', () => {
       await imagesLoaded(s, '[data-test="media-grid"] img');
       expect(await s.page.locator('[data-test="media-thumb"]').count()).toBeGreaterThanOrEqual(8);
       // The grid loads thumbnails, never the full-size objects.
-      const srcs = await s.page.locator('[data-test="media-grid"] img').evaluateAll((els) => els.map((e) => (e as HTMLImageElement).src));
+      const srcs = await s.page
+        .locator('[data-test="media-grid"] img')
+        .evaluateAll((els) => els.map((e) => (e as HTMLImageElement).src));
       expect(srcs.every((u) => u.includes('.thumb.webp'))).toBe(true);
 
       // Filter by stage.
@@ -142,7 +190,10 @@ describe('media in the browser', () => {
       await imagesLoaded(s, '[data-test="media-preview"] img');
       await audit(s, 'media preview');
       await dialog.getByLabel('Caption').fill('Bare roof, plugs still in, before the rails');
-      await outcomeOf(s.page, () => dialog.getByRole('button', { name: 'Save' }).click(), { request: { method: 'PATCH', path: /\/media\/\d+$/ }, toast: 'Saved.' });
+      await outcomeOf(s.page, () => dialog.getByRole('button', { name: 'Save' }).click(), {
+        request: { method: 'PATCH', path: /\/media\/\d+$/ },
+        toast: 'Saved.',
+      });
       await s.page.keyboard.press('Escape');
       await s.page.getByText('Bare roof, plugs still in, before the rails').waitFor();
 
@@ -154,8 +205,14 @@ describe('media in the browser', () => {
       await s.page.getByRole('button', { name: 'Keep it' }).click();
       await dialog.waitFor();
       await dialog.getByRole('button', { name: 'Delete' }).click();
-      await outcomeOf(s.page, () => s.page.locator('.n-dialog').getByRole('button', { name: 'Delete' }).click(), { request: { method: 'DELETE', path: /\/media\/\d+$/ }, toast: 'Deleted.' });
-      await s.page.locator('[data-test="media-grid"]').getByText('Bare roof, plugs still in, before the rails').waitFor({ state: 'detached' });
+      await outcomeOf(s.page, () => s.page.locator('.n-dialog').getByRole('button', { name: 'Delete' }).click(), {
+        request: { method: 'DELETE', path: /\/media\/\d+$/ },
+        toast: 'Deleted.',
+      });
+      await s.page
+        .locator('[data-test="media-grid"]')
+        .getByText('Bare roof, plugs still in, before the rails')
+        .waitFor({ state: 'detached' });
     } finally {
       await s.close();
     }
@@ -171,7 +228,9 @@ describe('media in the browser', () => {
       await s.page.getByRole('button', { name: 'Open Projectors aimed on the wall chart' }).click();
       await s.page.locator('[data-test="media-preview"]').waitFor();
       expect(await s.page.getByLabel('Caption').count()).toBe(0);
-      expect(await s.page.locator('[data-test="media-preview"]').getByRole('button', { name: 'Delete' }).count()).toBe(0);
+      expect(await s.page.locator('[data-test="media-preview"]').getByRole('button', { name: 'Delete' }).count()).toBe(
+        0,
+      );
       await audit(s, 'media preview for marketing');
     } finally {
       await s.close();

@@ -36,23 +36,50 @@ describe('build overview in the browser', () => {
       await s.page.getByRole('heading', { name: 'Overview', level: 1 }).waitFor();
       await s.page.locator('[data-test="figure-net"]').waitFor();
       const expected = await buildOverview(tern);
-      expect(await s.page.locator('[data-test="figure-net"]').textContent()).toBe(formatCents(expected.headline.netCents));
-      expect(await s.page.locator('[data-test="figure-remaining"]').textContent()).toBe(formatCents(expected.headline.remainingCents));
-      expect(await s.page.locator('[data-test="figure-forecast"]').textContent()).toBe(formatCents(expected.headline.forecastCents));
-      expect(await s.page.locator('[data-test="figure-upgrades"]').textContent()).toBe(`${expected.headline.upgradesDone} / ${expected.headline.upgradesTotal}`);
-      expect(await s.page.locator('[data-test="figure-episodes"]').textContent()).toBe(`${expected.headline.episodesLive} / ${expected.headline.episodesTotal}`);
+      expect(await s.page.locator('[data-test="figure-net"]').textContent()).toBe(
+        formatCents(expected.headline.netCents),
+      );
+      expect(await s.page.locator('[data-test="figure-remaining"]').textContent()).toBe(
+        formatCents(expected.headline.remainingCents),
+      );
+      expect(await s.page.locator('[data-test="figure-forecast"]').textContent()).toBe(
+        formatCents(expected.headline.forecastCents),
+      );
+      expect(await s.page.locator('[data-test="figure-upgrades"]').textContent()).toBe(
+        `${expected.headline.upgradesDone} / ${expected.headline.upgradesTotal}`,
+      );
+      expect(await s.page.locator('[data-test="figure-episodes"]').textContent()).toBe(
+        `${expected.headline.episodesLive} / ${expected.headline.episodesTotal}`,
+      );
       expect(await s.page.locator('[data-test="credit-rule"]').textContent()).toContain('0/100');
       // The plan of work, its reserve, actual cost as recognised, and the forecast's own formula.
-      expect(await s.page.locator('[data-test="figure-reserve"]').textContent()).toBe(formatCents(expected.headline.reserveCents));
-      expect(await s.page.locator('[data-test="figure-actual"]').textContent()).toBe(formatCents(expected.headline.actualCents));
+      expect(await s.page.locator('[data-test="figure-reserve"]').textContent()).toBe(
+        formatCents(expected.headline.reserveCents),
+      );
+      expect(await s.page.locator('[data-test="figure-actual"]').textContent()).toBe(
+        formatCents(expected.headline.actualCents),
+      );
       const formula = (await s.page.locator('[data-test="formula-forecast"]').textContent()) ?? '';
       expect(formula).toContain(formatCents(expected.headline.actualCents));
       expect(formula).toContain(formatCents(expected.headline.etcCents));
       expect(formula).toContain('$95.00/h');
       const cash = (await s.page.locator('[data-test="cash-view"]').textContent()) ?? '';
-      for (const c of [expected.headline.cash.paidCents, expected.headline.cash.committedCents, expected.headline.cash.notOrderedCents, expected.headline.netCents]) expect(cash).toContain(formatCents(c));
+      for (const c of [
+        expected.headline.cash.paidCents,
+        expected.headline.cash.committedCents,
+        expected.headline.cash.notOrderedCents,
+        expected.headline.netCents,
+      ])
+        expect(cash).toContain(formatCents(c));
       const estimates = (await s.page.locator('[data-test="index-estimates"]').textContent()) ?? '';
-      for (const f of ['BAC ÷ CPI', 'AC + (BAC − EV)', 'AC + (BAC − EV) ÷ (CPI × SPI)', '(BAC − EV) ÷ (BAC − AC)', '(BAC − EV) ÷ (forecast − AC)']) expect(estimates).toContain(f);
+      for (const f of [
+        'BAC ÷ CPI',
+        'AC + (BAC − EV)',
+        'AC + (BAC − EV) ÷ (CPI × SPI)',
+        '(BAC − EV) ÷ (BAC − AC)',
+        '(BAC − EV) ÷ (forecast − AC)',
+      ])
+        expect(estimates).toContain(f);
       const text = (await s.page.locator('main').textContent()) ?? '';
       expect(text).not.toMatch(/NaN|Infinity|undefined/);
       expect(await s.page.locator('canvas').count()).toBeGreaterThanOrEqual(4);
@@ -67,19 +94,27 @@ describe('build overview in the browser', () => {
       await audit(s, 'overview, cost table open');
 
       // The CSV export offers a file with every upgrade's row.
-      const [download] = await Promise.all([s.page.waitForEvent('download'), costPanel.getByRole('button', { name: 'Export Cost per upgrade as CSV' }).click()]);
+      const [download] = await Promise.all([
+        s.page.waitForEvent('download'),
+        costPanel.getByRole('button', { name: 'Export Cost per upgrade as CSV' }).click(),
+      ]);
       expect(download.suggestedFilename()).toBe('cost-per-upgrade.csv');
       const csv = await (await import('node:fs/promises')).readFile((await download.path())!, 'utf8');
       expect(csv.split('\r\n')[0]).toBe('Upgrade,Parts (USD),Labour (USD),Other (USD),Recovered (USD),Net (USD)');
       expect(csv.trim().split('\r\n')).toHaveLength(expected.upgrades.length + 1);
       // The PNG export is the chart's own picture.
-      const [png] = await Promise.all([s.page.waitForEvent('download'), costPanel.getByRole('button', { name: 'Export Cost per upgrade as PNG' }).click()]);
+      const [png] = await Promise.all([
+        s.page.waitForEvent('download'),
+        costPanel.getByRole('button', { name: 'Export Cost per upgrade as PNG' }).click(),
+      ]);
       expect(png.suggestedFilename()).toBe('cost-per-upgrade.png');
       const bytes = await (await import('node:fs/promises')).readFile((await png.path())!);
       expect(bytes.subarray(1, 4).toString()).toBe('PNG');
 
       await row.first().getByRole('link', { name: costliest.title }).click();
-      await s.page.waitForURL((u) => u.pathname.endsWith('/backlog') && u.searchParams.get('upgrade') === String(costliest.upgradeId));
+      await s.page.waitForURL(
+        (u) => u.pathname.endsWith('/backlog') && u.searchParams.get('upgrade') === String(costliest.upgradeId),
+      );
     } finally {
       await s.close();
     }
@@ -109,7 +144,19 @@ describe('build overview in the browser', () => {
   });
 
   it('a build with no budget, no labour rate and no upgrades says what to do next and shows dashes', async () => {
-    const empty = await Build.create({ slug: 'overview-empty', name: 'Empty build', year: 2020, make: 'Halvorsen', model: 'Skua', vin: null, mileage: null, budgetCents: null, labourRateCents: null, campaign: null, summary: null });
+    const empty = await Build.create({
+      slug: 'overview-empty',
+      name: 'Empty build',
+      year: 2020,
+      make: 'Halvorsen',
+      model: 'Skua',
+      vin: null,
+      mileage: null,
+      budgetCents: null,
+      labourRateCents: null,
+      campaign: null,
+      summary: null,
+    });
     const s = await openBrowser({ server });
     try {
       await signInQuick(s, 'producer');
@@ -135,7 +182,11 @@ describe('build overview in the browser', () => {
       await signInQuick(s, 'owner');
       await s.page.goto(`${server.url}/builds/${tern.id}/overview`);
       await s.page.locator('[data-test="figure-forecast"]').waitFor();
-      const bg = (sel: string) => s.page.locator(sel).first().evaluate((el) => getComputedStyle(el).backgroundColor);
+      const bg = (sel: string) =>
+        s.page
+          .locator(sel)
+          .first()
+          .evaluate((el) => getComputedStyle(el).backgroundColor);
       // theme.ts palette.graphite800 (#25272b) is the dark panel colour; white would be rgb(255, 255, 255).
       expect(await bg('.card')).toBe('rgb(37, 39, 43)');
       expect(await bg('#chart-burndown-title >> xpath=ancestor::section[1]')).toBe('rgb(37, 39, 43)');
@@ -146,7 +197,19 @@ describe('build overview in the browser', () => {
   });
 
   it('the owner sets the shop clock and cost recognition in the build settings, and the overview follows', async () => {
-    const b = await Build.create({ slug: `overview-clock-${Date.now().toString(36)}`, name: 'Clock build', year: 2021, make: 'Halvorsen', model: 'Skua', vin: null, mileage: null, budgetCents: 1_000_000, labourRateCents: 10_000, campaign: null, summary: null });
+    const b = await Build.create({
+      slug: `overview-clock-${Date.now().toString(36)}`,
+      name: 'Clock build',
+      year: 2021,
+      make: 'Halvorsen',
+      model: 'Skua',
+      vin: null,
+      mileage: null,
+      budgetCents: 1_000_000,
+      labourRateCents: 10_000,
+      campaign: null,
+      summary: null,
+    });
     const s = await openBrowser({ server });
     try {
       await signInQuick(s, 'owner');

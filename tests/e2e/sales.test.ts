@@ -11,7 +11,10 @@ let buildId: number;
 let tern: Build;
 
 async function signInQuick(s: BrowserSession, role: DemoRole) {
-  const res = await s.page.request.post(`${server.url}/api/auth/login`, { data: { email: DEMO_EMAIL[role], password: DEMO_PASSWORD }, headers: { 'X-Requested-With': 'Bayslate' } });
+  const res = await s.page.request.post(`${server.url}/api/auth/login`, {
+    data: { email: DEMO_EMAIL[role], password: DEMO_PASSWORD },
+    headers: { 'X-Requested-With': 'Bayslate' },
+  });
   expect(res.status()).toBe(200);
 }
 
@@ -19,18 +22,60 @@ beforeAll(async () => {
   server = await startAppServer();
   tern = (await Build.findOne({ where: { slug: 'project-tern' } }))!;
   // A build with one live episode showing kit E2E-KIT (cost 120.00) and nothing sold yet.
-  const b = await Build.create({ slug: 'sales-e2e', name: 'Sales journey', year: 2021, make: 'Halvorsen', model: 'Tern', vin: null, mileage: null, budgetCents: 500_000, labourRateCents: 0, campaign: 'sales-e2e', summary: null });
+  const b = await Build.create({
+    slug: 'sales-e2e',
+    name: 'Sales journey',
+    year: 2021,
+    make: 'Halvorsen',
+    model: 'Tern',
+    vin: null,
+    mileage: null,
+    budgetCents: 500_000,
+    labourRateCents: 0,
+    campaign: 'sales-e2e',
+    summary: null,
+  });
   buildId = b.id;
-  const ep = await Episode.create({ buildId, number: 1, title: 'The kit episode', state: 'live', shootDate: '2026-10-01', releaseDate: '2026-10-05', summary: null, videoUrl: null, runtimeSeconds: null, publishedAt: null });
+  const ep = await Episode.create({
+    buildId,
+    number: 1,
+    title: 'The kit episode',
+    state: 'live',
+    shootDate: '2026-10-01',
+    releaseDate: '2026-10-05',
+    summary: null,
+    videoUrl: null,
+    runtimeSeconds: null,
+    publishedAt: null,
+  });
   const u = await Upgrade.create({ buildId, title: 'Kit upgrade', area: 'front', episodeId: ep.id } as never);
-  await Part.create({ buildId, upgradeId: u.id, partNumber: 'E2E-KIT', description: 'The kit', quantity: 1, unitCostCents: 12_000, retailPriceCents: 24_900, supplier: null, productUrl: null, expectedArrival: null, orderedOn: '2026-09-28', receivedOn: null, state: 'ordered' } as never);
+  await Part.create({
+    buildId,
+    upgradeId: u.id,
+    partNumber: 'E2E-KIT',
+    description: 'The kit',
+    quantity: 1,
+    unitCostCents: 12_000,
+    retailPriceCents: 24_900,
+    supplier: null,
+    productUrl: null,
+    expectedArrival: null,
+    orderedOn: '2026-09-28',
+    receivedOn: null,
+    state: 'ordered',
+  } as never);
 });
 afterAll(async () => {
   await server?.stop();
 });
 
 // "Placed" is no header word Bayslate guesses, so the person picks it in the mapping step.
-const EXPORT = ['Order,Line,Placed,SKU,Qty,Total,Currency,Campaign,Content', 'W1,1,2026-10-06,E2E-KIT,2,498.00,USD,sales-e2e,episode-1', 'W2,1,2026-10-09,E2E-KIT,1,249.00,USD,,', 'W3,1,2026-10-10,GIFT-CARD,1,25.00,USD,,'].join('\n');
+const EXPORT = [
+  'Order,Line,Placed,SKU,Qty,Total,Currency,Campaign,Content',
+  'W1,1,2026-10-06,E2E-KIT,2,498.00,USD,sales-e2e,episode-1',
+  'W2,1,2026-10-09,E2E-KIT,1,249.00,USD,,',
+  'W3,1,2026-10-10,GIFT-CARD,1,25.00,USD,,',
+].join('\n');
 
 describe('sales in the browser', () => {
   it('the owner imports through the mapping step, sees the preview and the table with margin', async () => {
@@ -42,7 +87,9 @@ describe('sales in the browser', () => {
       await s.page.getByText('No sales yet.').waitFor();
       await audit(s, 'sales, empty');
 
-      await s.page.locator('[data-test="sales-file"]').setInputFiles({ name: 'orders.csv', mimeType: 'text/csv', buffer: Buffer.from(EXPORT) });
+      await s.page
+        .locator('[data-test="sales-file"]')
+        .setInputFiles({ name: 'orders.csv', mimeType: 'text/csv', buffer: Buffer.from(EXPORT) });
       await s.page.getByText('Still to pick: Order date.').waitFor();
       await s.page.getByRole('radio', { name: 'Campaign and content columns' }).check({ force: true });
       await s.page.locator('[data-test="map-date"]').click();
@@ -84,7 +131,11 @@ describe('sales in the browser', () => {
       await s.page.goto(`${server.url}/builds/${tern.id}/sales`);
       await s.page.locator('[data-test="sales-direct-revenue"]').waitFor();
       expect(await s.page.locator('[data-test="sales-direct-revenue"]').textContent()).toMatch(/^\$[\d,]+\.\d\d$/);
-      await s.page.locator('[data-test="sales-episodes"]').getByRole('row').filter({ hasText: 'First light' }).waitFor();
+      await s.page
+        .locator('[data-test="sales-episodes"]')
+        .getByRole('row')
+        .filter({ hasText: 'First light' })
+        .waitFor();
       expect(await s.page.locator('[data-test="sales-margin"]').count()).toBe(0);
       expect(await s.page.locator('[data-test="sales-net-cost"]').count()).toBe(0);
       const main = (await s.page.locator('main').textContent()) ?? '';

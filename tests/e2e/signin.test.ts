@@ -23,7 +23,8 @@ describe('sign-in in the browser', () => {
         await signIn(s, role);
         const nav = s.page.getByRole('navigation', { name: 'Main navigation' });
         for (const label of expectations[role].sees) await nav.getByRole('link', { name: label }).waitFor();
-        for (const label of expectations[role].hidden) expect(await nav.getByRole('link', { name: label }).count()).toBe(0);
+        for (const label of expectations[role].hidden)
+          expect(await nav.getByRole('link', { name: label }).count()).toBe(0);
         if (role === 'owner') {
           await nav.getByRole('link', { name: 'Users & roles' }).click();
           await s.page.getByRole('heading', { name: 'Users & roles' }).waitFor();
@@ -56,7 +57,9 @@ describe('sign-in in the browser', () => {
       await dialog.getByLabel('Name').fill('Pia Sandoval');
       await dialog.getByLabel('E-mail').fill('pia@cedar-ridge.test');
       await dialog.getByRole('checkbox', { name: 'installer' }).click();
-      await outcomeOf(s.page, () => dialog.getByRole('button', { name: 'Add', exact: true }).click(), { request: { method: 'POST', path: '/api/users' } });
+      await outcomeOf(s.page, () => dialog.getByRole('button', { name: 'Add', exact: true }).click(), {
+        request: { method: 'POST', path: '/api/users' },
+      });
       await dialog.getByText('Temporary password').waitFor();
       await dialog.getByRole('button', { name: 'Close' }).click();
       const row = s.page.getByRole('row').filter({ hasText: 'pia@cedar-ridge.test' });
@@ -64,7 +67,9 @@ describe('sign-in in the browser', () => {
       await row.getByRole('button', { name: 'Deactivate' }).click();
       await s.page.getByRole('dialog', { name: 'Deactivate Pia Sandoval?' }).waitFor();
       await audit(s, 'deactivate confirmation');
-      await outcomeOf(s.page, () => s.page.getByRole('button', { name: 'Deactivate', exact: true }).last().click(), { request: { method: 'PATCH', path: /^\/api\/users\/\d+$/ } });
+      await outcomeOf(s.page, () => s.page.getByRole('button', { name: 'Deactivate', exact: true }).last().click(), {
+        request: { method: 'PATCH', path: /^\/api\/users\/\d+$/ },
+      });
       await row.getByText('Deactivated').waitFor();
       await s.page.getByRole('link', { name: 'My account' }).click();
       await s.page.getByRole('heading', { name: 'Change password' }).waitFor();
@@ -80,7 +85,9 @@ describe('sign-in in the browser', () => {
       await s.page.goto(`${s.server.url}/sign-in`);
       await s.page.getByLabel('E-mail').fill('owner@cedar-ridge.test');
       await s.page.getByLabel('Password', { exact: true }).fill('wrong-password');
-      await outcomeOf(s.page, () => s.page.getByRole('button', { name: 'Sign in' }).click(), { request: { method: 'POST', path: '/api/auth/login', status: 401 } });
+      await outcomeOf(s.page, () => s.page.getByRole('button', { name: 'Sign in' }).click(), {
+        request: { method: 'POST', path: '/api/auth/login', status: 401 },
+      });
       await s.page.getByRole('alert').filter({ hasText: 'do not match' }).waitFor();
       expect(new URL(s.page.url()).pathname).toBe('/sign-in');
       await audit(s);

@@ -31,10 +31,16 @@ describe('every screen in both themes', () => {
       const buildId = await ternId(app.db);
       // An invitation of our own for the welcome page (only the token's hash is stored).
       const token = randomBytes(24).toString('base64url');
-      const [marketing] = await app.db.sql<{ id: number }>(`SELECT id FROM users WHERE email = $1`, [DEMO_EMAIL.marketing]);
-      await app.db.sql(`INSERT INTO invitation_links (user_id, token_hash, expires_at) VALUES ($1, $2, now() + interval '1 day')`, [marketing!.id, tokenHash(token)]);
+      const [marketing] = await app.db.sql<{ id: number }>(`SELECT id FROM users WHERE email = $1`, [
+        DEMO_EMAIL.marketing,
+      ]);
+      await app.db.sql(
+        `INSERT INTO invitation_links (user_id, token_hash, expires_at) VALUES ($1, $2, now() + interval '1 day')`,
+        [marketing!.id, tokenHash(token)],
+      );
 
-      const mode = async (): Promise<ColourMode> => ((await page.evaluate(() => localStorage.getItem('bayslate.mode'))) === 'dark' ? 'dark' : 'light');
+      const mode = async (): Promise<ColourMode> =>
+        (await page.evaluate(() => localStorage.getItem('bayslate.mode'))) === 'dark' ? 'dark' : 'light';
       /** The mode the page draws in, read from the page itself (the root's theme variables). */
       const drawn = async () => page.evaluate(() => document.documentElement.dataset.mode);
       const check = async (label: string, ready: Locator) => {
@@ -47,7 +53,8 @@ describe('every screen in both themes', () => {
           failures.push((e as Error).message);
         }
         (modes[label] ??= []).push(m);
-        if (allScreens) await page.screenshot({ path: path.join(allScreens, `${label.replace(/\W+/g, '-')}-${m}.png`) });
+        if (allScreens)
+          await page.screenshot({ path: path.join(allScreens, `${label.replace(/\W+/g, '-')}-${m}.png`) });
       };
       /** Switches mode as a person would where the menu rail is on screen, else as a returning visitor. */
       const flip = async (withToggle: boolean) => {
@@ -67,7 +74,10 @@ describe('every screen in both themes', () => {
         await check(label, ready());
       };
       const shoot = async (name: string) => {
-        if (screens) await page.screenshot({ path: path.join(screens, `themes-${name}-${page.viewportSize()!.width}-${await mode()}.png`) });
+        if (screens)
+          await page.screenshot({
+            path: path.join(screens, `themes-${name}-${page.viewportSize()!.width}-${await mode()}.png`),
+          });
       };
       const h1 = (name: string | RegExp) => page.getByRole('heading', { level: 1, name });
       const go = (p: string) => page.goto(app.server.url + p);
@@ -100,14 +110,22 @@ describe('every screen in both themes', () => {
         ['users', '/users', () => page.getByRole('cell', { name: DEMO_EMAIL.installer })],
         ['overview', `${b}/overview`, () => page.locator('[data-test="figure-net"]')],
         ['build report', `${b}/report`, () => page.getByRole('heading', { name: 'Earned value' })],
-        ['backlog', `${b}/backlog`, () => page.locator('[data-test^="open-"]', { hasText: 'Projector LED headlamps' }).first()],
+        [
+          'backlog',
+          `${b}/backlog`,
+          () => page.locator('[data-test^="open-"]', { hasText: 'Projector LED headlamps' }).first(),
+        ],
         ['parts', `${b}/parts`, () => page.locator('[data-test^="part-"]').first()],
         ['media', `${b}/media`, () => page.locator('[data-test="media-thumb"]').first()],
         ['planner', `${b}/planner`, () => page.locator('[data-test="episode-1"]')],
         ['shop floor', `${b}/shop-floor`, () => page.getByRole('heading', { level: 2, name: /^Episode \d+:/ })],
         ['publish', `${b}/publish`, () => page.locator('[data-test="episode-picker"]')],
         ['sales', `${b}/sales`, () => page.locator('[data-test="sales-margin"]')],
-        ['viewer requests', `${b}/viewer-requests`, () => page.locator('[data-test="requests-table"] tbody tr').first()],
+        [
+          'viewer requests',
+          `${b}/viewer-requests`,
+          () => page.locator('[data-test="requests-table"] tbody tr').first(),
+        ],
         ['build settings', `${b}/settings`, () => page.locator('[data-test="time-zone"]')],
       ];
       for (const [label, p, ready] of signedIn) {
@@ -136,7 +154,8 @@ describe('every screen in both themes', () => {
         await page.locator('.n-drawer').waitFor({ state: 'detached' });
 
         await page.locator('[data-test="new-upgrade"]').click();
-        const dialogReady = () => page.getByRole('dialog', { name: 'New upgrade' }).getByRole('button', { name: 'Add to the backlog' });
+        const dialogReady = () =>
+          page.getByRole('dialog', { name: 'New upgrade' }).getByRole('button', { name: 'Add to the backlog' });
         await check(`new upgrade dialog ${width}`, dialogReady());
         await shoot('dialog');
         await flip(false);
@@ -157,9 +176,14 @@ describe('every screen in both themes', () => {
         await shoot('picker');
       }
 
-      console.log(`[themes] audited ${s.audited.length} views: ${Object.entries(modes).map(([k, v]) => `${k} [${v.join(', ')}]`).join('; ')}`);
+      console.log(
+        `[themes] audited ${s.audited.length} views: ${Object.entries(modes)
+          .map(([k, v]) => `${k} [${v.join(', ')}]`)
+          .join('; ')}`,
+      );
       expect(failures, failures.join('\n')).toEqual([]);
-      for (const [label, ms] of Object.entries(modes)) expect(new Set(ms), `${label} audited in both modes`).toEqual(new Set(['light', 'dark']));
+      for (const [label, ms] of Object.entries(modes))
+        expect(new Set(ms), `${label} audited in both modes`).toEqual(new Set(['light', 'dark']));
     } finally {
       await s.close();
       await app.stop();

@@ -12,10 +12,19 @@ import { outcomeOf } from '../helpers/outcome';
 const app = freshAppPerTest({ MAIL_WORKER: '1', MAIL_POLL_MS: '150' });
 
 /** A call to our API from inside the signed-in page (its cookies, our cross-site header). */
-async function apiFromPage<T>(s: BrowserSession, method: string, url: string, body?: unknown): Promise<{ status: number; body: T }> {
+async function apiFromPage<T>(
+  s: BrowserSession,
+  method: string,
+  url: string,
+  body?: unknown,
+): Promise<{ status: number; body: T }> {
   return s.page.evaluate(
     async ([m, u, b]) => {
-      const res = await fetch(u as string, { method: m as string, headers: { 'Content-Type': 'application/json', 'X-Requested-With': 'Bayslate' }, body: b === undefined ? undefined : JSON.stringify(b) });
+      const res = await fetch(u as string, {
+        method: m as string,
+        headers: { 'Content-Type': 'application/json', 'X-Requested-With': 'Bayslate' },
+        body: b === undefined ? undefined : JSON.stringify(b),
+      });
       return { status: res.status, body: await res.json().catch(() => null) };
     },
     [method, url, body] as const,
@@ -27,7 +36,12 @@ describe('viewer story', () => {
     const db = app().db;
     const tern = { id: await ternId(db) };
     const episodeRow = async () =>
-      (await db.sql<{ id: number; title: string; state: string; videoUrl: string | null }>(`SELECT id, title, state, video_url AS "videoUrl" FROM episodes WHERE build_id = $1 AND number = 10`, [tern.id]))[0];
+      (
+        await db.sql<{ id: number; title: string; state: string; videoUrl: string | null }>(
+          `SELECT id, title, state, video_url AS "videoUrl" FROM episodes WHERE build_id = $1 AND number = 10`,
+          [tern.id],
+        )
+      )[0];
     const episode = await episodeRow();
     expect(episode.state).not.toBe('live');
     const email = uniqueAddress('story');
@@ -44,13 +58,17 @@ describe('viewer story', () => {
       await viewer.page.getByRole('button', { name: 'Send my request' }).click();
       await viewer.page.getByText('Upgrade must be at least 3 characters').waitFor();
       await viewer.page.getByLabel('What upgrade should we do?').fill(wish);
-      await viewer.page.getByLabel('Details (optional)').fill('Soft light on the cargo sill when the liftgate opens. <b>please</b>');
+      await viewer.page
+        .getByLabel('Details (optional)')
+        .fill('Soft light on the cargo sill when the liftgate opens. <b>please</b>');
       const emailBox = viewer.page.locator('#rf-new-email');
       await emailBox.fill('not-an-address');
       await viewer.page.getByRole('button', { name: 'Send my request' }).click();
       await viewer.page.getByText('E-mail must be an e-mail address').waitFor();
       await emailBox.fill(email);
-      await outcomeOf(viewer.page, () => viewer.page.getByRole('button', { name: 'Send my request' }).click(), { request: { method: 'POST', path: '/api/public/builds/project-tern/requests' } });
+      await outcomeOf(viewer.page, () => viewer.page.getByRole('button', { name: 'Send my request' }).click(), {
+        request: { method: 'POST', path: '/api/public/builds/project-tern/requests' },
+      });
       await viewer.page.getByRole('status').filter({ hasText: 'confirmation mail is on its way' }).waitFor();
       await audit(viewer, 'public page after a request');
 
@@ -58,7 +76,10 @@ describe('viewer story', () => {
       await waitForMails(email, 1);
       await visit(viewer, '/dev/mail');
       // The subject is fixed (no viewer text in it): this viewer's mail is the row with their address.
-      await viewer.page.getByRole('row', { name: new RegExp(email.replace(/[.+]/g, '\\$&')) }).getByRole('link', { name: 'Confirm your vote on the Project Tern build' }).click();
+      await viewer.page
+        .getByRole('row', { name: new RegExp(email.replace(/[.+]/g, '\\$&')) })
+        .getByRole('link', { name: 'Confirm your vote on the Project Tern build' })
+        .click();
       await viewer.page.getByRole('heading', { name: 'Confirm your vote on the Project Tern build' }).waitFor();
       await viewer.page.getByText(`“${wish}”`).waitFor();
       await audit(viewer, 'development inbox message');
@@ -88,7 +109,11 @@ describe('viewer story', () => {
       await marketing.page.locator('[aria-labelledby="vr-new-area-l"]').click();
       await marketing.page.locator('.n-base-select-option:visible', { hasText: 'Rear' }).first().click();
       await audit(marketing, 'accept dialog');
-      await outcomeOf(marketing.page, () => marketing.page.getByRole('button', { name: 'Accept into the backlog' }).click(), { request: { method: 'PATCH', path: /\/viewer-requests\/\d+$/ } });
+      await outcomeOf(
+        marketing.page,
+        () => marketing.page.getByRole('button', { name: 'Accept into the backlog' }).click(),
+        { request: { method: 'PATCH', path: /\/viewer-requests\/\d+$/ } },
+      );
       await marketing.page.getByText('Accepted into the backlog as Cargo sill lamp.').waitFor();
       await marketing.page.locator('.filters').getByText('Accepted', { exact: true }).click();
       await marketing.page.getByText('Upgrade: Cargo sill lamp').waitFor();
@@ -106,7 +131,12 @@ describe('viewer story', () => {
     const producer = await openBrowser({ server: app().server });
     try {
       await signIn(producer, 'producer');
-      const r = await apiFromPage<{ upgrade: { episodeId: number } }>(producer, 'PATCH', `/api/builds/${tern.id}/upgrades/${upgrade.id}`, { episodeId: episode.id, version: upgrade.version });
+      const r = await apiFromPage<{ upgrade: { episodeId: number } }>(
+        producer,
+        'PATCH',
+        `/api/builds/${tern.id}/upgrades/${upgrade.id}`,
+        { episodeId: episode.id, version: upgrade.version },
+      );
       expect(r.status, JSON.stringify(r.body)).toBe(200);
       expect(r.body.upgrade.episodeId).toBe(episode.id);
     } finally {
@@ -115,7 +145,10 @@ describe('viewer story', () => {
 
     // The shop finishes every upgrade of the episode (the shop floor's own journeys cover those marks);
     // only a finished episode goes live.
-    await db.sql(`UPDATE upgrades SET install_state = 'installed', install_segment = 'shot', demo_segment = 'shot' WHERE episode_id = $1`, [episode.id]);
+    await db.sql(
+      `UPDATE upgrades SET install_state = 'installed', install_segment = 'shot', demo_segment = 'shot' WHERE episode_id = $1`,
+      [episode.id],
+    );
 
     // 5. Marketing publishes that episode on the Publish screen.
     const publisher = await openBrowser({ server: app().server });
@@ -129,14 +162,21 @@ describe('viewer story', () => {
       await publisher.page.getByLabel('Title of chapter 1').fill('Intro');
       await publisher.page.getByRole('button', { name: 'Add a chapter' }).click();
       await publisher.page.getByLabel('Start of chapter 2').fill('0:00');
-      await publisher.page.getByText('Chapter 2: Starts at 0:00, which is not after the chapter before it').first().waitFor();
+      await publisher.page
+        .getByText('Chapter 2: Starts at 0:00, which is not after the chapter before it')
+        .first()
+        .waitFor();
       await publisher.page.getByLabel('Start of chapter 2').fill('2:15');
       await publisher.page.getByLabel('Title of chapter 2').fill('Fitting the sill lamp');
       await notes.getByText('2:15 Fitting the sill lamp').waitFor();
       await audit(publisher, 'publish screen with chapters');
       await publisher.page.getByLabel('Video address').fill('https://video.example/tern-ep10');
       await publisher.page.getByRole('button', { name: 'Publish episode' }).click();
-      await outcomeOf(publisher.page, () => publisher.page.getByRole('dialog').getByRole('button', { name: 'Publish' }).click(), { request: { method: 'POST', path: `/episodes/${episode.id}/publish` } });
+      await outcomeOf(
+        publisher.page,
+        () => publisher.page.getByRole('dialog').getByRole('button', { name: 'Publish' }).click(),
+        { request: { method: 'POST', path: `/episodes/${episode.id}/publish` } },
+      );
       await publisher.page.getByText('Episode 10 is live.').waitFor();
       await audit(publisher, 'episode published');
     } finally {

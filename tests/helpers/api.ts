@@ -46,7 +46,8 @@ export async function signInAs(role: DemoRole | { email: string; password: strin
   const agent = anonymous();
   const creds = typeof role === 'string' ? { email: DEMO_EMAIL[role], password: DEMO_PASSWORD } : role;
   const res = await agent.post('/api/auth/login').send(creds);
-  if (res.status !== 200) throw new Error(`sign-in as ${creds.email} answered ${res.status}: ${JSON.stringify(res.body)}`);
+  if (res.status !== 200)
+    throw new Error(`sign-in as ${creds.email} answered ${res.status}: ${JSON.stringify(res.body)}`);
   return agent;
 }
 

@@ -53,14 +53,24 @@ function serverEntry(): string {
  * it listens.
  */
 export async function startAppServer(extraEnv: Record<string, string> = {}): Promise<AppServer> {
-  if (!existsSync(path.join(root, process.env.E2E_DIST ?? 'dist', 'index.html'))) throw new Error('dist/ is missing: run the tests through `npm test`, which builds the client');
+  if (!existsSync(path.join(root, process.env.E2E_DIST ?? 'dist', 'index.html')))
+    throw new Error('dist/ is missing: run the tests through `npm test`, which builds the client');
   const entry = serverEntry();
   const port = await freePort();
   let out = '';
   const child: ChildProcess = spawn(process.execPath, ['--enable-source-maps', entry], {
     cwd: root,
     // E2E_DIST lets a developer test a client built into another folder than dist/.
-    env: { ...process.env, PORT: String(port), HOST: '127.0.0.1', SERVE_CLIENT: '1', CLIENT_DIST: process.env.E2E_DIST ?? 'dist', NODE_ENV: 'test', PUBLIC_URL: `http://127.0.0.1:${port}`, ...extraEnv },
+    env: {
+      ...process.env,
+      PORT: String(port),
+      HOST: '127.0.0.1',
+      SERVE_CLIENT: '1',
+      CLIENT_DIST: process.env.E2E_DIST ?? 'dist',
+      NODE_ENV: 'test',
+      PUBLIC_URL: `http://127.0.0.1:${port}`,
+      ...extraEnv,
+    },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   child.stdout!.on('data', (c) => (out += c));
@@ -107,7 +117,16 @@ function sharedBrowser(): Promise<Browser> {
   if (!launched) {
     const p = chromium.launch({
       executablePath: chromiumPath(),
-      args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+      args: [
+        '--headless',
+        '--no-sandbox',
+        '--disable-gpu',
+        '--disable-quic',
+        '--no-first-run',
+        '--disable-background-networking',
+        '--disable-component-update',
+        '--disable-sync',
+      ],
     });
     launched = p;
     p.then(
@@ -127,12 +146,16 @@ afterAll(async () => {
  * A fresh browser context (no cookies, storage or cache from any other journey) and page on the
  * file's Chromium, against `opts.server` or a server of its own started for it.
  */
-export async function openBrowser(opts: { phone?: boolean; server?: AppServer; env?: Record<string, string> } = {}): Promise<BrowserSession> {
+export async function openBrowser(
+  opts: { phone?: boolean; server?: AppServer; env?: Record<string, string> } = {},
+): Promise<BrowserSession> {
   const server = opts.server ?? (await startAppServer(opts.env));
   const browser = await sharedBrowser();
   const context = await browser.newContext(
     // bypassCSP lets the harness inject axe-core; the app's own CSP stays strict.
-    opts.phone ? { viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true, deviceScaleFactor: 2, bypassCSP: true } : { viewport: { width: 1366, height: 900 }, bypassCSP: true },
+    opts.phone
+      ? { viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true, deviceScaleFactor: 2, bypassCSP: true }
+      : { viewport: { width: 1366, height: 900 }, bypassCSP: true },
   );
   const page = await context.newPage();
   const session: BrowserSession = {
@@ -155,16 +178,48 @@ export async function audit(s: BrowserSession, label?: string) {
   await page.waitForLoadState('networkidle').catch(() => undefined);
   // Let fades finish (a table fading in from its loading state is not what a person reads).
   await page
-    .waitForFunction(() => document.getAnimations().every((a) => a.playState !== 'running' || a.effect?.getTiming().iterations === Infinity), null, { timeout: 3000 })
+    .waitForFunction(
+      () =>
+        document
+          .getAnimations()
+          .every((a) => a.playState !== 'running' || a.effect?.getTiming().iterations === Infinity),
+      null,
+      { timeout: 3000 },
+    )
     .catch(() => undefined);
   const hasAxe = await page.evaluate(() => typeof (window as unknown as { axe?: unknown }).axe !== 'undefined');
   if (!hasAxe) await page.addScriptTag({ path: axePath });
   const violations = await page.evaluate(async () => {
-    const axe = (window as unknown as { axe: { run: (ctx: Document, opts: object) => Promise<{ violations: { id: string; impact: string; help: string; nodes: { target: string[]; html: string; failureSummary?: string }[] }[] }> } }).axe;
+    const axe = (
+      window as unknown as {
+        axe: {
+          run: (
+            ctx: Document,
+            opts: object,
+          ) => Promise<{
+            violations: {
+              id: string;
+              impact: string;
+              help: string;
+              nodes: { target: string[]; html: string; failureSummary?: string }[];
+            }[];
+          }>;
+        };
+      }
+    ).axe;
     const r = await axe.run(document, { resultTypes: ['violations'] });
     return r.violations
       .filter((v) => v.impact === 'serious' || v.impact === 'critical')
-      .map((v) => `${v.impact} ${v.id}: ${v.help}\n    ${v.nodes.slice(0, 4).map((n) => `${n.target.join(' ')} ${n.html.slice(0, 160)} — ${(n.failureSummary ?? '').replace(/\s+/g, ' ').slice(0, 200)}`).join('\n    ')}`);
+      .map(
+        (v) =>
+          `${v.impact} ${v.id}: ${v.help}\n    ${v.nodes
+            .slice(0, 4)
+            .map(
+              (n) =>
+                `${n.target.join(' ')} ${n.html.slice(0, 160)} — ${(n.failureSummary ?? '').replace(/\s+/g, ' ').slice(0, 200)}`,
+            )
+            .join('\n    ')}`,
+      );
   });
   const where = label ?? page.url();
   s.audited.push(where);

@@ -7,7 +7,14 @@ import type { Response } from 'supertest';
 import { API } from '../../shared/contracts';
 import { allow, contractFor, ErrorAnswer, type Audiences } from '../../shared/contracts/common';
 
-interface Route { method: string; re: RegExp; params: number; contract: z.ZodType | Audiences; key: string; status: number | null }
+interface Route {
+  method: string;
+  re: RegExp;
+  params: number;
+  contract: z.ZodType | Audiences;
+  key: string;
+  status: number | null;
+}
 const routes: Route[] = Object.entries(API)
   .map(([key, contract]) => {
     const [method, path, status] = key.split(' ') as [string, string, string | undefined];
@@ -38,13 +45,23 @@ export function routeOf(method: string, url: string, status: number | null = nul
  * Parses `body` with `contract` (for these roles when it is per-role) and fails when the body holds
  * a field the contract does not name. Returns the parsed answer.
  */
-export function expectContract<A extends Audiences>(contract: A, body: unknown, roles?: readonly string[]): z.output<A['crew']>;
+export function expectContract<A extends Audiences>(
+  contract: A,
+  body: unknown,
+  roles?: readonly string[],
+): z.output<A['crew']>;
 export function expectContract<S extends z.ZodType>(contract: S, body: unknown, roles?: readonly string[]): z.output<S>;
 export function expectContract(contract: z.ZodType | Audiences, body: unknown, roles?: readonly string[]): unknown {
   const c = contractFor(contract as z.ZodType | Audiences, roles);
   const parsed = c.safeParse(body);
-  if (!parsed.success) throw new Error(`The answer does not fit its contract: ${JSON.stringify(parsed.error.issues.slice(0, 5))}\n${JSON.stringify(body).slice(0, 600)}`);
-  expect(allow(c, body as never), 'the answer carries a field its contract does not name (not allowed for this role)').toEqual(body);
+  if (!parsed.success)
+    throw new Error(
+      `The answer does not fit its contract: ${JSON.stringify(parsed.error.issues.slice(0, 5))}\n${JSON.stringify(body).slice(0, 600)}`,
+    );
+  expect(
+    allow(c, body as never),
+    'the answer carries a field its contract does not name (not allowed for this role)',
+  ).toEqual(body);
   return parsed.data;
 }
 
@@ -59,7 +76,8 @@ export function checkAnswer(method: string, url: string, roles: readonly string[
   const route = routeOf(method, url);
   if (!route) {
     const excepted = exceptPrefixes.some((p) => new URL(url, 'http://x').pathname.startsWith(p));
-    if (strict && json && !excepted) throw new Error(`No contract for ${method.toUpperCase()} ${url}: add it to a route table in shared/contracts.`);
+    if (strict && json && !excepted)
+      throw new Error(`No contract for ${method.toUpperCase()} ${url}: add it to a route table in shared/contracts.`);
     return;
   }
   if (res.status === 204 || !json) return;

@@ -20,7 +20,9 @@ export async function mailsTo(address: string): Promise<ReceivedMail[]> {
   const dir = mailDir();
   let files: string[] = [];
   try {
-    files = readdirSync(dir).filter((f) => f.endsWith('.eml')).sort();
+    files = readdirSync(dir)
+      .filter((f) => f.endsWith('.eml'))
+      .sort();
   } catch {
     return [];
   }
@@ -29,9 +31,16 @@ export async function mailsTo(address: string): Promise<ReceivedMail[]> {
     const raw = readFileSync(path.join(dir, file));
     if (!raw.includes(address)) continue;
     const m = await simpleParser(raw);
-    const to = Array.isArray(m.to) ? m.to.map((a) => a.text).join(', ') : m.to?.text ?? '';
+    const to = Array.isArray(m.to) ? m.to.map((a) => a.text).join(', ') : (m.to?.text ?? '');
     if (!to.includes(address)) continue;
-    out.push({ file, to, subject: m.subject ?? '', text: m.text ?? '', messageId: m.messageId ?? '', headers: m.headers });
+    out.push({
+      file,
+      to,
+      subject: m.subject ?? '',
+      text: m.text ?? '',
+      messageId: m.messageId ?? '',
+      headers: m.headers,
+    });
   }
   return out;
 }
@@ -54,4 +63,5 @@ export function linkIn(mail: ReceivedMail, prefix: string): string {
   return m;
 }
 
-export const uniqueAddress = (label: string) => `${label}-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 7)}@viewers.test`;
+export const uniqueAddress = (label: string) =>
+  `${label}-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 7)}@viewers.test`;

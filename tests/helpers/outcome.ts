@@ -21,11 +21,20 @@ function pathMatches(url: string, p: string | RegExp) {
  * Runs `action` (a click, a key press) and waits for what it causes: the answer to its request
  * (whose status is checked) and a toast that was not on screen before.
  */
-export async function outcomeOf(page: Page, action: () => Promise<unknown>, want: Expect): Promise<Response | undefined> {
+export async function outcomeOf(
+  page: Page,
+  action: () => Promise<unknown>,
+  want: Expect,
+): Promise<Response | undefined> {
   // Every toast on screen now belongs to an earlier step.
-  await page.evaluate((attr) => document.querySelectorAll('.n-message').forEach((m) => m.setAttribute(attr, '1')), SEEN);
+  await page.evaluate(
+    (attr) => document.querySelectorAll('.n-message').forEach((m) => m.setAttribute(attr, '1')),
+    SEEN,
+  );
   const response = want.request
-    ? page.waitForResponse((r) => r.request().method() === want.request!.method.toUpperCase() && pathMatches(r.url(), want.request!.path))
+    ? page.waitForResponse(
+        (r) => r.request().method() === want.request!.method.toUpperCase() && pathMatches(r.url(), want.request!.path),
+      )
     : undefined;
   response?.catch(() => undefined);
   await action();
@@ -33,7 +42,8 @@ export async function outcomeOf(page: Page, action: () => Promise<unknown>, want
   if (response) {
     res = await response;
     const expected = want.request!.status;
-    if (expected !== undefined) expect(res.status(), `${want.request!.method} ${res.url()} answered ${res.status()}`).toBe(expected);
+    if (expected !== undefined)
+      expect(res.status(), `${want.request!.method} ${res.url()} answered ${res.status()}`).toBe(expected);
     else expect(res.status(), `${want.request!.method} ${res.url()} answered ${res.status()}`).toBeLessThan(400);
   }
   if (want.toast !== undefined) await newToast(page, want.toast).waitFor();

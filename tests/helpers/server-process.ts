@@ -47,7 +47,10 @@ export function childEnv(extra: Record<string, string | undefined>): NodeJS.Proc
 }
 
 /** Runs `node <build>/<entry>`; resolves once it says it listens, or rejects with its output if it exits first. */
-export async function startServerProcess(extra: Record<string, string | undefined> = {}, entry = 'index.js'): Promise<ServerProcess> {
+export async function startServerProcess(
+  extra: Record<string, string | undefined> = {},
+  entry = 'index.js',
+): Promise<ServerProcess> {
   const dir = buildServer();
   const port = await freePort();
   const env = childEnv({ PORT: String(port), HOST: '127.0.0.1', PUBLIC_URL: `http://127.0.0.1:${port}`, ...extra });
@@ -77,10 +80,18 @@ export async function startServerProcess(extra: Record<string, string | undefine
 }
 
 /** Runs `node <build>/<entry>` to its end (for starts that must refuse): exit code and output. */
-export function runServerToEnd(extra: Record<string, string | undefined>, entry = 'index.js', args: string[] = []): Promise<{ code: number | null; output: string }> {
+export function runServerToEnd(
+  extra: Record<string, string | undefined>,
+  entry = 'index.js',
+  args: string[] = [],
+): Promise<{ code: number | null; output: string }> {
   const dir = buildServer();
   return new Promise((resolve) => {
-    const child = spawn(process.execPath, [path.join(dir, entry), ...args], { cwd: root, env: childEnv({ HOST: '127.0.0.1', PORT: '0', ...extra }), stdio: ['ignore', 'pipe', 'pipe'] });
+    const child = spawn(process.execPath, [path.join(dir, entry), ...args], {
+      cwd: root,
+      env: childEnv({ HOST: '127.0.0.1', PORT: '0', ...extra }),
+      stdio: ['ignore', 'pipe', 'pipe'],
+    });
     let out = '';
     child.stdout!.on('data', (c) => (out += c));
     child.stderr!.on('data', (c) => (out += c));
@@ -96,7 +107,11 @@ export class Client {
   async req(method: string, p: string, body?: unknown) {
     const res = await fetch(this.base + p, {
       method,
-      headers: { 'X-Requested-With': 'Bayslate', ...(body ? { 'Content-Type': 'application/json' } : {}), ...(this.cookie ? { Cookie: this.cookie } : {}) },
+      headers: {
+        'X-Requested-With': 'Bayslate',
+        ...(body ? { 'Content-Type': 'application/json' } : {}),
+        ...(this.cookie ? { Cookie: this.cookie } : {}),
+      },
       body: body ? JSON.stringify(body) : undefined,
     });
     const set = res.headers.getSetCookie().find((c) => c.startsWith('bayslate.sid='));

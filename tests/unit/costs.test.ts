@@ -44,7 +44,15 @@ const input: CostInput = {
   ],
 };
 
-const money = (r: CostRow) => [r.partsCents, r.labourCents, r.expensesCents, r.recoveredCents, r.expectedRecoveryCents, r.netCents, r.valueAddedCents];
+const money = (r: CostRow) => [
+  r.partsCents,
+  r.labourCents,
+  r.expensesCents,
+  r.recoveredCents,
+  r.expectedRecoveryCents,
+  r.netCents,
+  r.valueAddedCents,
+];
 
 describe('rollUpCosts', () => {
   const r = rollUpCosts(input);
@@ -52,8 +60,16 @@ describe('rollUpCosts', () => {
   it('rolls each upgrade up to exact cents', () => {
     const row = (id: number) => r.upgrades.find((u) => u.upgradeId === id)!;
     expect(row(1)).toEqual({
-      upgradeId: 1, partsCents: 3_998, labourCents: 14_963, expensesCents: 750, recoveredCents: 2_500,
-      expectedRecoveryCents: 1_500, netCents: 17_211, estimatedHours: 2, actualHours: 1.75, valueAddedCents: 40_000,
+      upgradeId: 1,
+      partsCents: 3_998,
+      labourCents: 14_963,
+      expensesCents: 750,
+      recoveredCents: 2_500,
+      expectedRecoveryCents: 1_500,
+      netCents: 17_211,
+      estimatedHours: 2,
+      actualHours: 1.75,
+      valueAddedCents: 40_000,
       valuePerDollar: 40_000 / 17_211,
     });
     expect(money(row(2))).toEqual([12_000, 4_019, 0, 0, 0, 16_019, 0]);
@@ -79,7 +95,10 @@ describe('rollUpCosts', () => {
 
   it('gives no value per dollar when net cost is zero or negative (recoveries exceed spending)', () => {
     const only = rollUpCosts({
-      labourRateCents: 1_000, parts: [], labour: [], expenses: [],
+      labourRateCents: 1_000,
+      parts: [],
+      labour: [],
+      expenses: [],
       upgrades: [{ id: 1, area: 'wheels_chassis', episodeId: 1, estimatedHours: 4, valueAddedCents: 100 }],
       removedParts: [{ upgradeId: 1, disposition: 'sold', expectedSaleCents: null, actualSaleCents: 60_000 }],
     });
@@ -89,7 +108,9 @@ describe('rollUpCosts', () => {
 
 describe('roundHalfUpCents (labour rounding rule)', () => {
   it('rounds halves up, mirrors them below zero, and ignores float noise', () => {
-    expect([0.5, 1.5, 2.5, 14_962.5, 0.49, -0.5, -2.5, 0].map(roundHalfUpCents)).toEqual([1, 2, 3, 14_963, 0, -1, -3, 0]);
+    expect([0.5, 1.5, 2.5, 14_962.5, 0.49, -0.5, -2.5, 0].map(roundHalfUpCents)).toEqual([
+      1, 2, 3, 14_963, 0, -1, -3, 0,
+    ]);
     expect(0.47 * 8_550).toBeLessThan(4_018.5); // the float product falls short of the half…
     expect(roundHalfUpCents(0.47 * 8_550)).toBe(4_019); // …yet rounds as the decimal 4,018.5 does
     expect(roundHalfUpCents((0.1 + 0.2) * 8_550)).toBe(2_565);
@@ -98,9 +119,15 @@ describe('roundHalfUpCents (labour rounding rule)', () => {
 
   it('rounds once per upgrade on its summed hours, not per entry', () => {
     const r = rollUpCosts({
-      labourRateCents: 3_333, parts: [], expenses: [], removedParts: [],
+      labourRateCents: 3_333,
+      parts: [],
+      expenses: [],
+      removedParts: [],
       upgrades: [{ id: 1, area: 'cabin', episodeId: null, estimatedHours: 1, valueAddedCents: 0 }],
-      labour: [{ upgradeId: 1, hours: 0.5 }, { upgradeId: 1, hours: 0.5 }],
+      labour: [
+        { upgradeId: 1, hours: 0.5 },
+        { upgradeId: 1, hours: 0.5 },
+      ],
     });
     expect(r.upgrades[0].labourCents).toBe(3_333); // per entry it would be 1,667 + 1,667 = 3,334
   });
@@ -108,8 +135,8 @@ describe('roundHalfUpCents (labour rounding rule)', () => {
 
 describe('totals equal the sum of rows, to the cent, on random builds', () => {
   let seed = 7;
-  const rand = () => ((seed = (seed * 1_103_515_245 + 12_345) % 2_147_483_648) / 2_147_483_648);
-  const pick = <T,>(xs: readonly T[]) => xs[Math.floor(rand() * xs.length)];
+  const rand = () => (seed = (seed * 1_103_515_245 + 12_345) % 2_147_483_648) / 2_147_483_648;
+  const pick = <T>(xs: readonly T[]) => xs[Math.floor(rand() * xs.length)];
   const areas: Area[] = ['front', 'sides', 'rear', 'cabin', 'electrical', 'wheels_chassis'];
   const states: PartState[] = ['to_order', 'ordered', 'backordered', 'received', 'fitted', 'returned'];
   const dispositions: Disposition[] = ['keep', 'for_sale', 'sold', 'scrapped'];
@@ -121,20 +148,29 @@ describe('totals equal the sum of rows, to the cent, on random builds', () => {
       const r = rollUpCosts({
         labourRateCents: 1 + Math.floor(rand() * 20_000),
         upgrades: ids.map((id) => ({
-          id, area: pick(areas), episodeId: rand() < 0.3 ? null : 1 + Math.floor(rand() * 5),
-          estimatedHours: Math.round(rand() * 4000) / 100, valueAddedCents: Math.floor(rand() * 200_000),
+          id,
+          area: pick(areas),
+          episodeId: rand() < 0.3 ? null : 1 + Math.floor(rand() * 5),
+          estimatedHours: Math.round(rand() * 4000) / 100,
+          valueAddedCents: Math.floor(rand() * 200_000),
         })),
         parts: Array.from({ length: 40 }, () => ({
-          upgradeId: pick(ids), quantity: 1 + Math.floor(rand() * 4), unitCostCents: Math.floor(rand() * 90_000), state: pick(states),
+          upgradeId: pick(ids),
+          quantity: 1 + Math.floor(rand() * 4),
+          unitCostCents: Math.floor(rand() * 90_000),
+          state: pick(states),
         })),
         labour: Array.from({ length: 60 }, () => ({ upgradeId: pick(ids), hours: Math.round(rand() * 800) / 100 })),
         expenses: Array.from({ length: 15 }, () => ({ upgradeId: maybe(), amountCents: Math.floor(rand() * 30_000) })),
         removedParts: Array.from({ length: 10 }, () => ({
-          upgradeId: maybe(), disposition: pick(dispositions),
-          expectedSaleCents: Math.floor(rand() * 50_000), actualSaleCents: rand() < 0.2 ? null : Math.floor(rand() * 50_000),
+          upgradeId: maybe(),
+          disposition: pick(dispositions),
+          expectedSaleCents: Math.floor(rand() * 50_000),
+          actualSaleCents: rand() < 0.2 ? null : Math.floor(rand() * 50_000),
         })),
       });
-      const sum = (rows: CostRow[]) => rows.reduce((acc, row) => acc.map((v, i) => v + money(row)[i]), money(r.unassigned));
+      const sum = (rows: CostRow[]) =>
+        rows.reduce((acc, row) => acc.map((v, i) => v + money(row)[i]), money(r.unassigned));
       expect(sum(r.upgrades)).toEqual(money(r.build));
       expect(sum(r.areas)).toEqual(money(r.build));
       expect(sum(r.episodes)).toEqual(money(r.build));
@@ -164,8 +200,22 @@ describe('cost recognition, the cash view and the bottom-up forecast (issue 12 w
       { id: 3, estimatedHours: 5, installState: 'queued', installedOn: null, done: false },
     ],
     parts: [
-      { upgradeId: 1, state: 'fitted', cents: 100_000, orderedOn: '2026-02-01', receivedOn: '2026-02-10', fittedOn: '2026-03-04' },
-      { upgradeId: 2, state: 'received', cents: 300_000, orderedOn: '2026-02-01', receivedOn: '2026-02-12', fittedOn: null },
+      {
+        upgradeId: 1,
+        state: 'fitted',
+        cents: 100_000,
+        orderedOn: '2026-02-01',
+        receivedOn: '2026-02-10',
+        fittedOn: '2026-03-04',
+      },
+      {
+        upgradeId: 2,
+        state: 'received',
+        cents: 300_000,
+        orderedOn: '2026-02-01',
+        receivedOn: '2026-02-12',
+        fittedOn: null,
+      },
       { upgradeId: 3, state: 'to_order', cents: 50_000, orderedOn: null, receivedOn: null, fittedOn: null },
     ],
     labour: [{ upgradeId: 1, workedOn: '2026-03-03', hours: 10 }],
@@ -198,7 +248,9 @@ describe('cost recognition, the cash view and the bottom-up forecast (issue 12 w
       // Paid: 1,000 labour + 1,000 + 3,000 parts in hand; nothing ordered and waiting; 500 not ordered.
       expect(r.cash).toEqual({ paidCents: 500_000, committedCents: 0, notOrderedCents: 50_000, netCents: 550_000 });
       const p = r.pending;
-      expect(r.actualCents + p.receivedNotFittedCents + p.committedCents + p.notOrderedCents + p.laterDatedCents).toBe(550_000);
+      expect(r.actualCents + p.receivedNotFittedCents + p.committedCents + p.notOrderedCents + p.laterDatedCents).toBe(
+        550_000,
+      );
       expect(r.netCents).toBe(550_000);
     }
   });
@@ -207,13 +259,30 @@ describe('cost recognition, the cash view and the bottom-up forecast (issue 12 w
     const input = check('fitting');
     input.labour.push({ upgradeId: 2, workedOn: '2026-03-11', hours: 1.5 });
     input.expenses.push({ upgradeId: 2, spentOn: '2026-03-20', cents: 2_500 });
-    input.parts.push({ upgradeId: 2, state: 'ordered', cents: 7_000, orderedOn: '2026-03-09', receivedOn: null, fittedOn: null });
+    input.parts.push({
+      upgradeId: 2,
+      state: 'ordered',
+      cents: 7_000,
+      orderedOn: '2026-03-09',
+      receivedOn: null,
+      fittedOn: null,
+    });
     const r = recogniseCosts(input);
     expect(r.actualCents).toBe(200_000);
     // B: 8.5 h left × $100 = 850 + 1.5 h dated later 150 + expense 25 + parts 3,000 + 70.
-    expect(r.forecast.upgrades[1]).toMatchObject({ remainingHours: 8.5, labourCents: 85_000, plannedCents: 17_500, partsCents: 307_000 });
+    expect(r.forecast.upgrades[1]).toMatchObject({
+      remainingHours: 8.5,
+      labourCents: 85_000,
+      plannedCents: 17_500,
+      partsCents: 307_000,
+    });
     expect(r.forecast.atCompletionCents).toBe(200_000 + 85_000 + 17_500 + 307_000 + 100_000);
-    expect(r.cash).toEqual({ paidCents: 500_000, committedCents: 7_000 + 17_500, notOrderedCents: 50_000, netCents: 574_500 });
+    expect(r.cash).toEqual({
+      paidCents: 500_000,
+      committedCents: 7_000 + 17_500,
+      notOrderedCents: 50_000,
+      netCents: 574_500,
+    });
   });
 });
 
@@ -234,13 +303,20 @@ describe('the estimate to complete of an installed upgrade', () => {
   it('has no bay hours left once installed, even when fewer hours were logged than estimated', () => {
     // By hand: 6 h estimated, 4 h logged, installed (segments not shot): 0 h left; queued twin: 2 h × $100.
     const r = recogniseCosts({
-      recognition: 'fitting', asOf: '2026-05-01', labourRateCents: 10_000,
+      recognition: 'fitting',
+      asOf: '2026-05-01',
+      labourRateCents: 10_000,
       upgrades: [
         { id: 1, estimatedHours: 6, installState: 'installed', installedOn: '2026-04-20', done: false },
         { id: 2, estimatedHours: 6, installState: 'queued', installedOn: null, done: false },
       ],
-      parts: [], expenses: [], recoveries: [],
-      labour: [{ upgradeId: 1, workedOn: '2026-04-19', hours: 4 }, { upgradeId: 2, workedOn: '2026-04-19', hours: 4 }],
+      parts: [],
+      expenses: [],
+      recoveries: [],
+      labour: [
+        { upgradeId: 1, workedOn: '2026-04-19', hours: 4 },
+        { upgradeId: 2, workedOn: '2026-04-19', hours: 4 },
+      ],
     });
     expect(r.forecast.upgrades.map((u) => u.remainingHours)).toEqual([0, 2]);
     expect(r.forecast.atCompletionCents).toBe(80_000 + 20_000);

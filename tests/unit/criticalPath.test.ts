@@ -4,7 +4,16 @@ import Graph from 'graphology';
 import { hasCycle, topologicalGenerations, willCreateCycle } from 'graphology-dag';
 import { criticalPath, findCycle, type CpmTask } from '../../shared/planner/criticalPath';
 
-type Row = [id: string, duration: number, after: string[], es: number, ef: number, ls: number, lf: number, float: number];
+type Row = [
+  id: string,
+  duration: number,
+  after: string[],
+  es: number,
+  ef: number,
+  ls: number,
+  lf: number,
+  float: number,
+];
 
 function check(rows: Row[], duration: number, critical: string[]) {
   const r = criticalPath(rows.map(([id, d, after]) => ({ id, duration: d, after })));
@@ -99,9 +108,19 @@ describe('published worked examples', () => {
     );
     if (!r.ok) throw new Error('expected ok');
     const published: Record<string, [number, number]> = {
-      A: [0, 2], B: [0, 3], C: [0, 4], D: [2, 3], E: [3, 5], F: [3, 8], G: [4, 11], H: [5, 7], I: [11, 14], J: [14, 15],
+      A: [0, 2],
+      B: [0, 3],
+      C: [0, 4],
+      D: [2, 3],
+      E: [3, 5],
+      F: [3, 8],
+      G: [4, 11],
+      H: [5, 7],
+      I: [11, 14],
+      J: [14, 15],
     };
-    for (const [id, [es, ef]] of Object.entries(published)) expect([id, r.tasks[id].es, r.tasks[id].ef]).toEqual([id, es, ef]);
+    for (const [id, [es, ef]] of Object.entries(published))
+      expect([id, r.tasks[id].es, r.tasks[id].ef]).toEqual([id, es, ef]);
     expect(r.duration).toBe(15);
     expect(r.critical).toEqual(['C', 'G', 'I', 'J']);
   });
@@ -223,7 +242,24 @@ describe('against graphology-dag on random graphs', () => {
       expect(cycle !== null).toBe(willCreateCycle(graph, s, t));
       if (cycle) expect(cycle).toContain(s);
     }
-    expect(findCycle([1, 2, 3], [[1, 2], [2, 3]])).toBeNull();
-    expect(findCycle([1, 2, 3], [[1, 2], [2, 3], [3, 1]])).toEqual([1, 2, 3]);
+    expect(
+      findCycle(
+        [1, 2, 3],
+        [
+          [1, 2],
+          [2, 3],
+        ],
+      ),
+    ).toBeNull();
+    expect(
+      findCycle(
+        [1, 2, 3],
+        [
+          [1, 2],
+          [2, 3],
+          [3, 1],
+        ],
+      ),
+    ).toEqual([1, 2, 3]);
   });
 });

@@ -53,7 +53,11 @@ describe('release times (start no earlier than)', () => {
   it('a release equals a finish-to-start lag from a zero-length start milestone', () => {
     const viaLag = criticalPath([
       { id: 'start', duration: 0, after: [] },
-      ...tasks.map((t) => ({ id: t.id, duration: t.duration, after: [...t.after, { id: 'start', lag: t.release ?? 0 }] })),
+      ...tasks.map((t) => ({
+        id: t.id,
+        duration: t.duration,
+        after: [...t.after, { id: 'start', lag: t.release ?? 0 }],
+      })),
     ]);
     const viaRelease = criticalPath(tasks);
     if (!viaLag.ok || !viaRelease.ok) throw new Error('no schedule');
@@ -129,7 +133,13 @@ describe('the one-bay forecast', () => {
   });
 
   it('reports a cycle', () => {
-    const r = bayForecast([{ id: 1, hours: 1, release: 0, prerequisiteIds: [2] }, { id: 2, hours: 1, release: 0, prerequisiteIds: [1] }], 7);
+    const r = bayForecast(
+      [
+        { id: 1, hours: 1, release: 0, prerequisiteIds: [2] },
+        { id: 2, hours: 1, release: 0, prerequisiteIds: [1] },
+      ],
+      7,
+    );
     expect(r.ok).toBe(false);
   });
 });

@@ -88,11 +88,32 @@ describe('earnedValue point figures', () => {
 
   it('gives null, never Infinity or NaN, on any division by zero, and propagates null', () => {
     expect(earnedValue({ bac: 1000, pv: 0, ev: 0, ac: 0 })).toEqual({
-      cv: 0, sv: 0, cpi: null, spi: null, eac: null, etc: null, vac: null, tcpi: 1,
-      eacCpi: null, eacOneOff: 1000, eacComposite: null, tcpiEac: null,
+      cv: 0,
+      sv: 0,
+      cpi: null,
+      spi: null,
+      eac: null,
+      etc: null,
+      vac: null,
+      tcpi: 1,
+      eacCpi: null,
+      eacOneOff: 1000,
+      eacComposite: null,
+      tcpiEac: null,
     });
-    expect(earnedValue({ bac: 500, pv: 100, ev: 0, ac: 500 })).toMatchObject({ cpi: 0, eac: null, etc: null, tcpi: null });
-    expect(earnedValue({ bac: null, pv: 100, ev: 50, ac: 40 })).toMatchObject({ cv: 10, sv: -50, eac: null, vac: null, tcpi: null });
+    expect(earnedValue({ bac: 500, pv: 100, ev: 0, ac: 500 })).toMatchObject({
+      cpi: 0,
+      eac: null,
+      etc: null,
+      tcpi: null,
+    });
+    expect(earnedValue({ bac: null, pv: 100, ev: 50, ac: 40 })).toMatchObject({
+      cv: 10,
+      sv: -50,
+      eac: null,
+      vac: null,
+      tcpi: null,
+    });
     const all = Object.values(earnedValue({ bac: NaN, pv: Infinity, ev: 1, ac: 0 }));
     expect(all.every((v) => v === null || Number.isFinite(v))).toBe(true);
   });
@@ -127,20 +148,42 @@ describe('earnedValueSeries', () => {
   it('places planned value on shoot dates, actual cost on spend dates, and 0/100 credit on done dates', () => {
     const s = earnedValueSeries(build());
     expect(s.points.map((p) => p.date)).toEqual([
-      '2025-01-03', '2025-01-06', '2025-01-07', '2025-01-08', '2025-01-09', '2025-01-10', '2025-01-20', '2025-01-21',
-      '2025-01-24', '2025-02-07',
+      '2025-01-03',
+      '2025-01-06',
+      '2025-01-07',
+      '2025-01-08',
+      '2025-01-09',
+      '2025-01-10',
+      '2025-01-20',
+      '2025-01-21',
+      '2025-01-24',
+      '2025-02-07',
     ]);
     const at = (d: string) => s.points.find((p) => p.date === d)!;
     expect(at('2025-01-08')).toEqual({
-      date: '2025-01-08', planned: 0, earned: 0, actual: 31_234, remainingPlanned: 100_000, remainingActual: 68_766, forecast: null,
+      date: '2025-01-08',
+      planned: 0,
+      earned: 0,
+      actual: 31_234,
+      remainingPlanned: 100_000,
+      remainingActual: 68_766,
+      forecast: null,
     });
     expect(at('2025-01-21')).toMatchObject({ planned: 25_000, earned: 25_000, actual: 41_234, forecast: 41_234 });
     expect(s.current).toMatchObject({ pv: 25_000, ev: 25_000, ac: 41_234, sv: 0, cv: -16_234 });
     // EAC = BAC / CPI = 100,000 × 41,234 / 25,000 = 164,936; 60 % of the remaining plan falls on 01-24.
-    expect(at('2025-01-24')).toMatchObject({ planned: 55_000, earned: null, actual: null, remainingActual: null, forecast: 115_455 });
+    expect(at('2025-01-24')).toMatchObject({
+      planned: 55_000,
+      earned: null,
+      actual: null,
+      remainingActual: null,
+      forecast: 115_455,
+    });
     expect(at('2025-02-07')).toMatchObject({ planned: 75_000, remainingPlanned: 25_000, forecast: 164_936 });
     expect(s.forecastFinish).toBe('2025-02-07');
-    expect(s.points.every((p) => Object.values(p).every((v) => v === null || typeof v === 'string' || Number.isInteger(v)))).toBe(true);
+    expect(
+      s.points.every((p) => Object.values(p).every((v) => v === null || typeof v === 'string' || Number.isInteger(v))),
+    ).toBe(true);
   });
 
   it('credits 50/50 at first labour and at done, and percent of hours as they are logged', () => {
@@ -159,11 +202,20 @@ describe('earnedValueSeries', () => {
       { upgradeId: 7, workedOn: '2025-03-02', hours: 0.5 },
     ];
     const s = earnedValueSeries({
-      bacCents: null, labourRateCents: 3_333, asOf: '2025-03-02', labour, expenses: [], parts: [],
+      bacCents: null,
+      labourRateCents: 3_333,
+      asOf: '2025-03-02',
+      labour,
+      expenses: [],
+      parts: [],
       upgrades: [{ id: 7, estimatedHours: 1, partsBudgetCents: 0, shootDate: '2025-03-05', doneOn: null }],
     });
     const roll = rollUpCosts({
-      labourRateCents: 3_333, parts: [], expenses: [], removedParts: [], labour,
+      labourRateCents: 3_333,
+      parts: [],
+      expenses: [],
+      removedParts: [],
+      labour,
       upgrades: [{ id: 7, area: 'cabin', episodeId: null, estimatedHours: 1, valueAddedCents: 0 }],
     });
     // 0.5 h → 1,666.5 ¢ → 1,667; at 1 h the upgrade costs 3,333 ¢, so the second day adds 1,666.
@@ -176,7 +228,10 @@ describe('earnedValueSeries', () => {
     const s = earnedValueSeries({ ...build(), asOf: '2025-02-10' });
     // PV(asOf) = 75,000, EV = 25,000 → SPI 1/3; planned span 01-10 → 02-07 is 28 days → 84 days.
     expect(s.forecastFinish).toBe('2025-04-04');
-    expect(s.points.at(-1)).toMatchObject({ date: '2025-04-04', forecast: Math.round(100_000 * s.current.ac / 25_000) });
+    expect(s.points.at(-1)).toMatchObject({
+      date: '2025-04-04',
+      forecast: Math.round((100_000 * s.current.ac) / 25_000),
+    });
     const none = earnedValueSeries({ ...build(), asOf: '2025-01-05' });
     expect(none.current.cpi).toBe(0);
     expect(none.points.every((p) => p.forecast === null)).toBe(true);
@@ -194,7 +249,11 @@ describe('earnedValueSeries', () => {
   });
 
   it('draws the forecast from the status date’s actual cost to the given estimate on the given finish', () => {
-    const s = earnedValueSeries({ ...build(), bacCents: null, forecast: { atCompletionCents: 90_000, finish: '2025-02-07' } });
+    const s = earnedValueSeries({
+      ...build(),
+      bacCents: null,
+      forecast: { atCompletionCents: 90_000, finish: '2025-02-07' },
+    });
     const at = (d: string) => s.points.find((p) => p.date === d)!;
     expect(at('2025-01-21').forecast).toBe(41_234);
     // 60 % of the plan after the status date falls on 01-24 (30,000 of 50,000): 41,234 + 0.6 × 48,766.

@@ -12,10 +12,16 @@ describe('media file checks', () => {
   });
 
   it('refuses executables, scripts and SVG with a message naming what Bayslate accepts', async () => {
-    await expect(sniff(Buffer.concat([Buffer.from([0x7f, 0x45, 0x4c, 0x46, 2, 1, 1]), Buffer.alloc(64)]))).rejects.toMatchObject({ status: 415, message: expect.stringContaining('ELF') });
+    await expect(
+      sniff(Buffer.concat([Buffer.from([0x7f, 0x45, 0x4c, 0x46, 2, 1, 1]), Buffer.alloc(64)])),
+    ).rejects.toMatchObject({ status: 415, message: expect.stringContaining('ELF') });
     await expect(sniff(Buffer.from('MZ' + '\0'.repeat(200)))).rejects.toMatchObject({ status: 415 });
-    await expect(sniff(Buffer.from('#!/bin/sh\necho hi\n'))).rejects.toMatchObject({ message: expect.stringContaining('Bayslate accepts') });
-    await expect(sniff(Buffer.from('<svg xmlns="http://www.w3.org/2000/svg"><script>1</script></svg>'))).rejects.toMatchObject({ status: 415 });
+    await expect(sniff(Buffer.from('#!/bin/sh\necho hi\n'))).rejects.toMatchObject({
+      message: expect.stringContaining('Bayslate accepts'),
+    });
+    await expect(
+      sniff(Buffer.from('<svg xmlns="http://www.w3.org/2000/svg"><script>1</script></svg>')),
+    ).rejects.toMatchObject({ status: 415 });
   });
 
   it('keeps only a clean base name', () => {
@@ -28,7 +34,11 @@ describe('media file checks', () => {
   });
 
   it('sends the original name in Content-Disposition with an ASCII fallback (RFC 6266 / RFC 5987)', () => {
-    expect(contentDisposition('Rechnung – Nr. 7.pdf')).toBe(`attachment; filename="Rechnung _ Nr. 7.pdf"; filename*=UTF-8''Rechnung%20%E2%80%93%20Nr.%207.pdf`);
-    expect(contentDisposition("it's (1).jpg", 'inline')).toBe(`inline; filename="it's (1).jpg"; filename*=UTF-8''it%27s%20%281%29.jpg`);
+    expect(contentDisposition('Rechnung – Nr. 7.pdf')).toBe(
+      `attachment; filename="Rechnung _ Nr. 7.pdf"; filename*=UTF-8''Rechnung%20%E2%80%93%20Nr.%207.pdf`,
+    );
+    expect(contentDisposition("it's (1).jpg", 'inline')).toBe(
+      `inline; filename="it's (1).jpg"; filename*=UTF-8''it%27s%20%281%29.jpg`,
+    );
   });
 });

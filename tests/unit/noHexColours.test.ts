@@ -17,7 +17,8 @@ function filesUnder(dir: string): string[] {
 
 const HEX = /#[0-9a-fA-F]{3,8}\b/;
 const FUNCTION = /\b(rgba?|hsla?)\(/;
-const NAMED = /(?:^|[\s;{])(?:color|background(?:-color)?|border(?:-\w+)*|outline(?:-color)?|fill|stroke)\s*:\s*[^;]*\b(white|black|red|green|blue|gr[ae]y|orange|yellow|purple)\b/;
+const NAMED =
+  /(?:^|[\s;{])(?:color|background(?:-color)?|border(?:-\w+)*|outline(?:-color)?|fill|stroke)\s*:\s*[^;]*\b(white|black|red|green|blue|gr[ae]y|orange|yellow|purple)\b/;
 
 /** Lines of `text` that write a colour code, as "line: text". */
 export function colourCodesIn(text: string): string[] {
@@ -36,12 +37,16 @@ describe('colours come from the theme', () => {
     expect(colourCodesIn('.a { background: white; }')).toHaveLength(1);
     expect(colourCodesIn("const c = '#b34a14';")).toHaveLength(1);
     // Not colours: a slot shorthand, a link to an anchor, a theme variable.
-    expect(colourCodesIn('<template #default><a href="#main">Skip</a></template>\n.a { color: var(--bs-text); }')).toEqual([]);
+    expect(
+      colourCodesIn('<template #default><a href="#main">Skip</a></template>\n.a { color: var(--bs-text); }'),
+    ).toEqual([]);
   });
 
   it('no component or view writes a colour code', () => {
     const found = ['src/components', 'src/views'].flatMap((d) =>
-      filesUnder(path.join(root, d)).flatMap((f) => colourCodesIn(readFileSync(f, 'utf8')).map((l) => `${path.relative(root, f)}:${l}`)),
+      filesUnder(path.join(root, d)).flatMap((f) =>
+        colourCodesIn(readFileSync(f, 'utf8')).map((l) => `${path.relative(root, f)}:${l}`),
+      ),
     );
     expect(found, `use a --bs-* variable from src/theme.ts instead:\n${found.join('\n')}`).toEqual([]);
   });

@@ -59,7 +59,9 @@ describe('outbox', () => {
     expect(sent).toEqual(['A', 'C', 'D']);
     expect(await offlineStore.queued(USER)).toEqual([]);
     const refusals = await offlineStore.refusals(USER);
-    expect(refusals.map((r) => [r.label, r.status, r.message, r.upgradeTitle])).toEqual([['B', 409, 'Someone else changed this record since you loaded it.', 'Upgrade 1']]);
+    expect(refusals.map((r) => [r.label, r.status, r.message, r.upgradeTitle])).toEqual([
+      ['B', 409, 'Someone else changed this record since you loaded it.', 'Upgrade 1'],
+    ]);
   });
 
   it('a lost network stops the run and keeps that action and the later ones, in order, for the next run', async () => {
@@ -102,7 +104,12 @@ describe('outbox', () => {
   });
 
   it('signed out (401) and server trouble (503) are "later", not refusals; a rule (422) is a refusal', async () => {
-    const answers = [new ApiError(401, 'unauthorized', 'Sign in.'), new ApiError(503, 'http_503', 'Down.'), new ApiError(422, 'rule', 'Not allowed now.'), null];
+    const answers = [
+      new ApiError(401, 'unauthorized', 'Sign in.'),
+      new ApiError(503, 'http_503', 'Down.'),
+      new ApiError(422, 'rule', 'Not allowed now.'),
+      null,
+    ];
     const outbox = createOutbox(offlineStore, USER, {
       send: async () => {
         const a = answers.shift();
@@ -172,7 +179,14 @@ describe('outbox', () => {
 });
 
 describe('the shop floor with waiting changes applied', () => {
-  const upgrade = (id: number, version: number) => ({ id, version, installState: 'queued', installSegment: 'not_shot', demoSegment: 'not_shot', title: `U${id}` });
+  const upgrade = (id: number, version: number) => ({
+    id,
+    version,
+    installState: 'queued',
+    installSegment: 'not_shot',
+    demoSegment: 'not_shot',
+    title: `U${id}`,
+  });
   const floor = {
     episode: null,
     inBay: [],

@@ -21,24 +21,109 @@ const Cost = (await import('../../src/components/OverviewChartCost.vue')).defaul
 const Hours = (await import('../../src/components/OverviewChartHours.vue')).default;
 const Value = (await import('../../src/components/OverviewChartValue.vue')).default;
 
-const zeroRow = { partsCents: 0, labourCents: 0, expensesCents: 0, recoveredCents: 0, expectedRecoveryCents: 0, estimatedHours: 0, actualHours: 0, valueAddedCents: 0 };
-const noUpgrades = { upgradeId: [], title: [], done: [], partsCents: [], labourCents: [], expensesCents: [], recoveredCents: [], expectedRecoveryCents: [], estimatedHours: [], actualHours: [], valueAddedCents: [] };
+const zeroRow = {
+  partsCents: 0,
+  labourCents: 0,
+  expensesCents: 0,
+  recoveredCents: 0,
+  expectedRecoveryCents: 0,
+  estimatedHours: 0,
+  actualHours: 0,
+  valueAddedCents: 0,
+};
+const noUpgrades = {
+  upgradeId: [],
+  title: [],
+  done: [],
+  partsCents: [],
+  labourCents: [],
+  expensesCents: [],
+  recoveredCents: [],
+  expectedRecoveryCents: [],
+  estimatedHours: [],
+  actualHours: [],
+  valueAddedCents: [],
+};
 
 /** An answer as the server sends it for a build with nothing in it; `over` changes parts of it. */
-function answer(over: { build?: Partial<OverviewAnswer['build']>; headline?: Partial<OverviewAnswer['headline']>; earnedValue?: Partial<OverviewAnswer['earnedValue']> } & Partial<Omit<OverviewAnswer, 'build' | 'headline' | 'earnedValue'>> = {}) {
+function answer(
+  over: {
+    build?: Partial<OverviewAnswer['build']>;
+    headline?: Partial<OverviewAnswer['headline']>;
+    earnedValue?: Partial<OverviewAnswer['earnedValue']>;
+  } & Partial<Omit<OverviewAnswer, 'build' | 'headline' | 'earnedValue'>> = {},
+) {
   const base: OverviewAnswer = {
-    build: { id: 7, name: 'Bad input', slug: 'bad-input', year: 2020, make: 'Halvorsen', model: 'Skua', trim: '', startDate: '2025-01-06', budgetCents: 1_000_000, labourRateCents: 8_550 },
+    build: {
+      id: 7,
+      name: 'Bad input',
+      slug: 'bad-input',
+      year: 2020,
+      make: 'Halvorsen',
+      model: 'Skua',
+      trim: '',
+      startDate: '2025-01-06',
+      budgetCents: 1_000_000,
+      labourRateCents: 8_550,
+    },
     asOf: '2025-03-01',
     timeZone: 'UTC',
     labourCosted: true,
     headline: {
-      budgetCents: 1_000_000, bacCents: null, reserveCents: null, actualCents: 0, costRecognition: 'fitting', costRecognitionLabel: 'At fitting', costRecognitionDescription: 'A part counts when fitted.',
-      cash: { paidCents: 0, committedCents: 0, notOrderedCents: 0, netCents: 0 }, pending: { receivedNotFittedCents: 0, committedCents: 0, notOrderedCents: 0, laterDatedCents: 0 },
-      etcCents: null, remainingHours: 0, remainingLabourCents: 0, remainingPartsCents: 0, plannedCents: 0, spentCents: 0, recoveredCents: 0, expectedRecoveryCents: 0, netCents: 0,
-      remainingCents: 1_000_000, spentShare: 0, forecastCents: null, forecastVarianceCents: null, estimatedHours: 0, actualHours: 0, valueAddedCents: 0, valuePerDollar: null,
-      upgradesDone: 0, upgradesTotal: 0, episodesLive: 0, episodesTotal: 0,
+      budgetCents: 1_000_000,
+      bacCents: null,
+      reserveCents: null,
+      actualCents: 0,
+      costRecognition: 'fitting',
+      costRecognitionLabel: 'At fitting',
+      costRecognitionDescription: 'A part counts when fitted.',
+      cash: { paidCents: 0, committedCents: 0, notOrderedCents: 0, netCents: 0 },
+      pending: { receivedNotFittedCents: 0, committedCents: 0, notOrderedCents: 0, laterDatedCents: 0 },
+      etcCents: null,
+      remainingHours: 0,
+      remainingLabourCents: 0,
+      remainingPartsCents: 0,
+      plannedCents: 0,
+      spentCents: 0,
+      recoveredCents: 0,
+      expectedRecoveryCents: 0,
+      netCents: 0,
+      remainingCents: 1_000_000,
+      spentShare: 0,
+      forecastCents: null,
+      forecastVarianceCents: null,
+      estimatedHours: 0,
+      actualHours: 0,
+      valueAddedCents: 0,
+      valuePerDollar: null,
+      upgradesDone: 0,
+      upgradesTotal: 0,
+      episodesLive: 0,
+      episodesTotal: 0,
     },
-    earnedValue: { rule: '0/100', ruleLabel: '0/100', ruleDescription: 'Earned when done.', bac: null, pv: 0, ev: 0, ac: 0, cv: 0, sv: 0, cpi: null, spi: null, eac: null, etc: null, vac: null, tcpi: null, eacCpi: null, eacOneOff: null, eacComposite: null, tcpiEac: null, forecastFinish: '2025-03-01', unscheduledPlannedCents: 0 },
+    earnedValue: {
+      rule: '0/100',
+      ruleLabel: '0/100',
+      ruleDescription: 'Earned when done.',
+      bac: null,
+      pv: 0,
+      ev: 0,
+      ac: 0,
+      cv: 0,
+      sv: 0,
+      cpi: null,
+      spi: null,
+      eac: null,
+      etc: null,
+      vac: null,
+      tcpi: null,
+      eacCpi: null,
+      eacOneOff: null,
+      eacComposite: null,
+      tcpiEac: null,
+      forecastFinish: '2025-03-01',
+      unscheduledPlannedCents: 0,
+    },
     upgrades: noUpgrades,
     areas: [],
     episodes: [],
@@ -46,11 +131,20 @@ function answer(over: { build?: Partial<OverviewAnswer['build']>; headline?: Par
     totals: zeroRow,
     burndown: { from: null, day: [], planned: [], actual: [], forecast: [] },
   };
-  const a = { ...base, ...over, build: { ...base.build, ...over.build }, headline: { ...base.headline, ...over.headline }, earnedValue: { ...base.earnedValue, ...over.earnedValue } };
+  const a = {
+    ...base,
+    ...over,
+    build: { ...base.build, ...over.build },
+    headline: { ...base.headline, ...over.headline },
+    earnedValue: { ...base.earnedValue, ...over.earnedValue },
+  };
   return expandOverview(overviewAnswer.parse(a));
 }
 
-const router = createRouter({ history: createMemoryHistory(), routes: [{ path: '/', component: { render: () => null } }] });
+const router = createRouter({
+  history: createMemoryHistory(),
+  routes: [{ path: '/', component: { render: () => null } }],
+});
 function text(component: Component, overview: ReturnType<typeof answer>) {
   const w = mount(component, { props: { overview }, global: { plugins: [router] } });
   const t = w.text();
@@ -61,7 +155,10 @@ const all = [Figures, Burndown, Cost, Hours, Value];
 
 describe('the overview with missing inputs', () => {
   it('no budget: the budget, what is left and the burndown show a dash or say what to do', () => {
-    const o = answer({ build: { budgetCents: null }, headline: { budgetCents: null, remainingCents: null, spentShare: null } });
+    const o = answer({
+      build: { budgetCents: null },
+      headline: { budgetCents: null, remainingCents: null, spentShare: null },
+    });
     for (const c of all) text(c, o);
     const { w } = text(Figures, o);
     expect(w.get('[data-test="figure-budget"]').text()).toBe('—');
@@ -73,8 +170,28 @@ describe('the overview with missing inputs', () => {
     const o = answer({
       build: { labourRateCents: null },
       labourCosted: false,
-      headline: { remainingLabourCents: null, upgradesTotal: 1, estimatedHours: 2, actualHours: 3, netCents: 8_000, spentCents: 8_000 },
-      upgrades: { ...noUpgrades, upgradeId: [1], title: ['Rain-sensing wipers'], done: [false], partsCents: [8_000], labourCents: null, expensesCents: [0], recoveredCents: [0], expectedRecoveryCents: [0], estimatedHours: [2], actualHours: [3], valueAddedCents: [0] },
+      headline: {
+        remainingLabourCents: null,
+        upgradesTotal: 1,
+        estimatedHours: 2,
+        actualHours: 3,
+        netCents: 8_000,
+        spentCents: 8_000,
+      },
+      upgrades: {
+        ...noUpgrades,
+        upgradeId: [1],
+        title: ['Rain-sensing wipers'],
+        done: [false],
+        partsCents: [8_000],
+        labourCents: null,
+        expensesCents: [0],
+        recoveredCents: [0],
+        expectedRecoveryCents: [0],
+        estimatedHours: [2],
+        actualHours: [3],
+        valueAddedCents: [0],
+      },
     });
     expect(o.upgrades[0]).toMatchObject({ labourCents: null, netCents: 8_000, hoursRatio: 1.5 });
     for (const c of all) text(c, o);
@@ -96,9 +213,31 @@ describe('the overview with missing inputs', () => {
   it('only zero-hour upgrades: ratios and indices are dashes', () => {
     const o = answer({
       build: { budgetCents: 0 },
-      headline: { budgetCents: 0, remainingCents: 0, spentShare: null, bacCents: 0, reserveCents: 0, forecastCents: 0, forecastVarianceCents: 0, etcCents: 0, upgradesTotal: 2 },
+      headline: {
+        budgetCents: 0,
+        remainingCents: 0,
+        spentShare: null,
+        bacCents: 0,
+        reserveCents: 0,
+        forecastCents: 0,
+        forecastVarianceCents: 0,
+        etcCents: 0,
+        upgradesTotal: 2,
+      },
       earnedValue: { bac: 0 },
-      upgrades: { upgradeId: [1, 2], title: ['Auto-dimming mirror', 'Ambient lighting'], done: [false, false], partsCents: [0, 0], labourCents: [0, 0], expensesCents: [0, 0], recoveredCents: [0, 0], expectedRecoveryCents: [0, 0], estimatedHours: [0, 0], actualHours: [0, 0], valueAddedCents: [0, 0] },
+      upgrades: {
+        upgradeId: [1, 2],
+        title: ['Auto-dimming mirror', 'Ambient lighting'],
+        done: [false, false],
+        partsCents: [0, 0],
+        labourCents: [0, 0],
+        expensesCents: [0, 0],
+        recoveredCents: [0, 0],
+        expectedRecoveryCents: [0, 0],
+        estimatedHours: [0, 0],
+        actualHours: [0, 0],
+        valueAddedCents: [0, 0],
+      },
     });
     expect(o.upgrades.every((u) => u.hoursRatio === null && u.valuePerDollar === null)).toBe(true);
     for (const c of all) text(c, o);

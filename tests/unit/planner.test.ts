@@ -4,9 +4,24 @@ import { proposePlan, validatePlan } from '../../shared/planner/plan';
 import type { Plan, PlanEpisode, PlannerInput, PlannerUpgrade } from '../../shared/planner/types';
 import { AREAS, type Area } from '../../shared/domain';
 
-const up = (id: number, title: string, area: Area, estimatedHours: number, o: Partial<PlannerUpgrade> = {}): PlannerUpgrade => ({
-  id, title, area, estimatedHours, priority: 3, votes: 0, installState: 'queued', partsDueDate: null, prerequisiteIds: [],
-  fixedEpisode: null, ...o,
+const up = (
+  id: number,
+  title: string,
+  area: Area,
+  estimatedHours: number,
+  o: Partial<PlannerUpgrade> = {},
+): PlannerUpgrade => ({
+  id,
+  title,
+  area,
+  estimatedHours,
+  priority: 3,
+  votes: 0,
+  installState: 'queued',
+  partsDueDate: null,
+  prerequisiteIds: [],
+  fixedEpisode: null,
+  ...o,
 });
 const base = { startDate: '2025-01-06', shootHoursPerEpisode: 10, releaseCadenceDays: 14, shopHoursPerWeek: 20 };
 const ok = (p: Plan) => {
@@ -21,7 +36,12 @@ const tern: PlannerInput = {
   upgrades: [
     up(1, 'Projector LED headlamps', 'front', 3, { priority: 2 }),
     up(2, 'Larger-screen head unit', 'cabin', 4, { priority: 2, votes: 40 }),
-    up(3, 'Surround-view camera', 'electrical', 5, { priority: 1, votes: 80, prerequisiteIds: [2], partsDueDate: '2025-02-01' }),
+    up(3, 'Surround-view camera', 'electrical', 5, {
+      priority: 1,
+      votes: 80,
+      prerequisiteIds: [2],
+      partsDueDate: '2025-02-01',
+    }),
     up(4, 'Rear bumper cover with sensor mounts', 'rear', 3, { priority: 4 }),
     up(5, 'Blind-spot radar', 'rear', 3, { priority: 2, votes: 25, prerequisiteIds: [4] }),
     up(6, 'Heated seats', 'cabin', 6),
@@ -86,38 +106,61 @@ describe('proposePlan on the demo build', () => {
 
   it('is deterministic: the same plan again, and for the input in another order', () => {
     expect(proposePlan(tern)).toEqual(plan);
-    const shuffled = { ...tern, upgrades: [...tern.upgrades].reverse().map((u) => ({ ...u, prerequisiteIds: [...u.prerequisiteIds].reverse() })) };
+    const shuffled = {
+      ...tern,
+      upgrades: [...tern.upgrades].reverse().map((u) => ({ ...u, prerequisiteIds: [...u.prerequisiteIds].reverse() })),
+    };
     expect(proposePlan(shuffled)).toEqual(plan);
   });
 });
 
 describe('proposePlan rules', () => {
   it('keeps one area per episode when that delays no more urgent upgrade', () => {
-    const p = ok(proposePlan({
-      ...base,
-      upgrades: [
-        up(1, 'A1', 'cabin', 4, { votes: 50 }), up(2, 'B1', 'front', 4, { votes: 40 }), up(3, 'A2', 'cabin', 4, { votes: 30 }),
-        up(4, 'B2', 'front', 4, { votes: 20 }), up(5, 'A3', 'cabin', 2, { votes: 10 }), up(6, 'B3', 'front', 2, { votes: 5 }),
-      ],
-    }));
+    const p = ok(
+      proposePlan({
+        ...base,
+        upgrades: [
+          up(1, 'A1', 'cabin', 4, { votes: 50 }),
+          up(2, 'B1', 'front', 4, { votes: 40 }),
+          up(3, 'A2', 'cabin', 4, { votes: 30 }),
+          up(4, 'B2', 'front', 4, { votes: 20 }),
+          up(5, 'A3', 'cabin', 2, { votes: 10 }),
+          up(6, 'B3', 'front', 2, { votes: 5 }),
+        ],
+      }),
+    );
     // By votes alone episode 1 would be A1, B1, A3; all share priority 3, so the area wins.
-    expect(p.episodes.map((e) => [e.area, e.upgradeIds])).toEqual([['cabin', [1, 3, 5]], ['front', [2, 4, 6]]]);
+    expect(p.episodes.map((e) => [e.area, e.upgradeIds])).toEqual([
+      ['cabin', [1, 3, 5]],
+      ['front', [2, 4, 6]],
+    ]);
   });
 
   it('mixes areas rather than delay a more urgent level', () => {
-    const p = ok(proposePlan({
-      ...base,
-      upgrades: [up(1, 'A1', 'cabin', 4, { priority: 1 }), up(2, 'B1', 'front', 4, { priority: 2 }), up(3, 'A2', 'cabin', 4)],
-    }));
+    const p = ok(
+      proposePlan({
+        ...base,
+        upgrades: [
+          up(1, 'A1', 'cabin', 4, { priority: 1 }),
+          up(2, 'B1', 'front', 4, { priority: 2 }),
+          up(3, 'A2', 'cabin', 4),
+        ],
+      }),
+    );
     expect(p.episodes.map((e) => e.upgradeIds)).toEqual([[1, 2], [3]]);
   });
 
   it('skips shoot slots while everything waits on parts, keeping episode numbers consecutive', () => {
-    const p = ok(proposePlan({
-      ...base,
-      releaseCadenceDays: 7,
-      upgrades: [up(1, 'Late', 'front', 2, { partsDueDate: '2025-03-01', priority: 1 }), up(2, 'Ready', 'cabin', 2, { priority: 5 })],
-    }));
+    const p = ok(
+      proposePlan({
+        ...base,
+        releaseCadenceDays: 7,
+        upgrades: [
+          up(1, 'Late', 'front', 2, { partsDueDate: '2025-03-01', priority: 1 }),
+          up(2, 'Ready', 'cabin', 2, { priority: 5 }),
+        ],
+      }),
+    );
     expect(p.episodes.map((e) => [e.number, e.shootDate, e.upgradeIds])).toEqual([
       [1, '2025-01-13', [2]],
       [2, '2025-03-03', [1]], // first slot (start + k × 7 days) on or after the parts date
@@ -126,7 +169,13 @@ describe('proposePlan rules', () => {
 
   it('gives an oversize upgrade the shop weeks it needs before its shoot', () => {
     // Shop 20 h per 7-day slot; 25 h needs two slots, so it is shot on slot 2 and the next episode on slot 3.
-    const p = ok(proposePlan({ ...base, releaseCadenceDays: 7, upgrades: [up(1, 'Lift kit', 'wheels_chassis', 25), up(2, 'Mats', 'cabin', 1)] }));
+    const p = ok(
+      proposePlan({
+        ...base,
+        releaseCadenceDays: 7,
+        upgrades: [up(1, 'Lift kit', 'wheels_chassis', 25), up(2, 'Mats', 'cabin', 1)],
+      }),
+    );
     expect(p.episodes.map((e) => [e.shootDate, e.upgradeIds, e.oversize])).toEqual([
       ['2025-01-20', [1], true],
       ['2025-01-27', [2], false],
@@ -134,39 +183,87 @@ describe('proposePlan rules', () => {
   });
 
   it('keeps locked episodes as given and numbers new ones after them', () => {
-    const p = ok(proposePlan({
-      ...base,
-      fixedEpisodes: [{ number: 1, shootDate: '2025-01-15', releaseDate: '2025-01-29', upgradeIds: [11, 10, 999] }],
-      upgrades: [
-        up(10, 'Shot first', 'front', 8), up(11, 'Shot too', 'front', 8),
-        up(12, 'Installed', 'rear', 2, { fixedEpisode: 2, installState: 'installed' }),
-        up(13, 'Needs installed', 'rear', 2, { prerequisiteIds: [12] }),
-      ],
-    }));
+    const p = ok(
+      proposePlan({
+        ...base,
+        fixedEpisodes: [{ number: 1, shootDate: '2025-01-15', releaseDate: '2025-01-29', upgradeIds: [11, 10, 999] }],
+        upgrades: [
+          up(10, 'Shot first', 'front', 8),
+          up(11, 'Shot too', 'front', 8),
+          up(12, 'Installed', 'rear', 2, { fixedEpisode: 2, installState: 'installed' }),
+          up(13, 'Needs installed', 'rear', 2, { prerequisiteIds: [12] }),
+        ],
+      }),
+    );
     expect(p.episodes).toEqual([
-      { number: 1, shootDate: '2025-01-15', releaseDate: '2025-01-29', area: 'front', hours: 16, upgradeIds: [11, 10], locked: true, oversize: false },
-      { number: 2, shootDate: '2025-02-03', releaseDate: '2025-02-17', area: 'rear', hours: 2, upgradeIds: [12], locked: true, oversize: false },
-      { number: 3, shootDate: '2025-02-17', releaseDate: '2025-03-03', area: 'rear', hours: 2, upgradeIds: [13], locked: false, oversize: false },
+      {
+        number: 1,
+        shootDate: '2025-01-15',
+        releaseDate: '2025-01-29',
+        area: 'front',
+        hours: 16,
+        upgradeIds: [11, 10],
+        locked: true,
+        oversize: false,
+      },
+      {
+        number: 2,
+        shootDate: '2025-02-03',
+        releaseDate: '2025-02-17',
+        area: 'rear',
+        hours: 2,
+        upgradeIds: [12],
+        locked: true,
+        oversize: false,
+      },
+      {
+        number: 3,
+        shootDate: '2025-02-17',
+        releaseDate: '2025-03-03',
+        area: 'rear',
+        hours: 2,
+        upgradeIds: [13],
+        locked: false,
+        oversize: false,
+      },
     ]);
   });
 
   it('bounds capacity by shop hours per cadence as well as shoot hours', () => {
-    const p = ok(proposePlan({ ...base, shopHoursPerWeek: 3.5, upgrades: [1, 2, 3, 4].map((i) => up(i, `U${i}`, 'cabin', 3)) }));
+    const p = ok(
+      proposePlan({ ...base, shopHoursPerWeek: 3.5, upgrades: [1, 2, 3, 4].map((i) => up(i, `U${i}`, 'cabin', 3)) }),
+    );
     expect(p.capacityHours).toBe(7); // 3.5 h/week × 14 days / 7
-    expect(p.episodes.map((e) => e.upgradeIds)).toEqual([[1, 2], [3, 4]]);
+    expect(p.episodes.map((e) => e.upgradeIds)).toEqual([
+      [1, 2],
+      [3, 4],
+    ]);
   });
 
   it('refuses a cycle, naming it in prerequisite order', () => {
     const p = proposePlan({
       ...base,
-      upgrades: [up(1, 'A', 'cabin', 1, { prerequisiteIds: [3] }), up(2, 'B', 'cabin', 1, { prerequisiteIds: [1] }),
-        up(3, 'C', 'cabin', 1, { prerequisiteIds: [2] }), up(4, 'D', 'cabin', 1, { prerequisiteIds: [1] })],
+      upgrades: [
+        up(1, 'A', 'cabin', 1, { prerequisiteIds: [3] }),
+        up(2, 'B', 'cabin', 1, { prerequisiteIds: [1] }),
+        up(3, 'C', 'cabin', 1, { prerequisiteIds: [2] }),
+        up(4, 'D', 'cabin', 1, { prerequisiteIds: [1] }),
+      ],
     });
     expect(p).toEqual({ ok: false, cycle: [1, 2, 3] }); // A before B before C before A
   });
 
   it('reports upgrades with unusable hours, and what needs them, as unplaced', () => {
-    const p = ok(proposePlan({ ...base, upgrades: [up(1, 'Bad', 'cabin', NaN), up(2, 'After bad', 'cabin', 1, { prerequisiteIds: [1] }), up(3, 'Fine', 'front', 1)] }));
+    const p = ok(
+      proposePlan({
+        ...base,
+        upgrades: [
+          up(1, 'Bad', 'cabin', NaN),
+          up(2, 'After bad', 'cabin', 1, { prerequisiteIds: [1] }),
+          up(3, 'Fine', 'front', 1),
+        ],
+      }),
+    );
     expect(p.unplaced).toEqual([1, 2]);
     expect(p.episodes.flatMap((e) => e.upgradeIds)).toEqual([3]);
   });
@@ -187,7 +284,9 @@ function randomBuild(rand: () => number, n: number, perUpgrade: number): Planner
     const pre = new Set<number>();
     while (pre.size < Math.min(perUpgrade, k)) pre.add(ids[Math.floor(rand() * k)]);
     return up(id, `U${id}`, AREAS[Math.floor(rand() * AREAS.length)], Math.round(rand() * 48) / 4, {
-      priority: 1 + Math.floor(rand() * 5), votes: Math.floor(rand() * 100), prerequisiteIds: [...pre],
+      priority: 1 + Math.floor(rand() * 5),
+      votes: Math.floor(rand() * 100),
+      prerequisiteIds: [...pre],
       partsDueDate: rand() < 0.3 ? `2025-0${1 + Math.floor(rand() * 9)}-1${Math.floor(rand() * 9)}` : null,
     });
   });

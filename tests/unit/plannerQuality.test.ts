@@ -11,9 +11,21 @@ import { exactModel, slotOf } from '../../scripts/bench/planQuality';
 type Row = [id: number, area: Area, hours: number, priority: number, votes: number, after: number[], partsDue?: string];
 // 8 shoot hours an episode, 20 shop hours a week, weekly: capacity min(8, 20) = 8 h.
 const build = (rows: Row[]): PlannerInput => ({
-  startDate: '2027-01-04', shootHoursPerEpisode: 8, releaseCadenceDays: 7, shopHoursPerWeek: 20,
+  startDate: '2027-01-04',
+  shootHoursPerEpisode: 8,
+  releaseCadenceDays: 7,
+  shopHoursPerWeek: 20,
   upgrades: rows.map(([id, area, estimatedHours, priority, votes, prerequisiteIds, partsDueDate]): PlannerUpgrade => ({
-    id, title: `U${id}`, area, estimatedHours, priority, votes, installState: 'queued', partsDueDate: partsDueDate ?? null, prerequisiteIds, fixedEpisode: null,
+    id,
+    title: `U${id}`,
+    area,
+    estimatedHours,
+    priority,
+    votes,
+    installState: 'queued',
+    partsDueDate: partsDueDate ?? null,
+    prerequisiteIds,
+    fixedEpisode: null,
   })),
 });
 const ok = (p: Plan) => {
@@ -22,7 +34,7 @@ const ok = (p: Plan) => {
 };
 
 describe('fills episodes instead of stranding room', () => {
-  it('takes the larger same-level upgrade that fills the episode over a small one of the lead\'s area', () => {
+  it("takes the larger same-level upgrade that fills the episode over a small one of the lead's area", () => {
     // 3 + 1.5 + 5 + 5.5 + 5.5 + 1.5 = 22 h at 8 h an episode: at least ceil(22 / 8) = 3 episodes (by hand).
     // The rule before this fix led with 1 (rear, priority 1) and took 2 (rear, 1.5 h) first, for its
     // area and votes, leaving 3.5 h empty: [1,2] [3,6] [4] [5], four episodes.
@@ -35,7 +47,11 @@ describe('fills episodes instead of stranding room', () => {
       [6, 'sides', 1.5, 4, 27, [3]],
     ]);
     const plan = ok(proposePlan(input));
-    expect(plan.episodes.map((e) => e.upgradeIds)).toEqual([[1, 3], [2, 4], [6, 5]]);
+    expect(plan.episodes.map((e) => e.upgradeIds)).toEqual([
+      [1, 3],
+      [2, 4],
+      [6, 5],
+    ]);
     expect(validatePlan(input, plan)).toEqual([]);
     expect(plan.method).toBe('priority');
   });

@@ -32,11 +32,23 @@ const openBuild = (timeZone: string) => {
 };
 
 const episode = (number: number, shootDate: string | null, releaseDate: string | null): EpisodeRecord => ({
-  id: number, buildId: 1, number, title: `Episode ${number}`, summary: null, state: 'scheduled', shootDate, releaseDate,
-  videoUrl: null, runtimeSeconds: null, publishedAt: null, upgradeIds: [], version: 1,
+  id: number,
+  buildId: 1,
+  number,
+  title: `Episode ${number}`,
+  summary: null,
+  state: 'scheduled',
+  shootDate,
+  releaseDate,
+  videoUrl: null,
+  runtimeSeconds: null,
+  publishedAt: null,
+  upgradeIds: [],
+  version: 1,
 });
 const episodes = [episode(1, '2026-03-02', '2026-03-09'), episode(2, '2026-03-16', '2026-03-23')];
-const lastMarker = () => (drawn.at(-1)!.options.plugins as { bayslateToday: { value: number; label: string } }).bayslateToday;
+const lastMarker = () =>
+  (drawn.at(-1)!.options.plugins as { bayslateToday: { value: number; label: string } }).bayslateToday;
 
 afterEach(() => {
   vi.useRealTimers();

@@ -23,13 +23,16 @@ describe('SAFETY_CAUTIONS', () => {
     expect(caution.length).toBeLessThan(450);
   });
 
-  it.each([...SAFETY_FLAGS])("%s defers to the maker's service information, local codes and licensed practice", (flag) => {
-    const { caution } = SAFETY_CAUTIONS[flag];
-    expect(caution).toContain("vehicle maker's service information");
-    expect(caution).toContain('local codes');
-    expect(caution).toContain('licensed practice');
-    expect(caution.endsWith(SAFETY_DEFERRAL)).toBe(true);
-  });
+  it.each([...SAFETY_FLAGS])(
+    "%s defers to the maker's service information, local codes and licensed practice",
+    (flag) => {
+      const { caution } = SAFETY_CAUTIONS[flag];
+      expect(caution).toContain("vehicle maker's service information");
+      expect(caution).toContain('local codes');
+      expect(caution).toContain('licensed practice');
+      expect(caution.endsWith(SAFETY_DEFERRAL)).toBe(true);
+    },
+  );
 
   it('gives each flag its own wording (not one caution repeated)', () => {
     const specific = SAFETY_FLAGS.map((f) => SAFETY_CAUTIONS[f].caution.replace(SAFETY_DEFERRAL, '').trim());

@@ -43,7 +43,9 @@ const base: Omit<AttributionInput, 'lines'> = {
   ],
 };
 let nextId = 1;
-const line = (l: Partial<SaleLineInput> & Pick<SaleLineInput, 'soldOn' | 'sku' | 'quantity' | 'revenueCents'>): SaleLineInput => ({
+const line = (
+  l: Partial<SaleLineInput> & Pick<SaleLineInput, 'soldOn' | 'sku' | 'quantity' | 'revenueCents'>,
+): SaleLineInput => ({
   id: nextId++,
   orderId: `O-${nextId}`,
   lineId: null,
@@ -54,7 +56,9 @@ const line = (l: Partial<SaleLineInput> & Pick<SaleLineInput, 'soldOn' | 'sku' |
 
 describe('tags and episode names', () => {
   it('reads utm_campaign and utm_content from an absolute address or a path', () => {
-    expect(tagsOfUrl('https://shop.example/p/ht-a?utm_source=youtube&utm_campaign=project-tern&utm_content=episode-2')).toEqual({ campaign: 'project-tern', content: 'episode-2' });
+    expect(
+      tagsOfUrl('https://shop.example/p/ht-a?utm_source=youtube&utm_campaign=project-tern&utm_content=episode-2'),
+    ).toEqual({ campaign: 'project-tern', content: 'episode-2' });
     expect(tagsOfUrl('/p/ht-a?utm_campaign=project-tern')).toEqual({ campaign: 'project-tern', content: null });
     expect(tagsOfUrl('')).toEqual({ campaign: null, content: null });
   });
@@ -68,7 +72,19 @@ describe('tags and episode names', () => {
 
 describe('attribution', () => {
   it('a tagged line naming an episode is direct to it, whatever the date', () => {
-    const [l] = attributeLines({ ...base, lines: [line({ soldOn: '2026-12-31', sku: 'ht-a ', quantity: 1, revenueCents: 19_900, campaign: 'Project-Tern', content: 'episode-1' })] });
+    const [l] = attributeLines({
+      ...base,
+      lines: [
+        line({
+          soldOn: '2026-12-31',
+          sku: 'ht-a ',
+          quantity: 1,
+          revenueCents: 19_900,
+          campaign: 'Project-Tern',
+          content: 'episode-1',
+        }),
+      ],
+    });
     expect(l).toMatchObject({ attribution: 'direct', episodeId: 11, partId: 1001, reason: null });
     // 199.00 − 100.00 × 1 = 99.00
     expect(l!.marginCents).toBe(9_900);
@@ -110,8 +126,22 @@ describe('attribution', () => {
     const lines = attributeLines({
       ...base,
       lines: [
-        line({ soldOn: '2026-10-02', sku: 'HT-A', quantity: 1, revenueCents: 100, campaign: 'winter-sale', content: 'episode-1' }),
-        line({ soldOn: '2026-10-03', sku: 'HT-A', quantity: 1, revenueCents: 100, campaign: 'project-tern', content: 'episode-9' }),
+        line({
+          soldOn: '2026-10-02',
+          sku: 'HT-A',
+          quantity: 1,
+          revenueCents: 100,
+          campaign: 'winter-sale',
+          content: 'episode-1',
+        }),
+        line({
+          soldOn: '2026-10-03',
+          sku: 'HT-A',
+          quantity: 1,
+          revenueCents: 100,
+          campaign: 'project-tern',
+          content: 'episode-9',
+        }),
         line({ soldOn: '2026-10-04', sku: 'HT-A', quantity: 1, revenueCents: 100, content: 'episode-1' }),
       ],
     });
@@ -127,7 +157,15 @@ describe('attribution', () => {
     const lines = attributeLines({
       ...base,
       lines: [
-        line({ orderId: 'R-1', soldOn: '2026-10-05', sku: 'HT-A', quantity: 2, revenueCents: 39_800, campaign: 'project-tern', content: 'episode-1' }),
+        line({
+          orderId: 'R-1',
+          soldOn: '2026-10-05',
+          sku: 'HT-A',
+          quantity: 2,
+          revenueCents: 39_800,
+          campaign: 'project-tern',
+          content: 'episode-1',
+        }),
         // Refunded after the window, without tags: still direct to episode 1, because its sale was.
         line({ orderId: 'R-1', soldOn: '2026-12-20', sku: 'HT-A', quantity: -1, revenueCents: -19_900 }),
       ],
@@ -187,12 +225,21 @@ describe('margin, return and payback', () => {
     expect(short.marginNeededCents).toBe(60_000); // 1,000 − 400
 
     // Margin 1,000 reaches cost 1,000 on 10-05; on 10-09 the build spends 300 more (1,300 > 1,000).
-    const overtaken = paybackOf([{ date: '2026-10-05', cents: 100_000 }], [{ date: '2026-10-01', cents: 100_000 }, { date: '2026-10-09', cents: 30_000 }]);
+    const overtaken = paybackOf(
+      [{ date: '2026-10-05', cents: 100_000 }],
+      [
+        { date: '2026-10-01', cents: 100_000 },
+        { date: '2026-10-09', cents: 30_000 },
+      ],
+    );
     expect(overtaken.paybackDate).toBeNull();
     expect(overtaken.marginNeededCents).toBe(30_000);
 
     // Nothing spent: nothing to pay back, so no date either.
-    expect(paybackOf([{ date: '2026-10-05', cents: 5_000 }], [])).toMatchObject({ paybackDate: null, marginNeededCents: 0 });
+    expect(paybackOf([{ date: '2026-10-05', cents: 5_000 }], [])).toMatchObject({
+      paybackDate: null,
+      marginNeededCents: 0,
+    });
   });
 
   it('net cost by day follows the cost roll-up and ends at its total', () => {
@@ -209,7 +256,9 @@ describe('margin, return and payback', () => {
       ],
       labour: [{ upgradeId: 1, hours: 1.5, workedOn: '2026-10-02' }],
       expenses: [{ upgradeId: null, amountCents: 2_000, spentOn: '2026-10-03' }],
-      removedParts: [{ upgradeId: 1, disposition: 'sold', expectedSaleCents: null, actualSaleCents: 1_500, soldOn: '2026-10-04' }],
+      removedParts: [
+        { upgradeId: 1, disposition: 'sold', expectedSaleCents: null, actualSaleCents: 1_500, soldOn: '2026-10-04' },
+      ],
     });
     expect(days).toEqual([
       { date: '2026-10-01', cents: 6_000 },
@@ -230,7 +279,15 @@ describe('figures per episode, upgrade and series', () => {
       netCostByDay: [{ date: '2026-09-20', cents: 50_000 }],
       lines: [
         // Direct to ep 1: order D1, 2 × HT-A for 398.00 (margin 198.00).
-        line({ orderId: 'D1', soldOn: '2026-10-02', sku: 'HT-A', quantity: 2, revenueCents: 39_800, campaign: 'project-tern', content: 'episode-1' }),
+        line({
+          orderId: 'D1',
+          soldOn: '2026-10-02',
+          sku: 'HT-A',
+          quantity: 2,
+          revenueCents: 39_800,
+          campaign: 'project-tern',
+          content: 'episode-1',
+        }),
         // Assisted to ep 2: order A1, 1 × STORE-B for 75.00 (margin 35.00) and 1 × HT-A for 199.00 (margin 99.00).
         line({ orderId: 'A1', soldOn: '2026-10-22', sku: 'STORE-B', quantity: 1, revenueCents: 7_500 }),
         line({ orderId: 'A1', soldOn: '2026-10-22', sku: 'HT-A', quantity: 1, revenueCents: 19_900 }),

@@ -3,7 +3,18 @@
 import { describe, it, expect } from 'vitest';
 import { moneyToCents, readSalesCsv } from '../../server/services/salesCsv';
 
-const MAP = { orderId: 'o', lineId: null, date: 'd', sku: 's', quantity: 'q', revenue: 'r', currency: null, landingUrl: 'u', campaign: null, content: null };
+const MAP = {
+  orderId: 'o',
+  lineId: null,
+  date: 'd',
+  sku: 's',
+  quantity: 'q',
+  revenue: 'r',
+  currency: null,
+  landingUrl: 'u',
+  campaign: null,
+  content: null,
+};
 
 describe('amounts', () => {
   it('reads the usual ways a store writes money, in cents', () => {
@@ -38,7 +49,11 @@ describe('lines', () => {
   });
 
   it('a quantity of 0 or a fraction is refused with its line and column', () => {
-    const r = readSalesCsv(['o,d,s,q,r,u', 'A,2026-10-02,HT-A,0,1.00,', 'B,2026-10-02,HT-A,1.5,1.00,'].join('\n'), MAP, 'USD');
+    const r = readSalesCsv(
+      ['o,d,s,q,r,u', 'A,2026-10-02,HT-A,0,1.00,', 'B,2026-10-02,HT-A,1.5,1.00,'].join('\n'),
+      MAP,
+      'USD',
+    );
     expect(r.errors).toEqual([
       { line: 2, column: 'q', message: 'is 0; a line sells or refunds at least one unit' },
       { line: 3, column: 'q', message: '"1.5" is not a whole number' },

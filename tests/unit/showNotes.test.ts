@@ -98,7 +98,11 @@ describe('validateChapters', () => {
 
   it('requires a title of at most 100 characters', () => {
     const problems = validateChapters(
-      [{ startSeconds: 0, title: '   ' }, { startSeconds: 30, title: 'x'.repeat(101) }, { startSeconds: 60, title: 'y'.repeat(100) }],
+      [
+        { startSeconds: 0, title: '   ' },
+        { startSeconds: 30, title: 'x'.repeat(101) },
+        { startSeconds: 60, title: 'y'.repeat(100) },
+      ],
       null,
     );
     expect(problems).toEqual([
@@ -109,10 +113,19 @@ describe('validateChapters', () => {
 
   it('rejects negative, fractional and missing start times without throwing', () => {
     const problems = validateChapters(
-      [{ startSeconds: 0, title: 'a' }, { startSeconds: -1, title: 'b' }, { startSeconds: 1.5, title: 'c' }, { title: 'd' } as never],
+      [
+        { startSeconds: 0, title: 'a' },
+        { startSeconds: -1, title: 'b' },
+        { startSeconds: 1.5, title: 'c' },
+        { title: 'd' } as never,
+      ],
       null,
     );
-    expect(problems.map((p) => [p.index, p.field])).toEqual([[1, 'startSeconds'], [2, 'startSeconds'], [3, 'startSeconds']]);
+    expect(problems.map((p) => [p.index, p.field])).toEqual([
+      [1, 'startSeconds'],
+      [2, 'startSeconds'],
+      [3, 'startSeconds'],
+    ]);
   });
 });
 
@@ -130,7 +143,10 @@ describe('tagProductUrl', () => {
   });
 
   it('replaces existing utm_* parameters (any case) and leaves other parameters byte for byte', () => {
-    const out = tagProductUrl('https://shop.example/p?variant&color=red%20blue&utm_source=old&UTM_Medium=x&utm_term=kit', TAGS)!;
+    const out = tagProductUrl(
+      'https://shop.example/p?variant&color=red%20blue&utm_source=old&UTM_Medium=x&utm_term=kit',
+      TAGS,
+    )!;
     expect(out.startsWith('https://shop.example/p?variant&color=red%20blue&utm_source=youtube')).toBe(true);
     const u = new URL(out);
     expect(u.searchParams.getAll('utm_source')).toEqual(['youtube']);
@@ -170,9 +186,24 @@ describe('buildShowNotes', () => {
       { startSeconds: 1998, title: 'Radar working' },
     ],
     parts: [
-      { partNumber: 'HT-4410', description: 'Rear bumper cover with sensor mounts', productUrl: 'https://shop.example/p/ht-4410?ref=abc', upgradeId: 1 },
-      { partNumber: 'ht-4410', description: 'Rear bumper cover with sensor mounts', productUrl: 'https://shop.example/p/ht-4410?ref=abc', upgradeId: 1 },
-      { partNumber: 'HT-5520', description: 'Blind-spot radar module', productUrl: 'https://shop.example/p/ht-5520', upgradeId: 2 },
+      {
+        partNumber: 'HT-4410',
+        description: 'Rear bumper cover with sensor mounts',
+        productUrl: 'https://shop.example/p/ht-4410?ref=abc',
+        upgradeId: 1,
+      },
+      {
+        partNumber: 'ht-4410',
+        description: 'Rear bumper cover with sensor mounts',
+        productUrl: 'https://shop.example/p/ht-4410?ref=abc',
+        upgradeId: 1,
+      },
+      {
+        partNumber: 'HT-5520',
+        description: 'Blind-spot radar module',
+        productUrl: 'https://shop.example/p/ht-5520',
+        upgradeId: 2,
+      },
     ],
     upgrades: [
       { id: 1, title: 'Rear bumper cover', safetyFlags: ['lifting'] },
@@ -183,7 +214,8 @@ describe('buildShowNotes', () => {
     publicPageUrl: 'https://bayslate.example/b/project-tern',
   };
   const q = '?utm_source=youtube&utm_medium=video&utm_campaign=project-tern&utm_content=episode-3';
-  const specific = (flag: 'lifting' | 'high_current') => SAFETY_CAUTIONS[flag].caution.replace(SAFETY_DEFERRAL, '').trim();
+  const specific = (flag: 'lifting' | 'high_current') =>
+    SAFETY_CAUTIONS[flag].caution.replace(SAFETY_DEFERRAL, '').trim();
 
   it('produces the full description in order, with no problems', () => {
     const { text, problems } = buildShowNotes(input);
@@ -223,7 +255,10 @@ describe('buildShowNotes', () => {
     const { text, problems } = buildShowNotes({
       ...input,
       title: ' ',
-      chapters: [{ startSeconds: 4, title: 'Intro' }, { startSeconds: 10, title: '' }],
+      chapters: [
+        { startSeconds: 4, title: 'Intro' },
+        { startSeconds: 10, title: '' },
+      ],
       parts: [
         { partNumber: 'HT-1', description: 'No link', productUrl: null, upgradeId: 1 },
         { partNumber: 'HT-2', description: 'Bad link', productUrl: 'ftp://x.example/a', upgradeId: 1 },

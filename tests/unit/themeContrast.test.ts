@@ -7,7 +7,9 @@ import { themeVars, chartColors, type ThemeVars } from '../../src/theme';
 
 /** WCAG 2 relative luminance of #rrggbb. */
 function luminance(hex: string): number {
-  const [r, g, b] = [1, 3, 5].map((i) => parseInt(hex.slice(i, i + 2), 16) / 255).map((c) => (c <= 0.03928 ? c / 12.92 : ((c + 0.055) / 1.055) ** 2.4));
+  const [r, g, b] = [1, 3, 5]
+    .map((i) => parseInt(hex.slice(i, i + 2), 16) / 255)
+    .map((c) => (c <= 0.03928 ? c / 12.92 : ((c + 0.055) / 1.055) ** 2.4));
   return 0.2126 * r + 0.7152 * g + 0.0722 * b;
 }
 function contrast(a: string, b: string): number {
@@ -16,17 +18,48 @@ function contrast(a: string, b: string): number {
 }
 
 const TEXT: [keyof ThemeVars, keyof ThemeVars][] = [
-  ['text', 'body'], ['text', 'panel'], ['text', 'head'], ['text', 'bar'], ['strong', 'panel'],
-  ['muted', 'body'], ['muted', 'panel'], ['muted', 'head'], ['muted', 'bar'],
-  ['onPrimary', 'primary'], ['primaryText', 'panel'], ['primaryText', 'body'], ['primaryText', 'head'],
-  ['signal', 'panel'], ['signal', 'body'], ['signal', 'signalSoft'], ['onSignalSoft', 'signalSoft'],
-  ['good', 'panel'], ['good', 'body'], ['good', 'goodSoft'], ['onGoodSoft', 'goodSoft'],
-  ['danger', 'panel'], ['danger', 'body'], ['danger', 'dangerSoft'], ['onDangerSoft', 'dangerSoft'],
-  ['progress', 'panel'], ['progress', 'body'],
-  ['onRail', 'rail'], ['railMuted', 'rail'], ['onRail', 'railHover'], ['onRail', 'railActive'],
-  ['onStage', 'stage'], ['onInverse', 'inverse'], ['markInk', 'markTile'],
+  ['text', 'body'],
+  ['text', 'panel'],
+  ['text', 'head'],
+  ['text', 'bar'],
+  ['strong', 'panel'],
+  ['muted', 'body'],
+  ['muted', 'panel'],
+  ['muted', 'head'],
+  ['muted', 'bar'],
+  ['onPrimary', 'primary'],
+  ['primaryText', 'panel'],
+  ['primaryText', 'body'],
+  ['primaryText', 'head'],
+  ['signal', 'panel'],
+  ['signal', 'body'],
+  ['signal', 'signalSoft'],
+  ['onSignalSoft', 'signalSoft'],
+  ['good', 'panel'],
+  ['good', 'body'],
+  ['good', 'goodSoft'],
+  ['onGoodSoft', 'goodSoft'],
+  ['danger', 'panel'],
+  ['danger', 'body'],
+  ['danger', 'dangerSoft'],
+  ['onDangerSoft', 'dangerSoft'],
+  ['progress', 'panel'],
+  ['progress', 'body'],
+  ['onRail', 'rail'],
+  ['railMuted', 'rail'],
+  ['onRail', 'railHover'],
+  ['onRail', 'railActive'],
+  ['onStage', 'stage'],
+  ['onInverse', 'inverse'],
+  ['markInk', 'markTile'],
 ];
-const EDGES: [keyof ThemeVars, keyof ThemeVars][] = [['edge', 'panel'], ['edge', 'body'], ['focus', 'panel'], ['focus', 'body'], ['primary', 'panel']];
+const EDGES: [keyof ThemeVars, keyof ThemeVars][] = [
+  ['edge', 'panel'],
+  ['edge', 'body'],
+  ['focus', 'panel'],
+  ['focus', 'body'],
+  ['primary', 'panel'],
+];
 
 describe('theme contrast', () => {
   it('the contrast formula gives the published figures', () => {
@@ -41,7 +74,9 @@ describe('theme contrast', () => {
     const v = themeVars(dark);
     const mode = dark ? 'dark' : 'light';
     it(`text pairs reach 4.5:1 in ${mode} mode`, () => {
-      const low = TEXT.map(([fg, bg]) => [`${fg} on ${bg}`, contrast(v[fg], v[bg])] as const).filter(([, c]) => c < 4.5);
+      const low = TEXT.map(([fg, bg]) => [`${fg} on ${bg}`, contrast(v[fg], v[bg])] as const).filter(
+        ([, c]) => c < 4.5,
+      );
       expect(low).toEqual([]);
     });
     it(`edges and the focus ring reach 3:1 in ${mode} mode`, () => {

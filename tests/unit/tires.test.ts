@@ -69,7 +69,13 @@ describe('parseTireSize: metric sizes against published tables', () => {
   });
 
   it('agrees with an independent millimetre calculation on every field', () => {
-    for (const [w, a, r] of [[265, 70, 17], [275, 55, 20], [275, 65, 20], [225, 45, 17], [315, 35, 21]] as const) {
+    for (const [w, a, r] of [
+      [265, 70, 17],
+      [275, 55, 20],
+      [275, 65, 20],
+      [225, 45, 17],
+      [315, 35, 21],
+    ] as const) {
       const s = parsed(`${w}/${a}R${r}`);
       const d = independentDiameterIn(w, a, r);
       expect(s.overallDiameterIn).toBeCloseTo(d, 9);

@@ -16,8 +16,16 @@ import { ApiError } from '../../src/api/http';
 function screen(key: () => readonly unknown[] | null, fetch: () => Promise<string>, client = createQueryClient()) {
   const Screen = defineComponent({
     setup() {
-      const q = useApiQuery(key, fetch, { fallback: 'Could not load the episodes.', byStatus: { 404: 'This build does not exist.' } });
-      return () => h('div', [q.loading.value ? h('p', { 'data-test': 'loading' }, 'Loading') : null, q.error.value ? h('p', { role: 'alert' }, q.error.value) : null, q.data.value ? h('p', { 'data-test': 'data' }, q.data.value) : null]);
+      const q = useApiQuery(key, fetch, {
+        fallback: 'Could not load the episodes.',
+        byStatus: { 404: 'This build does not exist.' },
+      });
+      return () =>
+        h('div', [
+          q.loading.value ? h('p', { 'data-test': 'loading' }, 'Loading') : null,
+          q.error.value ? h('p', { role: 'alert' }, q.error.value) : null,
+          q.data.value ? h('p', { 'data-test': 'data' }, q.data.value) : null,
+        ]);
     },
   });
   return { wrapper: mount(Screen, { global: { plugins: [[VueQueryPlugin, { queryClient: client }]] } }), client };
@@ -25,8 +33,14 @@ function screen(key: () => readonly unknown[] | null, fetch: () => Promise<strin
 
 describe('errorMessage', () => {
   it("uses the server's words, a status's words, or the screen's fallback", () => {
-    expect(errorMessage(new ApiError(409, 'stale', 'Someone saved first.'), 'Could not save.')).toBe('Someone saved first.');
-    expect(errorMessage(new ApiError(404, 'not_found', 'Not found.'), 'Could not load.', { 404: 'This build does not exist.' })).toBe('This build does not exist.');
+    expect(errorMessage(new ApiError(409, 'stale', 'Someone saved first.'), 'Could not save.')).toBe(
+      'Someone saved first.',
+    );
+    expect(
+      errorMessage(new ApiError(404, 'not_found', 'Not found.'), 'Could not load.', {
+        404: 'This build does not exist.',
+      }),
+    ).toBe('This build does not exist.');
     expect(errorMessage(new TypeError('fetch failed'), 'Could not load.')).toBe('Could not load.');
     expect(errorMessage('odd', 'Could not load.')).toBe('Could not load.');
   });
@@ -47,7 +61,10 @@ describe('errorMessage', () => {
 describe('useApiQuery', () => {
   it('shows loading, then the data', async () => {
     let resolve!: (v: string) => void;
-    const { wrapper } = screen(() => keys.episodes(1), () => new Promise<string>((r) => (resolve = r)));
+    const { wrapper } = screen(
+      () => keys.episodes(1),
+      () => new Promise<string>((r) => (resolve = r)),
+    );
     await flushPromises();
     expect(wrapper.find('[data-test="loading"]').exists()).toBe(true);
     resolve('Episode 4');
@@ -58,9 +75,18 @@ describe('useApiQuery', () => {
   });
 
   it("words a failure once: the server's message, a status's words, or the fallback", async () => {
-    const server = screen(() => keys.episodes(1), () => Promise.reject(new ApiError(403, 'forbidden', 'Your role cannot see this.')));
-    const missing = screen(() => keys.episodes(2), () => Promise.reject(new ApiError(404, 'not_found', 'Not found.')));
-    const offline = screen(() => keys.episodes(3), () => Promise.reject(new TypeError('Failed to fetch')));
+    const server = screen(
+      () => keys.episodes(1),
+      () => Promise.reject(new ApiError(403, 'forbidden', 'Your role cannot see this.')),
+    );
+    const missing = screen(
+      () => keys.episodes(2),
+      () => Promise.reject(new ApiError(404, 'not_found', 'Not found.')),
+    );
+    const offline = screen(
+      () => keys.episodes(3),
+      () => Promise.reject(new TypeError('Failed to fetch')),
+    );
     await flushPromises();
     expect(server.wrapper.find('[role="alert"]').text()).toBe('Your role cannot see this.');
     expect(missing.wrapper.find('[role="alert"]').text()).toBe('This build does not exist.');
@@ -69,7 +95,10 @@ describe('useApiQuery', () => {
 
   it('asks for nothing while the key is null', async () => {
     let calls = 0;
-    const { wrapper } = screen(() => null, async () => String(++calls));
+    const { wrapper } = screen(
+      () => null,
+      async () => String(++calls),
+    );
     await flushPromises();
     expect(calls).toBe(0);
     expect(wrapper.find('[data-test="data"]').exists()).toBe(false);
@@ -100,7 +129,17 @@ describe('key factory invalidation', () => {
 
   it('keeps the keys of one build under one prefix', () => {
     const prefix = keys.build(3);
-    for (const k of [keys.buildRecord(3), keys.upgrades(3), keys.upgrades(3, { q: 'x' }), keys.everyUpgrade(3), keys.upgrade(3, 9), keys.episodes(3), keys.parts(3), keys.viewerRequests(3, 'new'), keys.media(3)])
+    for (const k of [
+      keys.buildRecord(3),
+      keys.upgrades(3),
+      keys.upgrades(3, { q: 'x' }),
+      keys.everyUpgrade(3),
+      keys.upgrade(3, 9),
+      keys.episodes(3),
+      keys.parts(3),
+      keys.viewerRequests(3, 'new'),
+      keys.media(3),
+    ])
       expect(k.slice(0, 2)).toEqual([...prefix]);
     expect(keys.upgrades(3, { page: 1 }).slice(0, 3)).toEqual([...keys.upgrades(3)]);
   });

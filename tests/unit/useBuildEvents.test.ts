@@ -37,7 +37,10 @@ function listen() {
   client.setQueryData(keys.episodes(8), { episodes: [] });
   const Screen = defineComponent({
     setup() {
-      useBuildEvents(() => 7, (what) => heard.push(what));
+      useBuildEvents(
+        () => 7,
+        (what) => heard.push(what),
+      );
       return () => h('div');
     },
   });

@@ -24,7 +24,10 @@ function labourList(send: (b: Body) => Promise<unknown>, remove: () => Promise<u
       const form = reactive({ hours: 1 });
       async function log() {
         const body: Body = { upgradeId: 5, workedOn: '2027-03-02', hours: form.hours, kind: 'install' };
-        await editor.save(body, (b) => (sent.push(b), send(b)), { done: `${b(body)} logged.`, failed: 'Could not log the hours.' });
+        await editor.save(body, (b) => (sent.push(b), send(b)), {
+          done: `${b(body)} logged.`,
+          failed: 'Could not log the hours.',
+        });
       }
       const b = (x: Body) => `${x.hours} h`;
       return () =>
@@ -32,7 +35,11 @@ function labourList(send: (b: Body) => Promise<unknown>, remove: () => Promise<u
           h('button', { 'data-test': 'open', onClick: () => (editor.open.value = true) }, 'Log hours'),
           editor.open.value
             ? h('form', { onSubmit: (e: Event) => (e.preventDefault(), log()) }, [
-                h('input', { id: 'hours', value: form.hours, onInput: (e: Event) => (form.hours = Number((e.target as HTMLInputElement).value)) }),
+                h('input', {
+                  id: 'hours',
+                  value: form.hours,
+                  onInput: (e: Event) => (form.hours = Number((e.target as HTMLInputElement).value)),
+                }),
                 editor.fb('hours').feedback ? h('p', { 'data-test': 'err-hours' }, editor.fb('hours').feedback) : null,
                 h('button', { type: 'submit' }, 'Save hours'),
               ])
@@ -42,14 +49,23 @@ function labourList(send: (b: Body) => Promise<unknown>, remove: () => Promise<u
             {
               'data-test': 'delete',
               onClick: () =>
-                editor.confirmRemove({ title: 'Delete this time entry?', content: '2 h on 2027-03-02.', positiveText: 'Delete the entry', send: () => (removed++, remove()), done: 'Entry deleted.', failed: 'Could not delete the entry.' }),
+                editor.confirmRemove({
+                  title: 'Delete this time entry?',
+                  content: '2 h on 2027-03-02.',
+                  positiveText: 'Delete the entry',
+                  send: () => (removed++, remove()),
+                  done: 'Entry deleted.',
+                  failed: 'Could not delete the entry.',
+                }),
             },
             'Delete',
           ),
         ]);
     },
   });
-  const Root = defineComponent({ setup: () => () => h(NMessageProvider, null, () => h(NDialogProvider, null, () => h(List))) });
+  const Root = defineComponent({
+    setup: () => () => h(NMessageProvider, null, () => h(NDialogProvider, null, () => h(List))),
+  });
   const wrapper = mount(Root, { attachTo: document.body });
   return { wrapper, sent, changed: () => changed, removed: () => removed };
 }
@@ -90,7 +106,9 @@ describe('useLineEditor', () => {
 
   it("puts the server's field errors on their field and keeps the form open", async () => {
     const { wrapper, changed } = labourList(async () => {
-      throw new ApiError(400, 'bad_request', 'Check these fields: hours.', [{ path: 'hours', message: 'is more than this person logged today allows' }]);
+      throw new ApiError(400, 'bad_request', 'Check these fields: hours.', [
+        { path: 'hours', message: 'is more than this person logged today allows' },
+      ]);
     });
     await logHours(wrapper, '3');
     expect(wrapper.find('[data-test="err-hours"]').text()).toBe('is more than this person logged today allows');

@@ -17,7 +17,11 @@ function expenseForm(send: (data: CreateExpenseInput) => Promise<{ id: number }>
       const form = useZodForm(createExpenseSchema);
       const draft = reactive({ description: '', amount: '', spentOn: '2027-02-01' });
       async function save() {
-        const body = { description: draft.description, amountCents: Math.round(Number(draft.amount) * 100), spentOn: draft.spentOn };
+        const body = {
+          description: draft.description,
+          amountCents: Math.round(Number(draft.amount) * 100),
+          spentOn: draft.spentOn,
+        };
         const r = await form.submit(body, (data) => {
           sent.push(data);
           return send(data);
@@ -27,11 +31,23 @@ function expenseForm(send: (data: CreateExpenseInput) => Promise<{ id: number }>
       return () =>
         h('form', { onSubmit: (e: Event) => (e.preventDefault(), save()) }, [
           h('label', { for: 'd' }, 'What for'),
-          h('input', { id: 'd', value: draft.description, onInput: (e: Event) => (draft.description = (e.target as HTMLInputElement).value) }),
-          form.errors.value.description ? h('p', { 'data-test': 'err-description' }, form.errors.value.description) : null,
+          h('input', {
+            id: 'd',
+            value: draft.description,
+            onInput: (e: Event) => (draft.description = (e.target as HTMLInputElement).value),
+          }),
+          form.errors.value.description
+            ? h('p', { 'data-test': 'err-description' }, form.errors.value.description)
+            : null,
           h('label', { for: 'a' }, 'Amount (dollars)'),
-          h('input', { id: 'a', value: draft.amount, onInput: (e: Event) => (draft.amount = (e.target as HTMLInputElement).value) }),
-          form.errors.value.amountCents ? h('p', { 'data-test': 'err-amountCents' }, form.errors.value.amountCents) : null,
+          h('input', {
+            id: 'a',
+            value: draft.amount,
+            onInput: (e: Event) => (draft.amount = (e.target as HTMLInputElement).value),
+          }),
+          form.errors.value.amountCents
+            ? h('p', { 'data-test': 'err-amountCents' }, form.errors.value.amountCents)
+            : null,
           form.failure.value ? h('p', { role: 'alert' }, form.failure.value) : null,
           h('button', { type: 'submit', disabled: form.busy.value }, 'Add expense'),
         ]);
@@ -71,7 +87,9 @@ describe('useZodForm', () => {
 
   it("shows the server's field errors on the right field", async () => {
     const { wrapper, saved } = expenseForm(async () => {
-      throw new ApiError(400, 'bad_request', 'Check these fields: amountCents.', [{ path: 'amountCents', message: 'is more than the budget allows' }]);
+      throw new ApiError(400, 'bad_request', 'Check these fields: amountCents.', [
+        { path: 'amountCents', message: 'is more than the budget allows' },
+      ]);
     });
     await fillAndSubmit(wrapper, 'Wheels', '9000');
     expect(saved).toEqual([]);

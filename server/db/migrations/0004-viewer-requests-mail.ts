@@ -79,5 +79,7 @@ export async function up({ context: { sequelize } }: { context: MigrationContext
 }
 
 export async function down({ context: { sequelize } }: { context: MigrationContext }) {
-  await sequelize.query(`DROP TABLE mail_outbox; DROP TABLE unsubscribes; DROP TABLE viewer_votes; DROP TABLE viewer_requests;`);
+  await sequelize.query(
+    `DROP TABLE mail_outbox; DROP TABLE unsubscribes; DROP TABLE viewer_votes; DROP TABLE viewer_requests;`,
+  );
 }

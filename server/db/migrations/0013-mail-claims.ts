@@ -10,5 +10,7 @@ export async function up({ context: { sequelize } }: { context: MigrationContext
 }
 
 export async function down({ context: { sequelize } }: { context: MigrationContext }) {
-  await sequelize.query(`DROP INDEX mail_outbox_failed_idx; ALTER TABLE mail_outbox DROP COLUMN claimed_until, DROP COLUMN claim_id;`);
+  await sequelize.query(
+    `DROP INDEX mail_outbox_failed_idx; ALTER TABLE mail_outbox DROP COLUMN claimed_until, DROP COLUMN claim_id;`,
+  );
 }

@@ -20,10 +20,22 @@ export async function rekeyViewerHashes(sequelize: Sequelize): Promise<number> {
       if (next === r.email_hash) continue;
       moved += 1;
       const replacements = { old: r.email_hash, next, email: r.email };
-      await sequelize.query(`INSERT INTO viewer_key_rekeys (old_hash, new_hash) VALUES (:old, :next) ON CONFLICT (old_hash) DO UPDATE SET new_hash = EXCLUDED.new_hash`, { replacements, transaction: t });
-      await sequelize.query(`UPDATE viewer_votes SET email_hash = :next WHERE email_hash = :old`, { replacements, transaction: t });
-      await sequelize.query(`INSERT INTO unsubscribes (email_hash) SELECT :next WHERE EXISTS (SELECT 1 FROM unsubscribes WHERE email_hash = :old) ON CONFLICT DO NOTHING`, { replacements, transaction: t });
-      await sequelize.query(`UPDATE mail_outbox SET dedupe_key = regexp_replace(dedupe_key, ':' || :old || '$', ':' || :next) WHERE dedupe_key LIKE 'live:%:' || :old`, { replacements, transaction: t });
+      await sequelize.query(
+        `INSERT INTO viewer_key_rekeys (old_hash, new_hash) VALUES (:old, :next) ON CONFLICT (old_hash) DO UPDATE SET new_hash = EXCLUDED.new_hash`,
+        { replacements, transaction: t },
+      );
+      await sequelize.query(`UPDATE viewer_votes SET email_hash = :next WHERE email_hash = :old`, {
+        replacements,
+        transaction: t,
+      });
+      await sequelize.query(
+        `INSERT INTO unsubscribes (email_hash) SELECT :next WHERE EXISTS (SELECT 1 FROM unsubscribes WHERE email_hash = :old) ON CONFLICT DO NOTHING`,
+        { replacements, transaction: t },
+      );
+      await sequelize.query(
+        `UPDATE mail_outbox SET dedupe_key = regexp_replace(dedupe_key, ':' || :old || '$', ':' || :next) WHERE dedupe_key LIKE 'live:%:' || :old`,
+        { replacements, transaction: t },
+      );
     }
     return moved;
   });
@@ -53,5 +65,7 @@ export async function up({ context: { sequelize } }: { context: MigrationContext
 }
 
 export async function down({ context: { sequelize } }: { context: MigrationContext }) {
-  await sequelize.query(`DROP TRIGGER unsubscribes_use_current_hash ON unsubscribes; DROP FUNCTION unsubscribes_use_current_hash(); DROP TABLE viewer_key_rekeys;`);
+  await sequelize.query(
+    `DROP TRIGGER unsubscribes_use_current_hash ON unsubscribes; DROP FUNCTION unsubscribes_use_current_hash(); DROP TABLE viewer_key_rekeys;`,
+  );
 }

@@ -11,5 +11,7 @@ export async function up({ context: { sequelize } }: { context: MigrationContext
 }
 
 export async function down({ context: { sequelize } }: { context: MigrationContext }) {
-  await sequelize.query(`DROP INDEX builds_calendar_token_hash_key; ALTER TABLE builds DROP COLUMN calendar_token_hash;`);
+  await sequelize.query(
+    `DROP INDEX builds_calendar_token_hash_key; ALTER TABLE builds DROP COLUMN calendar_token_hash;`,
+  );
 }

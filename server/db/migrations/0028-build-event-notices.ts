@@ -4,7 +4,16 @@
 // payload the overview cache reads as a bare id.
 import type { MigrationContext } from '../migrate';
 
-const TABLES = ['upgrades', 'parts', 'labour_entries', 'expenses', 'removed_parts', 'episodes', 'media', 'viewer_requests'];
+const TABLES = [
+  'upgrades',
+  'parts',
+  'labour_entries',
+  'expenses',
+  'removed_parts',
+  'episodes',
+  'media',
+  'viewer_requests',
+];
 
 export async function up({ context: { sequelize } }: { context: MigrationContext }) {
   await sequelize.query(`

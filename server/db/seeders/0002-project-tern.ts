@@ -1,9 +1,26 @@
 // The "Project Tern" demo build: upgrades with prerequisites, parts, removed parts, labour and
 // expenses (data in ./data/project-tern.ts). Demo mode only; episodes come from seeder 0003.
 import type { MigrationContext } from '../migrate';
-import { Activity, Build, Expense, LabourEntry, Part, RemovedPart, Upgrade, UpgradePrerequisite, User } from '../../models';
+import {
+  Activity,
+  Build,
+  Expense,
+  LabourEntry,
+  Part,
+  RemovedPart,
+  Upgrade,
+  UpgradePrerequisite,
+  User,
+} from '../../models';
 import { DEMO_USERS } from './0001-demo-users';
-import { TERN_BUILD, TERN_EXPENSES, TERN_LABOUR, TERN_UPGRADES, productUrlFor, type SeedStatus } from './data/project-tern';
+import {
+  TERN_BUILD,
+  TERN_EXPENSES,
+  TERN_LABOUR,
+  TERN_UPGRADES,
+  productUrlFor,
+  type SeedStatus,
+} from './data/project-tern';
 
 const cents = (dollars: number) => Math.round(dollars * 100);
 
@@ -91,7 +108,9 @@ export async function up({ context: { sequelize } }: { context: MigrationContext
       }
     }
 
-    const edges = TERN_UPGRADES.flatMap((u) => (u.needs ?? []).map((n) => ({ buildId: build.id, upgradeId: ids.get(u.key)!, prerequisiteId: ids.get(n)! })));
+    const edges = TERN_UPGRADES.flatMap((u) =>
+      (u.needs ?? []).map((n) => ({ buildId: build.id, upgradeId: ids.get(u.key)!, prerequisiteId: ids.get(n)! })),
+    );
     await UpgradePrerequisite.bulkCreate(edges, { transaction });
 
     await LabourEntry.bulkCreate(

@@ -17,18 +17,83 @@ interface SeedEpisode {
 }
 
 const EPISODES: SeedEpisode[] = [
-  { title: 'First light: projector headlamps and the big screen', state: 'live', shoot: '2026-10-01', release: '2026-10-08', runtime: 1460, upgrades: ['headlamps', 'headUnit'] },
-  { title: 'Up top: roof rails and crossbars', state: 'live', shoot: '2026-10-07', release: '2026-10-15', runtime: 980, upgrades: ['roofRails', 'crossbars'] },
-  { title: 'The bumper that makes radar possible', state: 'live', shoot: '2026-10-13', release: '2026-10-22', runtime: 1210, upgrades: ['rearBumper'] },
-  { title: 'Step up and hitch up', state: 'live', shoot: '2026-10-28', release: '2026-11-05', runtime: 1330, upgrades: ['runningBoards', 'hitch'] },
-  { title: 'Console and mirror swap', state: 'live', shoot: '2026-11-03', release: '2026-11-12', runtime: 890, upgrades: ['consoleTrim', 'autoDimMirror'] },
-  { title: 'Behind the airbag, and radar that watches your back', state: 'in_edit', shoot: '2026-11-24', release: 4, upgrades: ['clockspring', 'blindSpot'] },
-  { title: 'Ready to tow', state: 'scheduled', shoot: 2, release: 9, upgrades: ['trailerWiring', 'brakeController', 'wirelessCharging'] },
+  {
+    title: 'First light: projector headlamps and the big screen',
+    state: 'live',
+    shoot: '2026-10-01',
+    release: '2026-10-08',
+    runtime: 1460,
+    upgrades: ['headlamps', 'headUnit'],
+  },
+  {
+    title: 'Up top: roof rails and crossbars',
+    state: 'live',
+    shoot: '2026-10-07',
+    release: '2026-10-15',
+    runtime: 980,
+    upgrades: ['roofRails', 'crossbars'],
+  },
+  {
+    title: 'The bumper that makes radar possible',
+    state: 'live',
+    shoot: '2026-10-13',
+    release: '2026-10-22',
+    runtime: 1210,
+    upgrades: ['rearBumper'],
+  },
+  {
+    title: 'Step up and hitch up',
+    state: 'live',
+    shoot: '2026-10-28',
+    release: '2026-11-05',
+    runtime: 1330,
+    upgrades: ['runningBoards', 'hitch'],
+  },
+  {
+    title: 'Console and mirror swap',
+    state: 'live',
+    shoot: '2026-11-03',
+    release: '2026-11-12',
+    runtime: 890,
+    upgrades: ['consoleTrim', 'autoDimMirror'],
+  },
+  {
+    title: 'Behind the airbag, and radar that watches your back',
+    state: 'in_edit',
+    shoot: '2026-11-24',
+    release: 4,
+    upgrades: ['clockspring', 'blindSpot'],
+  },
+  {
+    title: 'Ready to tow',
+    state: 'scheduled',
+    shoot: 2,
+    release: 9,
+    upgrades: ['trailerWiring', 'brakeController', 'wirelessCharging'],
+  },
   { title: 'Warm hands, soft light', state: 'draft', shoot: 9, release: 16, upgrades: ['heatedWheel', 'ambient'] },
-  { title: 'Twenty-inch stance', state: 'draft', shoot: 16, release: 23, upgrades: ['wheels20', 'tpms', 'skidPlate', 'mudFlaps'] },
-  { title: 'Fog lamps and smarter wipers', state: 'draft', shoot: 23, release: 30, upgrades: ['lowerGrille', 'fogLamps', 'rainWipers'] },
+  {
+    title: 'Twenty-inch stance',
+    state: 'draft',
+    shoot: 16,
+    release: 23,
+    upgrades: ['wheels20', 'tpms', 'skidPlate', 'mudFlaps'],
+  },
+  {
+    title: 'Fog lamps and smarter wipers',
+    state: 'draft',
+    shoot: 23,
+    release: 30,
+    upgrades: ['lowerGrille', 'fogLamps', 'rainWipers'],
+  },
   { title: 'Hands-free liftgate', state: 'draft', shoot: 30, release: 37, upgrades: ['powerLiftgate', 'tailLamps'] },
-  { title: 'Folding mirrors and remote start', state: 'draft', shoot: 37, release: 44, upgrades: ['powerMirrors', 'remoteStart', 'inverter'] },
+  {
+    title: 'Folding mirrors and remote start',
+    state: 'draft',
+    shoot: 37,
+    release: 44,
+    upgrades: ['powerMirrors', 'remoteStart', 'inverter'],
+  },
   { title: 'Seeing all the way round', state: 'draft', shoot: 44, release: 51, upgrades: ['surroundView'] },
 ];
 
@@ -71,7 +136,10 @@ export async function up({ context: { sequelize } }: { context: MigrationContext
         { transaction },
       );
       for (const [position, key] of e.upgrades.entries()) {
-        await Upgrade.update({ episodeId: ep.id, episodePosition: position }, { where: { id: idOf(key), buildId: build.id }, transaction });
+        await Upgrade.update(
+          { episodeId: ep.id, episodePosition: position },
+          { where: { id: idOf(key), buildId: build.id }, transaction },
+        );
       }
     }
   });

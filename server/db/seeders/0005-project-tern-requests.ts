@@ -15,10 +15,23 @@ const VOTERS = [
 ];
 
 const REQUESTS: { title: string; details: string | null; voters: number[]; accept?: string }[] = [
-  { title: 'Heated steering wheel before winter', details: 'Cold mornings here. Would love to see the wheel swap, airbag steps and all.', voters: [0, 1, 2, 3], accept: 'heatedWheel' },
-  { title: 'Puddle lamps in the side mirrors', details: 'The top trim lights the ground when you unlock. Is that a plug-in job?', voters: [1, 4, 2] },
+  {
+    title: 'Heated steering wheel before winter',
+    details: 'Cold mornings here. Would love to see the wheel swap, airbag steps and all.',
+    voters: [0, 1, 2, 3],
+    accept: 'heatedWheel',
+  },
+  {
+    title: 'Puddle lamps in the side mirrors',
+    details: 'The top trim lights the ground when you unlock. Is that a plug-in job?',
+    voters: [1, 4, 2],
+  },
   { title: 'Cargo management rails in the back', details: null, voters: [3, 0] },
-  { title: 'Kick-to-open liftgate', details: 'Hands full of groceries, foot under the bumper, gate opens.', voters: [4] },
+  {
+    title: 'Kick-to-open liftgate',
+    details: 'Hands full of groceries, foot under the bumper, gate opens.',
+    voters: [4],
+  },
 ];
 
 // Episode 3 of the demo ("The bumper that makes radar possible", 20:10 long).
@@ -32,7 +45,7 @@ const CHAPTERS = [
 
 const keyId = async (buildId: number, key: string) => {
   const title = TERN_UPGRADES.find((u) => u.key === key)?.title;
-  return title ? (await Upgrade.findOne({ where: { buildId, title }, attributes: ['id'] }))?.id ?? null : null;
+  return title ? ((await Upgrade.findOne({ where: { buildId, title }, attributes: ['id'] }))?.id ?? null) : null;
 };
 
 export async function up({ context: { sequelize } }: { context: MigrationContext }) {
@@ -44,14 +57,32 @@ export async function up({ context: { sequelize } }: { context: MigrationContext
       const createdAt = new Date(Date.now() - (20 - i * 3) * day);
       const upgradeId = r.accept ? await keyId(build.id, r.accept) : null;
       const req = await ViewerRequest.create(
-        { buildId: build.id, title: r.title, details: r.details, state: upgradeId ? 'accepted' : 'new', upgradeId, confirmedAt: createdAt, createdAt },
+        {
+          buildId: build.id,
+          title: r.title,
+          details: r.details,
+          state: upgradeId ? 'accepted' : 'new',
+          upgradeId,
+          confirmedAt: createdAt,
+          createdAt,
+        },
         { transaction },
       );
       for (const [k, v] of r.voters.entries()) {
         const voter = VOTERS[v]!;
         const at = new Date(createdAt.getTime() + k * day);
         await ViewerVote.create(
-          { requestId: req.id, emailHash: emailHash(voter.email), emailSealed: null, email: voter.email, name: voter.name, confirmTokenHash: newToken().hash, expiresAt: at, confirmedAt: at, createdAt: at },
+          {
+            requestId: req.id,
+            emailHash: emailHash(voter.email),
+            emailSealed: null,
+            email: voter.email,
+            name: voter.name,
+            confirmTokenHash: newToken().hash,
+            expiresAt: at,
+            confirmedAt: at,
+            createdAt: at,
+          },
           { transaction },
         );
       }
@@ -60,7 +91,13 @@ export async function up({ context: { sequelize } }: { context: MigrationContext
     if (episode && (await EpisodeChapter.count({ where: { episodeId: episode.id }, transaction })) === 0) {
       const bumper = await keyId(build.id, 'rearBumper');
       await EpisodeChapter.bulkCreate(
-        CHAPTERS.map((c, position) => ({ episodeId: episode.id, position, startSeconds: c.at, title: c.title, upgradeId: c.upgrade ? bumper : null })),
+        CHAPTERS.map((c, position) => ({
+          episodeId: episode.id,
+          position,
+          startSeconds: c.at,
+          title: c.title,
+          upgradeId: c.upgrade ? bumper : null,
+        })),
         { transaction },
       );
     }

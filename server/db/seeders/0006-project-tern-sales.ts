@@ -28,8 +28,13 @@ export async function up(_ctx: { context: MigrationContext }) {
   const owner = await User.findOne({ where: { email: 'owner@cedar-ridge.test' } });
   if (!build || !owner) return;
   await Part.update({ storeSku: 'CR-ROOF-RAIL-BLK' }, { where: { buildId: build.id, partNumber: 'HT-RRL-6100' } });
-  const report = await importSales(owner, build, fs.readFileSync(TERN_SALES_FILE, 'utf8'), { dryRun: false, mapping: TERN_SALES_MAPPING, fileName: 'project-tern-sales.csv' });
-  if (!report.ok) throw new Error(`seeder 0006: the demo sales export has problems: ${JSON.stringify(report.errors.slice(0, 5))}`);
+  const report = await importSales(owner, build, fs.readFileSync(TERN_SALES_FILE, 'utf8'), {
+    dryRun: false,
+    mapping: TERN_SALES_MAPPING,
+    fileName: 'project-tern-sales.csv',
+  });
+  if (!report.ok)
+    throw new Error(`seeder 0006: the demo sales export has problems: ${JSON.stringify(report.errors.slice(0, 5))}`);
 }
 
 export async function down() {}

@@ -34,23 +34,50 @@ export async function up({ context: { sequelize } }: { context: MigrationContext
       { replacements: { id: episode.id, baselineShoot, baselineRelease }, transaction, type: QueryTypes.UPDATE },
     );
     await record(transaction, {
-      actor, buildId: build.id, entity: 'part', entityId: part.id, action: 'update',
+      actor,
+      buildId: build.id,
+      entity: 'part',
+      entityId: part.id,
+      action: 'update',
       summary: `Expected arrival moved from ${firstDue} to ${nowDue} (${WEEK + 1} days later) for part ${PART}`,
       changes: { expectedArrival: [firstDue, nowDue] },
     });
     await record(transaction, {
-      actor, buildId: build.id, entity: 'episode', entityId: episode.id, action: 'update',
+      actor,
+      buildId: build.id,
+      entity: 'episode',
+      entityId: episode.id,
+      action: 'update',
       summary: `Moved episode "${EPISODE}" back a week to wait for the wireless charging pad`,
       changes: { shootDate: [baselineShoot, episode.shootDate], releaseDate: [baselineRelease, episode.releaseDate] },
     });
     const notices = [
-      { kind: 'part_later', key: `later:${part.id}:${nowDue}`, message: `Part ${PART} (${part.description}) now expected ${nowDue}, ${WEEK + 1} days later than ${firstDue}.`, data: { partId: part.id, from: firstDue, to: nowDue, days: WEEK + 1 } },
-      { kind: 'release_at_risk', key: `risk:${episode.id}:${nowDue}`, message: `Episode ${episode.number}, "${EPISODE}": release ${baselineRelease} at risk by ${WEEK} days (shoot ${baselineShoot} → ${episode.shootDate}). ${PART} (${part.description}) for Wireless charging pad is now due ${nowDue}.`, data: { episodeId: episode.id, days: WEEK, projectedReleaseDate: episode.releaseDate, partId: part.id } },
+      {
+        kind: 'part_later',
+        key: `later:${part.id}:${nowDue}`,
+        message: `Part ${PART} (${part.description}) now expected ${nowDue}, ${WEEK + 1} days later than ${firstDue}.`,
+        data: { partId: part.id, from: firstDue, to: nowDue, days: WEEK + 1 },
+      },
+      {
+        kind: 'release_at_risk',
+        key: `risk:${episode.id}:${nowDue}`,
+        message: `Episode ${episode.number}, "${EPISODE}": release ${baselineRelease} at risk by ${WEEK} days (shoot ${baselineShoot} → ${episode.shootDate}). ${PART} (${part.description}) for Wireless charging pad is now due ${nowDue}.`,
+        data: { episodeId: episode.id, days: WEEK, projectedReleaseDate: episode.releaseDate, partId: part.id },
+      },
     ];
     for (const n of notices) {
       await sequelize.query(
         `INSERT INTO notices (build_id, kind, message, data, dedupe_key) VALUES (:buildId, :kind, :message, :data::jsonb, :key) ON CONFLICT DO NOTHING`,
-        { replacements: { buildId: build.id, kind: n.kind, message: n.message, data: JSON.stringify(n.data), key: n.key }, transaction },
+        {
+          replacements: {
+            buildId: build.id,
+            kind: n.kind,
+            message: n.message,
+            data: JSON.stringify(n.data),
+            key: n.key,
+          },
+          transaction,
+        },
       );
     }
   });

@@ -36,12 +36,17 @@ export function readCsv(text: string, columns: readonly string[], required: read
   const [header = [], ...body] = parsed.data;
   const names = header.map((h) => h.trim());
   if (names.length === 0 || names.every((n) => n === '')) {
-    errors.push({ line: 1, field: '(header)', message: `The first line must name the columns: ${columns.join(', ')}.` });
+    errors.push({
+      line: 1,
+      field: '(header)',
+      message: `The first line must name the columns: ${columns.join(', ')}.`,
+    });
     return { rows: [] as CsvRow[], errors };
   }
   const seen = new Set<string>();
   names.forEach((n) => {
-    if (!columns.includes(n)) errors.push({ line: 1, field: n || '(blank)', message: `is not a column we know (use: ${columns.join(', ')})` });
+    if (!columns.includes(n))
+      errors.push({ line: 1, field: n || '(blank)', message: `is not a column we know (use: ${columns.join(', ')})` });
     else if (seen.has(n)) errors.push({ line: 1, field: n, message: 'appears twice in the header' });
     seen.add(n);
   });
@@ -51,12 +56,18 @@ export function readCsv(text: string, columns: readonly string[], required: read
   body.forEach((cells, i) => {
     const line = i + 2;
     if (cells.every((c) => c.trim() === '')) return;
-    if (cells.length > names.length) errors.push({ line, field: '(row)', message: `has ${cells.length} cells but the header names ${names.length} columns` });
+    if (cells.length > names.length)
+      errors.push({
+        line,
+        field: '(row)',
+        message: `has ${cells.length} cells but the header names ${names.length} columns`,
+      });
     const rec: Record<string, string> = {};
     names.forEach((n, j) => (rec[n] = unescapeFormula((cells[j] ?? '').trim())));
     rows.push({ line, cells: rec });
   });
-  if (rows.length === 0 && !errors.length) errors.push({ line: 2, field: '(row)', message: 'The file has a header but no rows.' });
+  if (rows.length === 0 && !errors.length)
+    errors.push({ line: 2, field: '(row)', message: 'The file has a header but no rows.' });
   return { rows, errors };
 }
 
@@ -64,7 +75,15 @@ export function readCsv(text: string, columns: readonly string[], required: read
 export function writeCsv(columns: readonly string[], rows: Record<string, string | number | null>[]) {
   // escapeFormulae: a cell starting with = + - @ gets a leading ' so a spreadsheet shows it as text
   // instead of running it (OWASP "CSV injection"); readCsv takes the ' off again.
-  return Papa.unparse({ fields: [...columns], data: rows.map((r) => columns.map((c) => (r[c] === null || r[c] === undefined ? '' : String(r[c])))) }, { newline: '\r\n', escapeFormulae: true }) + '\r\n';
+  return (
+    Papa.unparse(
+      {
+        fields: [...columns],
+        data: rows.map((r) => columns.map((c) => (r[c] === null || r[c] === undefined ? '' : String(r[c])))),
+      },
+      { newline: '\r\n', escapeFormulae: true },
+    ) + '\r\n'
+  );
 }
 
 export const blankToUndefined = (s: string | undefined) => (s === undefined || s === '' ? undefined : s);
@@ -79,7 +98,8 @@ export function dollarsToCents(s: string | undefined): number | string | undefin
   return v.startsWith('-') ? -c : c;
 }
 
-export const centsToDollars = (c: number | null | undefined) => (c === null || c === undefined ? '' : (c / 100).toFixed(2));
+export const centsToDollars = (c: number | null | undefined) =>
+  c === null || c === undefined ? '' : (c / 100).toFixed(2);
 
 export function toNumber(s: string | undefined): number | string | undefined {
   const v = blankToUndefined(s);

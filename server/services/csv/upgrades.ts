@@ -5,11 +5,37 @@ import { record } from '../activity';
 import { prerequisiteMap, toUpgradeRecord, type Person } from '../backlogRecords';
 import { createUpgradeSchema, type CreateUpgradeInput } from '../../../shared/schemas/upgrade';
 import { findCycle } from '../../../shared/planner/criticalPath';
-import { blankToUndefined, centsToDollars, dollarsToCents, readCsv, rowProblems, splitList, toNumber, writeCsv, type CsvProblem, type ImportResult } from './common';
+import {
+  blankToUndefined,
+  centsToDollars,
+  dollarsToCents,
+  readCsv,
+  rowProblems,
+  splitList,
+  toNumber,
+  writeCsv,
+  type CsvProblem,
+  type ImportResult,
+} from './common';
 
 export const UPGRADE_COLUMNS = [
-  'ref', 'title', 'area', 'replaces', 'becomes', 'estimatedHours', 'valueAdded', 'priority', 'safetyFlags',
-  'installState', 'installSegment', 'demoSegment', 'installedOn', 'notes', 'tireFrom', 'tireTo', 'prerequisites',
+  'ref',
+  'title',
+  'area',
+  'replaces',
+  'becomes',
+  'estimatedHours',
+  'valueAdded',
+  'priority',
+  'safetyFlags',
+  'installState',
+  'installSegment',
+  'demoSegment',
+  'installedOn',
+  'notes',
+  'tireFrom',
+  'tireTo',
+  'prerequisites',
 ] as const;
 const REQUIRED = ['title', 'area'] as const;
 const COLUMN_OF: Record<string, string> = { valueAddedCents: 'valueAdded' };
@@ -39,7 +65,10 @@ export async function exportUpgradesCsv(build: Build) {
       notes: u.notes,
       tireFrom: u.tireFrom,
       tireTo: u.tireTo,
-      prerequisites: (map.get(u.id) ?? []).sort((a, b) => a - b).map((p) => ref.get(p)!).join(';'),
+      prerequisites: (map.get(u.id) ?? [])
+        .sort((a, b) => a - b)
+        .map((p) => ref.get(p)!)
+        .join(';'),
     })),
   );
 }
@@ -53,9 +82,15 @@ export interface UpgradePreviewRow {
 
 const rowSchema = createUpgradeSchema.omit({ prerequisiteIds: true, episodeId: true });
 
-export async function importUpgradesCsv(actor: Person, build: Build, text: string, dryRun: boolean): Promise<ImportResult<UpgradePreviewRow>> {
+export async function importUpgradesCsv(
+  actor: Person,
+  build: Build,
+  text: string,
+  dryRun: boolean,
+): Promise<ImportResult<UpgradePreviewRow>> {
   const { rows, errors } = readCsv(text, UPGRADE_COLUMNS, REQUIRED);
-  if (rows.length > MAX_ROWS) errors.push({ line: MAX_ROWS + 2, field: '(row)', message: `at most ${MAX_ROWS} rows per file` });
+  if (rows.length > MAX_ROWS)
+    errors.push({ line: MAX_ROWS + 2, field: '(row)', message: `at most ${MAX_ROWS} rows per file` });
   const preview: UpgradePreviewRow[] = [];
   const refs = new Map<string, number>(); // ref → index in preview
   for (const { line, cells } of rows) {
@@ -81,10 +116,20 @@ export async function importUpgradesCsv(actor: Person, build: Build, text: strin
     const ref = blankToUndefined(cells.ref) ?? null;
     if (ref !== null) {
       if (ref.length > 40) errors.push({ line, field: 'ref', message: 'must be at most 40 characters' });
-      else if (refs.has(ref)) errors.push({ line, field: 'ref', message: `"${ref}" is already used on line ${preview[refs.get(ref)!]!.line}` });
+      else if (refs.has(ref))
+        errors.push({
+          line,
+          field: 'ref',
+          message: `"${ref}" is already used on line ${preview[refs.get(ref)!]!.line}`,
+        });
       else refs.set(ref, preview.length);
     }
-    preview.push({ line, ref, upgrade: parsed.success ? parsed.data : (input as never), prerequisites: splitList(cells.prerequisites) });
+    preview.push({
+      line,
+      ref,
+      upgrade: parsed.success ? parsed.data : (input as never),
+      prerequisites: splitList(cells.prerequisites),
+    });
   }
 
   // Prerequisites name a ref in this file, or the exact title of an upgrade already in the build.
@@ -98,19 +143,37 @@ export async function importUpgradesCsv(actor: Person, build: Build, text: strin
       const i = refs.get(p);
       const titled = byTitle.get(p);
       if (i !== undefined) {
-        if (preview[i] === row) errors.push({ line: row.line, field: 'prerequisites', message: 'an upgrade cannot need itself' });
+        if (preview[i] === row)
+          errors.push({ line: row.line, field: 'prerequisites', message: 'an upgrade cannot need itself' });
         else inFile.push(i);
       } else if (titled?.length === 1) inBuild.push(titled[0]!);
-      else if (titled && titled.length > 1) errors.push({ line: row.line, field: 'prerequisites', message: `"${p}" matches ${titled.length} upgrades in this build; use a ref` });
-      else errors.push({ line: row.line, field: 'prerequisites', message: `"${p}" is neither a ref in this file nor an upgrade of this build` });
+      else if (titled && titled.length > 1)
+        errors.push({
+          line: row.line,
+          field: 'prerequisites',
+          message: `"${p}" matches ${titled.length} upgrades in this build; use a ref`,
+        });
+      else
+        errors.push({
+          line: row.line,
+          field: 'prerequisites',
+          message: `"${p}" is neither a ref in this file nor an upgrade of this build`,
+        });
     }
     return { inFile: [...new Set(inFile)], inBuild: [...new Set(inBuild)] };
   });
   // Existing upgrades never depend on new rows, so a loop can only run through the file's own rows.
-  const cycle = findCycle(preview.map((_, i) => i), resolved.flatMap((r, i) => r.inFile.map((p) => [p, i] as [number, number])));
+  const cycle = findCycle(
+    preview.map((_, i) => i),
+    resolved.flatMap((r, i) => r.inFile.map((p) => [p, i] as [number, number])),
+  );
   if (cycle) {
     const names = cycle.map((i) => preview[i]!.upgrade.title);
-    errors.push({ line: preview[cycle[0]!]!.line, field: 'prerequisites', message: `rows form a loop: ${[...names, names[0]].join(' → ')}` });
+    errors.push({
+      line: preview[cycle[0]!]!.line,
+      field: 'prerequisites',
+      message: `rows form a loop: ${[...names, names[0]].join(' → ')}`,
+    });
   }
 
   errors.sort(byLine);
@@ -119,7 +182,10 @@ export async function importUpgradesCsv(actor: Person, build: Build, text: strin
   await sequelize.transaction(async (t) => {
     const ids: number[] = [];
     for (const row of preview) {
-      const u = await Upgrade.create({ ...(row.upgrade as Required<typeof row.upgrade>), buildId: build.id }, { transaction: t });
+      const u = await Upgrade.create(
+        { ...(row.upgrade as Required<typeof row.upgrade>), buildId: build.id },
+        { transaction: t },
+      );
       ids.push(u.id);
     }
     const links = resolved.flatMap((r, i) => [
@@ -130,7 +196,15 @@ export async function importUpgradesCsv(actor: Person, build: Build, text: strin
     const created = await Upgrade.findAll({ where: { id: ids }, transaction: t });
     const pre = await prerequisiteMap(build.id, t, ids);
     for (const u of created) {
-      await record(t, { actor, buildId: build.id, entity: 'upgrade', entityId: u.id, action: 'import', summary: `Imported upgrade ${u.title} from CSV`, after: toUpgradeRecord(u, pre.get(u.id) ?? []) });
+      await record(t, {
+        actor,
+        buildId: build.id,
+        entity: 'upgrade',
+        entityId: u.id,
+        action: 'import',
+        summary: `Imported upgrade ${u.title} from CSV`,
+        after: toUpgradeRecord(u, pre.get(u.id) ?? []),
+      });
     }
   });
   return { ok: true, dryRun, rows: preview, errors: [], created: preview.length };

@@ -10,7 +10,8 @@ export async function prepare(ctx: MatrixContext) {
 }
 
 const base = '/api/builds/:buildId/media';
-const through = (ctx: MatrixContext, suffix = '') => `/api/builds/${ctx.other.buildId}/media/${ctx.ids.mediaId}${suffix}`;
+const through = (ctx: MatrixContext, suffix = '') =>
+  `/api/builds/${ctx.other.buildId}/media/${ctx.ids.mediaId}${suffix}`;
 // DELETE must not remove the demo photo for the next role: allowed roles name a missing id (404).
 const missing = (ctx: MatrixContext) => `/api/builds/${ctx.ids.buildId}/media/2147483000`;
 
@@ -18,7 +19,24 @@ export const rows: MatrixRow[] = [
   { method: 'GET', path: base, allow: ['producer', 'installer', 'marketing'] },
   // JSON instead of a multipart form: allowed roles get 400 and nothing is stored.
   { method: 'POST', path: base, allow: ['producer', 'installer'], body: () => ({ caption: 'not a form' }) },
-  { method: 'PATCH', path: `${base}/:mediaId`, allow: ['producer', 'installer'], body: () => ({ stage: 'not-a-stage' }), idor: (ctx) => through(ctx) },
-  { method: 'DELETE', path: `${base}/:mediaId`, allow: ['producer', 'installer'], url: missing, idor: (ctx) => through(ctx) },
-  { method: 'GET', path: `${base}/:mediaId/download`, allow: ['producer', 'installer', 'marketing'], idor: (ctx) => through(ctx, '/download') },
+  {
+    method: 'PATCH',
+    path: `${base}/:mediaId`,
+    allow: ['producer', 'installer'],
+    body: () => ({ stage: 'not-a-stage' }),
+    idor: (ctx) => through(ctx),
+  },
+  {
+    method: 'DELETE',
+    path: `${base}/:mediaId`,
+    allow: ['producer', 'installer'],
+    url: missing,
+    idor: (ctx) => through(ctx),
+  },
+  {
+    method: 'GET',
+    path: `${base}/:mediaId/download`,
+    allow: ['producer', 'installer', 'marketing'],
+    idor: (ctx) => through(ctx, '/download'),
+  },
 ];

@@ -2,7 +2,22 @@
 import type { MatrixRow } from './types';
 
 export const rows: MatrixRow[] = [
-  { method: 'GET', path: '/api/builds/:buildId/slips', allow: ['producer'], idor: (ctx) => `/api/builds/${Number(ctx.other.buildId) + 100000}/slips` },
-  { method: 'GET', path: '/api/builds/:buildId/notices', allow: ['producer'], idor: (ctx) => `/api/builds/${Number(ctx.other.buildId) + 100000}/notices` },
-  { method: 'POST', path: '/api/builds/:buildId/notices/seen', allow: ['producer'], idor: (ctx) => `/api/builds/${Number(ctx.other.buildId) + 100000}/notices/seen` },
+  {
+    method: 'GET',
+    path: '/api/builds/:buildId/slips',
+    allow: ['producer'],
+    idor: (ctx) => `/api/builds/${Number(ctx.other.buildId) + 100000}/slips`,
+  },
+  {
+    method: 'GET',
+    path: '/api/builds/:buildId/notices',
+    allow: ['producer'],
+    idor: (ctx) => `/api/builds/${Number(ctx.other.buildId) + 100000}/notices`,
+  },
+  {
+    method: 'POST',
+    path: '/api/builds/:buildId/notices/seen',
+    allow: ['producer'],
+    idor: (ctx) => `/api/builds/${Number(ctx.other.buildId) + 100000}/notices/seen`,
+  },
 ];

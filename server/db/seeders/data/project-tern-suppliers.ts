@@ -3,4 +3,3 @@ export const NORTHGATE = 'Northgate OEM Supply';
 export const PINECREST = 'Pinecrest Take-offs';
 export const LARKFIELD = 'Larkfield Auto Electric';
 export const BRIGHTWATER = 'Brightwater Parts Co.';
-
