@@ -62,9 +62,16 @@ try {
 const extra = process.argv.slice(2);
 const timingFile = path.join(mkdtempSync(path.join(os.tmpdir(), 'bayslate-test-')), 'timings.json');
 
-log('checks (eslint, per-layer type checks) run beside the tests at low priority; their output follows the tests');
+log(
+  'checks (eslint, prettier --check, per-layer type checks) run beside the tests at low priority; their output follows the tests',
+);
 const checks = Promise.all([
   run('lint', [bin('eslint/bin/eslint.js'), '.'], { capture: true, nice: CHECK_NICENESS }),
+  // The tree stays as `npm run format` leaves it (.prettierrc.json).
+  run('format', [bin('prettier/bin/prettier.cjs'), '--check', '--log-level', 'warn', '.'], {
+    capture: true,
+    nice: CHECK_NICENESS,
+  }),
   run('types', [path.join(root, 'scripts/typecheck-layers.mjs'), '--jobs', '4'], {
     capture: true,
     nice: CHECK_NICENESS,
@@ -101,7 +108,9 @@ for (const r of checkResults) {
 // Where the time went. Vitest's projects run one after another (sequence.groupOrder); each
 // project's line runs from its first test file's start to its last one's end.
 const byName = Object.fromEntries(timings.map((t) => [t.name, t]));
-const rows = ['setup (packages)', 'lint', 'types', 'build', 'vitest'].filter((n) => byName[n]).map((n) => byName[n]);
+const rows = ['setup (packages)', 'lint', 'format', 'types', 'build', 'vitest']
+  .filter((n) => byName[n])
+  .map((n) => byName[n]);
 if (existsSync(timingFile)) {
   const t = JSON.parse(readFileSync(timingFile, 'utf8'));
   const names = Object.keys(t.projects).sort((a, b) => t.projects[a].first - t.projects[b].first);
@@ -124,7 +133,7 @@ if (existsSync(timingFile)) {
 }
 const total = Date.now() - t0;
 console.log(
-  `\n[bayslate] where the time went (s; lint and types run beside build and vitest; load average now ${os.loadavg()[0].toFixed(1)}):`,
+  `\n[bayslate] where the time went (s; lint, format and types run beside build and vitest; load average now ${os.loadavg()[0].toFixed(1)}):`,
 );
 for (const r of rows) console.log(`  ${r.name.padEnd(46)}${r.ms === null ? '' : secs(r.ms)}${r.ok ? '' : '  FAILED'}`);
 console.log(`  ${'total'.padEnd(46)}${secs(total)}`);

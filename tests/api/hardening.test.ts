@@ -162,14 +162,12 @@ describe('invitation links end when the password changes', () => {
 
   it("changing one's own password ends the unused invitation", async () => {
     const owner = await signInAs('owner');
-    const made = await owner
-      .post('/api/users')
-      .send({
-        email: 'invite-own@cedar-ridge.test',
-        name: 'Otto Own',
-        roles: ['installer'],
-        password: 'first-password-1',
-      });
+    const made = await owner.post('/api/users').send({
+      email: 'invite-own@cedar-ridge.test',
+      name: 'Otto Own',
+      roles: ['installer'],
+      password: 'first-password-1',
+    });
     expect(made.status).toBe(201);
     const token = await invitationTokenFor('invite-own@cedar-ridge.test');
     const otto = await signInAs({ email: 'invite-own@cedar-ridge.test', password: 'first-password-1' });
@@ -190,14 +188,12 @@ describe('invitation links end when the password changes', () => {
 describe("sessions after changing one's own password", () => {
   it('ends the other sessions and keeps this one', async () => {
     const owner = await signInAs('owner');
-    await owner
-      .post('/api/users')
-      .send({
-        email: 'two-devices@cedar-ridge.test',
-        name: 'Tess Devices',
-        roles: ['installer'],
-        password: 'first-password-1',
-      });
+    await owner.post('/api/users').send({
+      email: 'two-devices@cedar-ridge.test',
+      name: 'Tess Devices',
+      roles: ['installer'],
+      password: 'first-password-1',
+    });
     const phone = await signInAs({ email: 'two-devices@cedar-ridge.test', password: 'first-password-1' });
     const desk = await signInAs({ email: 'two-devices@cedar-ridge.test', password: 'first-password-1' });
     expect((await phone.get('/api/auth/me')).status).toBe(200);

@@ -19,18 +19,16 @@ const TABLES = ['sale_lines', 'sale_imports', 'sales_mappings', 'activities'];
 // A small build of our own: campaign "kit-test", labour rate 0, one live episode (released
 // 2026-10-01) showing upgrade "Kit A" with part HT-A (cost 100.00, bought 2026-09-20), one draft.
 async function smallBuild(slug: string) {
-  const res = await as.owner
-    .post('/api/builds')
-    .send({
-      slug,
-      name: slug,
-      year: 2020,
-      make: 'Halvorsen',
-      model: 'Tern',
-      campaign: 'kit-test',
-      labourRateCents: 0,
-      budgetCents: 100_000,
-    });
+  const res = await as.owner.post('/api/builds').send({
+    slug,
+    name: slug,
+    year: 2020,
+    make: 'Halvorsen',
+    model: 'Tern',
+    campaign: 'kit-test',
+    labourRateCents: 0,
+    budgetCents: 100_000,
+  });
   expect(res.status).toBe(201);
   const buildId = res.body.build.id as number;
   const ep1 = await Episode.create({

@@ -46,14 +46,12 @@ describe('users and roles', () => {
 
   it('a second owner makes demotion possible', async () => {
     const owner = await signInAs('owner');
-    const created = await owner
-      .post('/api/users')
-      .send({
-        email: 'second-owner@cedar-ridge.test',
-        name: 'Second Owner',
-        roles: ['owner'],
-        password: 'second-owner-pw',
-      });
+    const created = await owner.post('/api/users').send({
+      email: 'second-owner@cedar-ridge.test',
+      name: 'Second Owner',
+      roles: ['owner'],
+      password: 'second-owner-pw',
+    });
     expect(created.status).toBe(201);
     const res = await owner.patch(`/api/users/${created.body.user.id}`).send({ roles: ['producer'] });
     expect(res.status).toBe(200);

@@ -111,15 +111,11 @@ describe('PATCH /viewer-requests/:id', () => {
   it('accepts by creating a new upgrade in the backlog', async () => {
     const r = await requestWithVoters(tern.id, 'Puddle lamps, again', ['b1@viewers.test']);
     const before = await Upgrade.count({ where: { buildId: tern.id } });
-    const res = await (
-      await signInAs('marketing')
-    )
-      .patch(url(r.id))
-      .send({
-        action: 'accept',
-        newUpgrade: { title: 'Mirror puddle lamps', area: 'sides', estimatedHours: 2 },
-        version: r.version,
-      });
+    const res = await (await signInAs('marketing')).patch(url(r.id)).send({
+      action: 'accept',
+      newUpgrade: { title: 'Mirror puddle lamps', area: 'sides', estimatedHours: 2 },
+      version: r.version,
+    });
     expect(res.status).toBe(200);
     expect(await Upgrade.count({ where: { buildId: tern.id } })).toBe(before + 1);
     const created = (await Upgrade.findByPk(res.body.request.upgradeId))!;
@@ -220,14 +216,10 @@ describe('PATCH /viewer-requests/:id', () => {
         tireTo: null,
       });
       const before = await counts(...TABLES);
-      const res = await (
-        await signInAs('marketing')
-      )
-        .patch(url(self.id))
-        .send({
-          ...body({ other: foreignReq.id, self: self.id, foreignUpgrade: foreignUpgrade.id }),
-          version: self.version,
-        });
+      const res = await (await signInAs('marketing')).patch(url(self.id)).send({
+        ...body({ other: foreignReq.id, self: self.id, foreignUpgrade: foreignUpgrade.id }),
+        version: self.version,
+      });
       expect(res.status).toBe(400);
       expect(res.body.error.fields.map((f: { path: string }) => f.path)).toContain(field);
       expect(await counts(...TABLES)).toEqual(before);

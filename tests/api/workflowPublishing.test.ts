@@ -156,12 +156,10 @@ describe('publish anyway, and who is told', () => {
     expect(empty.status).toBe(400);
     expect(empty.body.error.fields.map((f: { path: string }) => f.path)).toContain('overrideReason');
 
-    const res = await m
-      .post(epUrl(ep8, '/publish'))
-      .send({
-        videoUrl: 'https://video.example/tern-ep8',
-        overrideReason: 'Sponsor deadline; the wheel gets its own short next week',
-      });
+    const res = await m.post(epUrl(ep8, '/publish')).send({
+      videoUrl: 'https://video.example/tern-ep8',
+      overrideReason: 'Sponsor deadline; the wheel gets its own short next week',
+    });
     expect(res.status).toBe(200);
     const anyway = await Activity.findAll({ where: { entity: 'episode', entityId: ep8.id, action: 'publish_anyway' } });
     expect(anyway).toHaveLength(1);
