@@ -74,7 +74,8 @@ describe('episode planner in the browser', () => {
 
         // Keyboard alternative to dragging: the "Move to" list, chosen from the keyboard.
         const picker = page.getByLabel('Move Trailer wiring, 7-pin to');
-        const options = await picker.locator('option:not([disabled])').allTextContents();
+        // An option's text carries the template's line breaks; its label (what selectOption matches) does not.
+        const options = (await picker.locator('option:not([disabled])').allTextContents()).map((o) => o.trim());
         const last = options.filter((o) => o.startsWith('Episode ')).pop()!;
         await picker.focus();
         await picker.selectOption({ label: last });
@@ -91,9 +92,9 @@ describe('episode planner in the browser', () => {
         // Discarding from the keyboard restores the saved plan and its clean check.
         // Another move first (any place the list offers; which ones it offers depends on the proposal).
         const back = page.getByLabel('Move Trailer wiring, 7-pin to');
-        const offered = (await back.locator('option:not([disabled])').allTextContents()).filter(
-          (o) => o.startsWith('Episode ') && o !== last,
-        );
+        const offered = (await back.locator('option:not([disabled])').allTextContents())
+          .map((o) => o.trim())
+          .filter((o) => o.startsWith('Episode ') && o !== last);
         await back.selectOption(offered.length ? { label: offered[0] } : { value: 'none' });
         await page.getByRole('button', { name: 'Discard changes' }).press('Enter');
         await page.getByRole('heading', { name: 'No problems in this plan' }).waitFor();
