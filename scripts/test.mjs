@@ -108,9 +108,7 @@ for (const r of checkResults) {
 // Where the time went. Vitest's projects run one after another (sequence.groupOrder); each
 // project's line runs from its first test file's start to its last one's end.
 const byName = Object.fromEntries(timings.map((t) => [t.name, t]));
-const rows = ['setup (packages)', 'lint', 'format', 'types', 'build', 'vitest']
-  .filter((n) => byName[n])
-  .map((n) => byName[n]);
+const rows = ['setup (packages)', 'lint', 'types', 'build', 'vitest'].filter((n) => byName[n]).map((n) => byName[n]);
 if (existsSync(timingFile)) {
   const t = JSON.parse(readFileSync(timingFile, 'utf8'));
   const names = Object.keys(t.projects).sort((a, b) => t.projects[a].first - t.projects[b].first);
@@ -133,7 +131,7 @@ if (existsSync(timingFile)) {
 }
 const total = Date.now() - t0;
 console.log(
-  `\n[bayslate] where the time went (s; lint, format and types run beside build and vitest; load average now ${os.loadavg()[0].toFixed(1)}):`,
+  `\n[bayslate] where the time went (s; lint and types run beside build and vitest; load average now ${os.loadavg()[0].toFixed(1)}):`,
 );
 for (const r of rows) console.log(`  ${r.name.padEnd(46)}${r.ms === null ? '' : secs(r.ms)}${r.ok ? '' : '  FAILED'}`);
 console.log(`  ${'total'.padEnd(46)}${secs(total)}`);
