@@ -62,16 +62,9 @@ try {
 const extra = process.argv.slice(2);
 const timingFile = path.join(mkdtempSync(path.join(os.tmpdir(), 'bayslate-test-')), 'timings.json');
 
-log(
-  'checks (eslint, prettier --check, per-layer type checks) run beside the tests at low priority; their output follows the tests',
-);
+log('checks (eslint, per-layer type checks) run beside the tests at low priority; their output follows the tests');
 const checks = Promise.all([
   run('lint', [bin('eslint/bin/eslint.js'), '.'], { capture: true, nice: CHECK_NICENESS }),
-  // The tree stays as `npm run format` leaves it (.prettierrc.json).
-  run('format', [bin('prettier/bin/prettier.cjs'), '--check', '--log-level', 'warn', '.'], {
-    capture: true,
-    nice: CHECK_NICENESS,
-  }),
   run('types', [path.join(root, 'scripts/typecheck-layers.mjs'), '--jobs', '4'], {
     capture: true,
     nice: CHECK_NICENESS,

@@ -74,6 +74,10 @@ const schema = z.object({
   // Running it for real (deploy): how long a stopping server lets requests in flight finish, and
   // how long each readiness check may take.
   SHUTDOWN_GRACE_MS: z.coerce.number().int().min(0).default(10_000),
+  // How long an idle kept-alive connection stays open. Longer than clients and proxies keep theirs
+  // (Node's own clients 5 s, load balancers commonly 60 s), so the server never closes a connection
+  // at the moment a client reuses it (that race ends the client's request with ECONNRESET).
+  KEEP_ALIVE_TIMEOUT_MS: z.coerce.number().int().min(1000).default(65_000),
   READY_CHECK_TIMEOUT_MS: z.coerce.number().int().min(50).default(1000),
   // Hardening (issue 10). Host names besides PUBLIC_URL's that requests may name (comma list, host[:port]).
   ALLOWED_HOSTS: z.string().default(''),

@@ -40,6 +40,10 @@ async function main() {
       `[bayslate] server listening on http://${c.HOST}:${port} (${c.NODE_ENV}${c.BAYSLATE_DEMO ? ', demo data' : ''})`,
     );
   });
+  // Idle kept-alive connections outlive the client's own idle limit; the wait for a request's
+  // headers must be longer still, or it would end those connections first.
+  server.keepAliveTimeout = c.KEEP_ALIVE_TIMEOUT_MS;
+  server.headersTimeout = c.KEEP_ALIVE_TIMEOUT_MS + 1000;
 
   // Graceful stop: readiness turns 503, no new connections, requests in flight get up to
   // SHUTDOWN_GRACE_MS, the mail worker finishes the mail in hand, then the pools close.
