@@ -18,7 +18,8 @@ import {
   type BurndownPoint,
   type OverviewCostRow,
 } from '../../shared/overview';
-import type { Build } from '../models';
+import { Build } from '../models';
+import { notFound } from '../errors';
 import { loadOverviewData, loadOverviewLabour, type OverviewData } from './overviewQuery';
 import { cached, keepInputs, keptInputs, runningFor, singleFlight, stamp, store } from './overviewCache';
 
@@ -54,19 +55,26 @@ export function cachedOverviewBody(buildId: number) {
 /**
  * Computes the overview's JSON bytes and keeps them unless a change came in since `before` (from
  * `overviewStamp`). Concurrent misses for one build with the same stamp share one computation.
+ * Without change notices a shared computation may start after the caller read `build`, so it reads
+ * the build's row again itself (overviewCache.singleFlight).
  */
 export function freshOverviewBody(build: OverviewBuild, before: string) {
   const zone = build.timeZone ?? DEFAULT_TIME_ZONE;
   const now = today(zone);
-  return singleFlight(build.id, `${before}|${now}|${zone}`, async () =>
-    store(
-      build.id,
-      now,
-      zone,
+  const noticed = before.startsWith('1:');
+  return singleFlight(build.id, `${before}|${now}|${zone}`, async () => {
+    const b = noticed ? build : await Build.findByPk(build.id);
+    if (!b) throw notFound('Build');
+    const bZone = b.timeZone ?? DEFAULT_TIME_ZONE;
+    const bNow = noticed ? now : today(bZone);
+    return store(
+      b.id,
+      bNow,
+      bZone,
       before,
-      compactOverview(computeOverview(build, await overviewInputs(build.id, before), now)),
-    ),
-  );
+      compactOverview(computeOverview(b, await overviewInputs(b.id, before), bNow)),
+    );
+  });
 }
 
 /**

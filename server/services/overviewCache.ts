@@ -118,21 +118,54 @@ export function cached(buildId: number, today: (zone: string) => string): Entry 
 }
 
 const inFlight = new Map<number, { key: string; entry: Promise<Entry> }>();
+/** Without change notices: the computation under way per build, and the one waiting to start after it. */
+const underWay = new Map<number, Promise<unknown>>();
+const waiting = new Map<number, { key: string; entry: Promise<Entry> }>();
 
 /**
  * One computation at a time per build and key (the stamp taken before reading, the day and the
  * zone): concurrent misses wait for it instead of each reading and serialising the same figures.
- * A request with another key (a change came in) computes for itself. Without the listening
- * connection no change can be seen, so nothing is shared: a reader must see a write it just made.
+ * A request with another key (a change came in) computes for itself.
+ *
+ * Without the listening connection no change can be seen, yet a reader must see a write it just
+ * made: a request then never joins a computation that began reading before it arrived. It joins
+ * the next one instead, which starts when the one under way ends, so all who arrive meanwhile share
+ * one computation that reads after each of them arrived (`compute` must read everything it uses,
+ * the build's own row included, when it starts).
  */
 export function singleFlight(buildId: number, key: string, compute: () => Promise<Entry>): Promise<Entry> {
-  if (!key.startsWith('1:')) return compute();
+  if (!key.startsWith('1:')) return nextFlight(buildId, key, compute);
   const running = inFlight.get(buildId);
   if (running && running.key === key) return running.entry;
   const entry = compute().finally(() => {
     if (inFlight.get(buildId)?.entry === entry) inFlight.delete(buildId);
   });
   inFlight.set(buildId, { key, entry });
+  return entry;
+}
+
+function nextFlight(buildId: number, key: string, compute: () => Promise<Entry>): Promise<Entry> {
+  const start = () => {
+    const entry = compute();
+    const settled = entry.then(
+      () => undefined,
+      () => undefined,
+    );
+    underWay.set(buildId, settled);
+    void settled.then(() => underWay.get(buildId) === settled && underWay.delete(buildId));
+    return entry;
+  };
+  const current = underWay.get(buildId);
+  if (!current) return start();
+  const queued = waiting.get(buildId);
+  if (queued?.key === key) return queued.entry;
+  // Another day or zone than the queued one (rare): this request computes for itself.
+  if (queued) return compute();
+  const entry = current.then(() => {
+    waiting.delete(buildId);
+    return start();
+  });
+  waiting.set(buildId, { key, entry });
   return entry;
 }
 

@@ -563,7 +563,8 @@ describe('the cached overview', () => {
     expect(new Set(same).size).toBe(1);
     await singleFlight(424242, '1:0:1|2026-01-01|UTC', compute); // a change came in: a new stamp
     expect(runs).toBe(2);
-    // Without the listening connection nothing is shared: a reader must see its own write.
+    // Without the listening connection a reader never joins a computation already under way (it must
+    // see its own write): the second waits for the next one (tests/api/overviewFlights.test.ts).
     await Promise.all([singleFlight(424242, '0:0:0|x', compute), singleFlight(424242, '0:0:0|x', compute)]);
     expect(runs).toBe(4);
     // A reader arriving while a computation runs joins it only when no change came in since it started.
