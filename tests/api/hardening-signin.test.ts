@@ -39,3 +39,15 @@ describe('sign-in throttling per account', () => {
     expect((await attempt('192.0.2.8', 'nobody-50@cedar-ridge.test', 'wrong')).status).toBe(401);
   });
 });
+
+describe('an unknown e-mail', () => {
+  it('costs the same bcrypt work as a wrong password: the stand-in hash has the real hashes’ cost', async () => {
+    const bcrypt = (await import('bcryptjs')).default;
+    const { DUMMY_HASH } = await import('../../server/middleware/auth');
+    const { hashPassword } = await import('../../server/services/passwords');
+    expect(bcrypt.getRounds(DUMMY_HASH)).toBe(bcrypt.getRounds(await hashPassword('a-new-password-1')));
+    expect(await bcrypt.compare('not-a-real-password', DUMMY_HASH)).toBe(false);
+    const answer = await attempt('203.0.113.200', 'nobody-here@shop.test', 'whatever-1234');
+    expect(answer.status).toBe(401);
+  });
+});
