@@ -12,6 +12,7 @@ import { markDraining } from './routes/health';
 import { startUserNotices, stopUserNotices } from './services/userNotices';
 import { stopOverviewCache } from './services/overviewCache';
 import { startMediaSweeper, stopMediaSweeper } from './services/mediaSweep';
+import { startReceiptSweeper, stopReceiptSweeper } from './services/requestReceipts';
 
 async function main() {
   const c = config();
@@ -33,6 +34,8 @@ async function main() {
   if (c.MAIL_WORKER) startMailWorker();
   // Leftover uploads (objects no row names, temp files of broken uploads) go on a schedule.
   startMediaSweeper();
+  // Receipts of resent changes older than a week, hourly.
+  startReceiptSweeper();
   const server = app.listen(c.PORT, c.HOST, () => {
     const addr = server.address();
     const port = typeof addr === 'object' && addr ? addr.port : c.PORT;
@@ -58,6 +61,7 @@ async function main() {
     const grace = new Promise<void>((resolve) => setTimeout(resolve, c.SHUTDOWN_GRACE_MS).unref());
     await Promise.all([Promise.race([closed, grace]), stopMailWorker()]);
     server.closeAllConnections();
+    stopReceiptSweeper();
     await Promise.allSettled([
       stopMediaSweeper(),
       stopUserNotices(),

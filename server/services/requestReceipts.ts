@@ -20,17 +20,24 @@ interface Row {
 }
 
 /** Claims `key` for this person's request, or says what the earlier request with it became. */
-export async function claimReceipt(userId: number, key: string, method: string, path: string): Promise<Claim> {
+export async function claimReceipt(
+  userId: number,
+  key: string,
+  method: string,
+  path: string,
+  attempt = 1,
+): Promise<Claim> {
+  // A receipt older than a week is as good as gone (the sweep may not have reached it yet): the
+  // key is claimed afresh in the same statement, so two requests can never both take it.
   const inserted = await sequelize.query<{ key: string }>(
     `INSERT INTO request_receipts (user_id, key, method, path) VALUES (:userId, :key, :method, :path)
-     ON CONFLICT (user_id, key) DO NOTHING RETURNING key`,
-    { replacements: { userId, key, method, path }, type: QueryTypes.SELECT },
+     ON CONFLICT (user_id, key) DO UPDATE
+       SET method = EXCLUDED.method, path = EXCLUDED.path, status = NULL, body = NULL, created_at = now()
+       WHERE request_receipts.created_at < now() - make_interval(days => :days)
+     RETURNING key`,
+    { replacements: { userId, key, method, path, days: RECEIPT_DAYS }, type: QueryTypes.SELECT },
   );
-  if (inserted.length) {
-    // Now and then, forget receipts older than a week.
-    if (Math.random() < 0.02) await sweepReceipts();
-    return { state: 'new' };
-  }
+  if (inserted.length) return { state: 'new' };
   const [row] = await sequelize.query<Row>(
     'SELECT method, path, status, body FROM request_receipts WHERE user_id = :userId AND key = :key',
     {
@@ -38,7 +45,8 @@ export async function claimReceipt(userId: number, key: string, method: string, 
       type: QueryTypes.SELECT,
     },
   );
-  if (!row) return claimReceipt(userId, key, method, path); // released meanwhile: try again
+  // Released meanwhile (the first request failed): claim again, a few times at most.
+  if (!row) return attempt < 3 ? claimReceipt(userId, key, method, path, attempt + 1) : { state: 'busy' };
   if (row.method !== method || row.path !== path) return { state: 'mismatch', method: row.method, path: row.path };
   if (row.status === null) return { state: 'busy' };
   return { state: 'replay', status: row.status, body: row.body };
@@ -61,6 +69,31 @@ export async function releaseReceipt(userId: number, key: string) {
   });
 }
 
-export async function sweepReceipts() {
-  await sequelize.query(`DELETE FROM request_receipts WHERE created_at < now() - interval '${RECEIPT_DAYS} days'`);
+/** Forgets receipts older than a week; answers how many went. */
+export async function sweepReceipts(): Promise<number> {
+  const [, meta] = await sequelize.query(
+    'DELETE FROM request_receipts WHERE created_at < now() - make_interval(days => :days)',
+    { replacements: { days: RECEIPT_DAYS } },
+  );
+  return (meta as { rowCount?: number } | undefined)?.rowCount ?? 0;
+}
+
+let sweepTimer: NodeJS.Timeout | null = null;
+
+/** Sweeps old receipts on a schedule (hourly), outside any request. */
+export function startReceiptSweeper(intervalMs = 60 * 60 * 1000) {
+  if (sweepTimer) return;
+  const tick = () => {
+    sweepReceipts()
+      .catch((err) => console.error(`[bayslate] receipt sweep failed: ${err?.message ?? err}`))
+      .finally(() => {
+        if (sweepTimer) sweepTimer = setTimeout(tick, intervalMs).unref();
+      });
+  };
+  sweepTimer = setTimeout(tick, intervalMs).unref();
+}
+
+export function stopReceiptSweeper() {
+  if (sweepTimer) clearTimeout(sweepTimer);
+  sweepTimer = null;
 }

@@ -155,3 +155,65 @@ describe('keys are checked and kept apart', () => {
     expect((await counts('labour_entries')).labour_entries).toBe(before.labour_entries);
   });
 });
+
+describe('receipts live a week', () => {
+  it('a key whose receipt is older than a week starts a new change instead of replaying the old answer', async () => {
+    const { sequelize } = await import('../../server/models');
+    const send = () =>
+      installer
+        .post(labourUrl())
+        .set('Idempotency-Key', 'hours-key-old-1')
+        .send({ ...hours, upgradeId });
+    const before = await counts('labour_entries');
+    expect((await send()).status).toBe(201);
+    await sequelize.query(
+      `UPDATE request_receipts SET created_at = now() - interval '8 days' WHERE key = 'hours-key-old-1'`,
+    );
+    const later = await send();
+    expect(later.status).toBe(201);
+    expect(later.headers['idempotent-replayed']).toBeUndefined();
+    expect((await counts('labour_entries')).labour_entries).toBe(before.labour_entries + 2);
+    // And the renewed receipt replays as usual.
+    expect((await send()).headers['idempotent-replayed']).toBe('true');
+  });
+
+  it('the sweep forgets receipts older than a week and keeps younger ones', async () => {
+    const { sequelize } = await import('../../server/models');
+    const { sweepReceipts } = await import('../../server/services/requestReceipts');
+    for (const key of ['sweep-key-young', 'sweep-key-old'])
+      await installer
+        .post(labourUrl())
+        .set('Idempotency-Key', key)
+        .send({ ...hours, upgradeId });
+    await sequelize.query(
+      `UPDATE request_receipts SET created_at = now() - interval '8 days' WHERE key = 'sweep-key-old'`,
+    );
+    expect(await sweepReceipts()).toBeGreaterThanOrEqual(1);
+    const [rows] = await sequelize.query(`SELECT key FROM request_receipts WHERE key LIKE 'sweep-key-%' ORDER BY key`);
+    expect(rows).toEqual([{ key: 'sweep-key-young' }]);
+  });
+});
+
+describe('the receipt sweep', () => {
+  it('runs on its own timer, outside any request', async () => {
+    const { sequelize } = await import('../../server/models');
+    const { startReceiptSweeper, stopReceiptSweeper } = await import('../../server/services/requestReceipts');
+    await installer
+      .post(labourUrl())
+      .set('Idempotency-Key', 'timer-key-old')
+      .send({ ...hours, upgradeId });
+    await sequelize.query(
+      `UPDATE request_receipts SET created_at = now() - interval '9 days' WHERE key = 'timer-key-old'`,
+    );
+    const left = async () =>
+      ((await sequelize.query(`SELECT 1 FROM request_receipts WHERE key = 'timer-key-old'`))[0] as unknown[]).length;
+    expect(await left()).toBe(1);
+    startReceiptSweeper(20);
+    try {
+      for (let i = 0; i < 100 && (await left()) > 0; i++) await new Promise((r) => setTimeout(r, 50));
+      expect(await left()).toBe(0);
+    } finally {
+      stopReceiptSweeper();
+    }
+  });
+});
