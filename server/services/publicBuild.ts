@@ -5,6 +5,7 @@ import { sequelize, Build, Upgrade, Episode } from '../models';
 import { notFound } from '../errors';
 import { cachedPublic, keepPublic, publicStamp, type PublicEntry } from './publicBuildCache';
 import { cautionsFor } from '../../shared/safety';
+import { dayOf } from '../../shared/dates';
 import { AREAS, AREA_LABELS, isUpgradeDone, type Area } from '../../shared/domain';
 import { allow } from '../../shared/contracts/common';
 import { PublicBuild } from '../../shared/contracts/public';
@@ -114,7 +115,8 @@ async function publicBuildViewOf(slug: string) {
       title: e.title,
       summary: e.summary,
       videoUrl: e.videoUrl,
-      publishedOn: e.publishedAt ? new Date(e.publishedAt).toISOString().slice(0, 10) : null,
+      // The day it went out where the shop is (the build's zone), as everywhere else.
+      publishedOn: e.publishedAt ? dayOf(e.publishedAt, build.timeZone) : null,
       upgrades: upgrades.filter((u) => u.episodeId === e.id).map((u) => u.title),
     })),
     cautions,

@@ -437,3 +437,25 @@ describe('unconfirmed votes are forgotten', () => {
     expect(await ViewerRequest.count({ where: { id: kept.id } })).toBe(1);
   });
 });
+
+describe('the public page’s dates are the shop’s', () => {
+  it('an episode published at 23:30 in the build’s zone shows that day, not the next day in UTC', async () => {
+    // 2026-03-15 05:30 UTC is 2026-03-14 23:30 in America/Denver (MDT, UTC−6, from 2026-03-08).
+    const [[live]] = (await sequelize.query(
+      `SELECT id, number FROM episodes WHERE build_id = $1 AND state = 'live' ORDER BY number LIMIT 1`,
+      { bind: [tern.id] },
+    )) as [Array<{ id: number; number: number }>, unknown];
+    await sequelize.query(`UPDATE episodes SET published_at = '2026-03-15T05:30:00Z' WHERE id = $1`, {
+      bind: [live.id],
+    });
+    expect(tern.timeZone).toBe('America/Denver');
+    let shown: string | null | undefined;
+    for (let i = 0; i < 40; i++) {
+      const res = await anonymous().get(`/api/public/builds/${slug}`);
+      shown = res.body.episodes.find((e: { number: number }) => e.number === live.number)?.publishedOn;
+      if (shown === '2026-03-14' || shown === '2026-03-15') break;
+      await new Promise((r) => setTimeout(r, 50));
+    }
+    expect(shown).toBe('2026-03-14');
+  });
+});
