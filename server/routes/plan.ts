@@ -4,6 +4,7 @@ import { buildScopedRouter } from './buildScoped';
 import { planSchema, proposalSchema, undoPlanSchema } from '../../shared/schemas/episode';
 import { listRevisions } from '../services/planRevisions';
 import * as plan from '../services/plan';
+import { applyPlan, undoLastPlanChange } from '../services/planApply';
 import { send } from './send';
 import {
   PlanApplied,
@@ -28,12 +29,12 @@ export function planRouter() {
       send(res, ProposalAnswer, await plan.propose(buildOf(req), req.body));
     })
     .put('/', { ...producer, body: planSchema }, async (req, res) => {
-      send(res, PlanApplied, await plan.applyPlan(req.user!, buildOf(req), req.body));
+      send(res, PlanApplied, await applyPlan(req.user!, buildOf(req), req.body));
     })
     .get('/revisions', producer, async (req, res) => {
       send(res, PlanRevisions, { revisions: await listRevisions(buildOf(req).id) });
     })
     .post('/undo', { ...producer, body: undoPlanSchema }, async (req, res) => {
-      send(res, PlanUndone, await plan.undoLastPlanChange(req.user!, buildOf(req), req.body.basedOn));
+      send(res, PlanUndone, await undoLastPlanChange(req.user!, buildOf(req), req.body.basedOn));
     }).router;
 }

@@ -8,16 +8,15 @@ import { listImports } from './salesImport';
 import { slugify } from '../../shared/showNotes';
 import { rollUpCosts } from '../../shared/costs';
 import {
-  netCostByDay,
   salesFigures,
   type AttributedLine,
-  type DatedCostInput,
   type SalesEpisodeInput,
   type SalesPartInput,
   type SalesUpgradeInput,
   type SaleLineInput,
   type Attribution,
 } from '../../shared/sales';
+import { netCostByDay, type DatedCostInput } from '../../shared/salesPayback';
 import { todayIn } from '../../shared/dates';
 import type { SalesSummaryForOwner } from '../../shared/contracts/sales';
 

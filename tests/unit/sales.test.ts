@@ -1,5 +1,5 @@
-// shared/sales.ts: attribution, margin, return on the build and payback, on small cases worked out by
-// hand below each one. Definitions: return on investment = (gain − cost) ÷ cost (the usual textbook
+// shared/sales.ts and shared/salesPayback.ts: attribution, margin, return on the build and payback,
+// on small cases worked out by hand below each one. Definitions: return on investment = (gain − cost) ÷ cost (the usual textbook
 // form, e.g. Wikipedia "Return on investment"); simple payback = the period until cumulative net
 // inflows have paid back the investment (Association of Corporate Treasurers glossary, "Payback period").
 import { describe, it, expect } from 'vitest';
@@ -7,14 +7,12 @@ import {
   attributeLines,
   episodeNumberOf,
   lineMargin,
-  netCostByDay,
-  paybackOf,
-  returnOnBuild,
   salesFigures,
   tagsOfUrl,
   type AttributionInput,
   type SaleLineInput,
 } from '../../shared/sales';
+import { netCostByDay, paybackOf, returnOnBuild } from '../../shared/salesPayback';
 
 // A build with two live episodes and one draft:
 //   episode 1 (id 11) released 2026-10-01 shows upgrade 101 (part 1001 "HT-A", cost $100.00)
