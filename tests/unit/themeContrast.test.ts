@@ -1,7 +1,7 @@
 // Every text/background pair of the theme's --bs-* variables keeps WCAG AA contrast in both modes
 // (4.5:1 for text, 3:1 for edges and the focus ring that must be seen), so a colour changed in
 // src/theme.ts cannot quietly make a screen unreadable. axe checks the drawn screens in the browser
-// (tests/e2e/themesEveryScreen.test.ts); this checks the pairs themselves, fast.
+// (tests/e2e/themes*.test.ts); this checks the pairs themselves, fast.
 import { describe, it, expect } from 'vitest';
 import { themeVars, chartColors, type ThemeVars } from '../../src/theme';
 
