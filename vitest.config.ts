@@ -34,8 +34,9 @@ export default defineConfig({
           environment: 'node',
           globalSetup: ['tests/helpers/global-services.ts'],
           setupFiles: ['tests/helpers/per-file-db.ts'],
-          testTimeout: 30_000,
-          hookTimeout: 60_000,
+          // Generous: on a two-core machine running other suites an API test can take tens of seconds.
+          testTimeout: 90_000,
+          hookTimeout: 180_000,
           pool: 'forks',
           maxWorkers: 2,
         },

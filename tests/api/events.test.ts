@@ -82,10 +82,9 @@ describe('live updates of a build', () => {
       expect(stream.status).toBe(200);
       await within(2000, stream.next('ready'));
       const u = (await Upgrade.findOne({ where: { buildId, title: 'Remote start' } }))!;
-      const started = Date.now();
-      const res = await (
-        await signInAs('installer')
-      )
+      const installer = await signInAs('installer');
+      const started = Date.now(); // from the change, not from the installer's sign-in
+      const res = await installer
         .patch(`/api/builds/${buildId}/upgrades/${u.id}`)
         .send({ installState: 'in_bay', version: u.version });
       expect(res.status).toBe(200);

@@ -62,5 +62,5 @@ describe('kept-alive connections', () => {
     } finally {
       agent.destroy();
     }
-  }, 20_000);
+  }, 90_000);
 });

@@ -195,6 +195,21 @@ describe('backlog in the browser', () => {
         expect(await card.locator('[data-test="spend"]').count()).toBe(0);
         expect(await card.innerText()).not.toMatch(/spent|budget/i);
         const buildId = await ternId(s);
+        // Seen on a busy machine: while the list was still loading, the empty table was a scrollable
+        // region with nothing to focus (axe: scrollable-region-focusable). Hold the list and look.
+        let release = () => {};
+        const held = new Promise<void>((r) => (release = r));
+        await page.route(/\/api\/builds\/\d+\/upgrades(\?.*)?$/, async (route) => {
+          await held;
+          await route.continue();
+        });
+        await page.goto(`${s.server.url}/builds/${buildId}/backlog`);
+        await page.locator('.n-data-table, [role="status"]:has-text("Loading the backlog")').first().waitFor();
+        await audit(s, 'backlog while its list loads', { settle: false });
+        expect(await page.getByRole('status').filter({ hasText: 'Loading the backlog' }).count()).toBe(1);
+        release();
+        await page.locator('.n-data-table-tr').nth(1).waitFor();
+        await page.unrouteAll();
         const lamps = await upgradeByTitle(s, buildId, 'Projector LED headlamps');
         await visit(s, `/builds/${buildId}/backlog?upgrade=${lamps.id}`);
         const line = drawer(page).locator('[data-test="part-HT-LMP-4410-L"]');

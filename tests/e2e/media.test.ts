@@ -6,7 +6,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import sharp from 'sharp';
-import { openBrowser, audit, visit, type BrowserSession } from '../helpers/browser';
+import { openBrowser, audit, visit, BROWSER_WAIT_MS, type BrowserSession } from '../helpers/browser';
 import { DEMO_EMAIL, DEMO_PASSWORD, type DemoRole } from '../helpers/api';
 import { freshAppPerTest, ternId as ternIdIn } from '../helpers/fresh-db';
 import { outcomeOf } from '../helpers/outcome';
@@ -62,7 +62,7 @@ async function imagesLoaded(s: BrowserSession, selector: string) {
       return imgs.length > 0 && imgs.every((i) => i.complete && i.naturalWidth > 0);
     },
     selector,
-    { timeout: 15_000 },
+    { timeout: BROWSER_WAIT_MS },
   );
 }
 
@@ -109,7 +109,7 @@ describe('media in the browser', () => {
           return !!b && b.value > 0 && b.value < 100;
         },
         null,
-        { timeout: 20_000 },
+        { timeout: BROWSER_WAIT_MS },
       );
       await s.page.getByRole('button', { name: 'Cancel upload of wiring-loom-1.jpg' }).waitFor();
       await audit(s, 'media library, uploads in progress (phone)');
@@ -126,7 +126,7 @@ describe('media in the browser', () => {
           return st.length === 2 && st.every((t) => t === 'Uploaded');
         },
         null,
-        { timeout: 30_000 },
+        { timeout: BROWSER_WAIT_MS },
       );
       expect(
         await s.page

@@ -7,7 +7,7 @@ import { describe, it, expect } from 'vitest';
 import path from 'node:path';
 import sharp from 'sharp';
 import { request } from 'playwright-core';
-import { openBrowser, audit, signIn, type BrowserSession } from '../helpers/browser';
+import { openBrowser, audit, signIn, BROWSER_WAIT_MS, type BrowserSession } from '../helpers/browser';
 import { DEMO_EMAIL, DEMO_PASSWORD } from '../helpers/api';
 import { freshAppPerTest, ternId } from '../helpers/fresh-db';
 import { setColourMode } from '../helpers/theme';
@@ -32,7 +32,7 @@ interface UpgradeRow extends Record<string, unknown> {
 
 /** The top of the shop floor with the waiting indicator folded, once the toasts have gone. */
 async function screenshot(s: BrowserSession, name: string) {
-  await s.page.locator('.n-message').first().waitFor({ state: 'detached', timeout: 10_000 });
+  await s.page.locator('.n-message').first().waitFor({ state: 'detached', timeout: BROWSER_WAIT_MS });
   const hide = s.page.getByRole('button', { name: 'Hide the changes waiting to send' });
   if (await hide.count()) await hide.click();
   await s.page.evaluate(() => window.scrollTo(0, 0));

@@ -100,6 +100,9 @@ function chromiumPath() {
   throw new Error('Chromium is missing: `npm test` installs Debian’s chromium package');
 }
 
+/** How long a browser wait may take before it fails (each journey still has its own overall limit). */
+export const BROWSER_WAIT_MS = 90_000;
+
 export interface BrowserSession {
   browser: Browser;
   context: BrowserContext;
@@ -157,6 +160,11 @@ export async function openBrowser(
       ? { viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true, deviceScaleFactor: 2, bypassCSP: true }
       : { viewport: { width: 1366, height: 900 }, bypassCSP: true },
   );
+  // Playwright waits 30 s for a page or an element by default; on a busy two-core machine (other
+  // suites running) a screen can take longer than that to show what the journey caused. Waiting
+  // longer is not retrying: a wait still ends in failure when the outcome never comes.
+  context.setDefaultTimeout(BROWSER_WAIT_MS);
+  context.setDefaultNavigationTimeout(BROWSER_WAIT_MS);
   const page = await context.newPage();
   const session: BrowserSession = {
     browser,
@@ -172,10 +180,15 @@ export async function openBrowser(
   return session;
 }
 
-/** Runs axe-core on the page as it is now; fails on any serious or critical violation. */
-export async function audit(s: BrowserSession, label?: string) {
+/**
+ * Runs axe-core on the page as it is now; fails on any serious or critical violation. It first
+ * lets the page settle (network idle, fades done) unless `settle` is false (a state the test holds
+ * on purpose, such as a screen still loading).
+ */
+export async function audit(s: BrowserSession, label?: string, { settle = true } = {}) {
   const { page } = s;
-  await page.waitForLoadState('networkidle').catch(() => undefined);
+  // Best effort, as before the longer default wait: a page that keeps a request open goes on after 30 s.
+  if (settle) await page.waitForLoadState('networkidle', { timeout: 30_000 }).catch(() => undefined);
   // Let fades finish (a table fading in from its loading state is not what a person reads).
   await page
     .waitForFunction(

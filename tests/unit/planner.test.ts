@@ -304,14 +304,14 @@ describe('proposePlan on random builds', () => {
     }
   });
 
-  it('plans 2,000 upgrades with 6,000 prerequisites well under 100 ms', () => {
+  // Its speed (DESIGN §8: under 100 ms) is measured by `npm run bench:planner`, not here: a timed
+  // assertion fails on a busy machine for reasons that are not the planner's.
+  it('plans 2,000 upgrades with 6,000 prerequisites: every upgrade once, and the plan checks clean', () => {
     const input = randomBuild(rng(7), 2000, 3);
-    proposePlan(input); // warm-up
-    const times = Array.from({ length: 5 }, () => {
-      const t0 = performance.now();
-      proposePlan(input);
-      return performance.now() - t0;
-    }).sort((a, b) => a - b);
-    expect(times[2]).toBeLessThan(100);
+    const p = ok(proposePlan(input));
+    expect(validatePlan(input, p)).toEqual([]);
+    const placed = p.episodes.flatMap((e) => e.upgradeIds);
+    expect(placed.length).toBe(2000);
+    expect(new Set(placed).size).toBe(2000);
   });
 });
