@@ -4,6 +4,10 @@ import { defineConfig } from 'vitest/config';
 import vue from '@vitejs/plugin-vue';
 import { fileURLToPath } from 'node:url';
 
+// Two workers per project: Vitest's default (cores − 1) leaves one of our two cores idle, and more
+// would only make each browser journey slower on a busy machine (the suite is CPU-bound).
+const WORKERS = 2;
+
 const alias = {
   '@shared': fileURLToPath(new URL('./shared', import.meta.url)),
   '@': fileURLToPath(new URL('./src', import.meta.url)),
@@ -16,13 +20,12 @@ export default defineConfig({
     projects: [
       {
         extends: true,
-        // Two workers: Vitest's default (cores − 1) leaves one of our two cores idle.
         test: {
           name: 'unit',
+          sequence: { groupOrder: 0 },
           include: ['tests/unit/**/*.test.ts'],
           environment: 'node',
-          sequence: { groupOrder: 0 },
-          maxWorkers: 2,
+          maxWorkers: WORKERS,
         },
       },
       {
@@ -33,12 +36,13 @@ export default defineConfig({
           include: ['tests/api/**/*.test.ts'],
           environment: 'node',
           globalSetup: ['tests/helpers/global-services.ts'],
-          setupFiles: ['tests/helpers/per-file-db.ts'],
+          setupFiles: ['tests/helpers/per-file-db.ts', 'tests/helpers/close-db-after-file.ts'],
           // Generous: on a two-core machine running other suites an API test can take tens of seconds.
           testTimeout: 90_000,
           hookTimeout: 180_000,
           pool: 'forks',
-          maxWorkers: 2,
+          isolate: false,
+          maxWorkers: WORKERS,
         },
       },
       {
@@ -58,7 +62,8 @@ export default defineConfig({
           // Each browser test starts its own server on its own database (tests/helpers/fresh-db.ts).
           hookTimeout: 180_000,
           pool: 'forks',
-          maxWorkers: 2,
+          isolate: false,
+          maxWorkers: WORKERS,
         },
       },
     ],

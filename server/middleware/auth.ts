@@ -1,10 +1,9 @@
-// Sessions in PostgreSQL, passport-local sign-in, idle and absolute timeouts, and the
+// Sessions in PostgreSQL, sign-in by e-mail and password, idle and absolute timeouts, and the
 // cross-site request guard for state-changing requests.
 import type { Express, RequestHandler } from 'express';
 import session from 'express-session';
 import connectPgSimple from 'connect-pg-simple';
-import passport from 'passport';
-import { Strategy as LocalStrategy } from 'passport-local';
+import { Passport } from 'passport';
 import bcrypt from 'bcryptjs';
 import pg from 'pg';
 import rateLimit, { type Store } from 'express-rate-limit';
@@ -74,14 +73,9 @@ export function installAuth(app: Express, pool: pg.Pool) {
     }),
   );
 
-  passport.use(
-    new LocalStrategy({ usernameField: 'email', passwordField: 'password' }, (email, password, done) => {
-      verifyPassword(email, password).then(
-        (user) => done(null, user ? (user.toPublic() as Express.User) : false),
-        (err) => done(err),
-      );
-    }),
-  );
+  // A passport of this app's own: the package's shared instance would keep the callbacks of every
+  // app created in the process, and the first one's person look-up would answer for all of them.
+  const passport = new Passport();
   passport.serializeUser((user, done) => done(null, user.id));
   passport.deserializeUser((id: number, done) => {
     const hit = recentUsers.get(id);

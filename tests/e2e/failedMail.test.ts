@@ -34,12 +34,12 @@ describe('failed mail panel', () => {
       await s.page.getByRole('link', { name: 'Users & roles' }).click();
       const row = s.page.locator(`[data-mail-id="${id}"]`);
       await row.getByText('ECONNREFUSED').waitFor();
-      await audit(s, 'users with a failed mail (dark)');
+      await audit(s, 'users with a failed mail (dark)', { contrast: true });
       await row.getByRole('button', { name: 'Send again' }).click();
       await s.page.getByText('Mail to new.hire@cedar-ridge.test is queued again.').waitFor();
       await row.waitFor({ state: 'detached' });
       await s.page.getByText('No failed mail').waitFor();
-      await audit(s, 'users without failed mail (dark)');
+      await audit(s, 'users without failed mail (dark)', { contrast: true });
     } finally {
       await s.close();
     }
@@ -54,7 +54,7 @@ describe('failed mail panel', () => {
       await s.page.goto(`${server.url}/users`);
       const row = s.page.locator(`[data-mail-id="${id}"]`);
       await row.getByRole('button', { name: 'Send again' }).waitFor();
-      await audit(s, 'users with a failed mail (phone)');
+      await audit(s, 'users with a failed mail (phone)', { contrast: true });
       const overflow = await s.page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
       if (overflow > 1) throw new Error(`the page is ${overflow}px wider than the phone`);
     } finally {

@@ -88,7 +88,7 @@ describe('shop floor on a phone', () => {
         expect(await Activity.count({ where: { buildId, entityId: u.id, entity: 'upgrade', action: 'update' } })).toBe(
           updatesBefore + 1,
         );
-        await audit(s, 'shop floor after start (light)');
+        await audit(s, 'shop floor after start (light)', { contrast: true });
 
         // The undo steps the start back, recorded.
         await page.locator('[data-test="undo-bar"]').getByRole('button', { name: /Undo/ }).click();
@@ -149,7 +149,7 @@ describe('shop floor on a phone', () => {
         await page.getByRole('heading', { name: 'Episode 7: Ready to tow' }).waitFor();
         const bar = await page.evaluate(() => getComputedStyle(document.querySelector('.topbar')!).backgroundColor);
         expect(bar).toBe('rgb(37, 39, 43)');
-        await audit(s, 'shop floor (dark)');
+        await audit(s, 'shop floor (dark)', { contrast: true });
         const dark = await measure(s);
         console.log(`[shop floor 390 dark] ${JSON.stringify(dark)}`);
         if (screens) await page.screenshot({ path: path.join(screens, 'shop-floor-390-dark.png') });
@@ -157,7 +157,7 @@ describe('shop floor on a phone', () => {
           await page.screenshot({ path: path.join(screens, 'shop-floor-390-dark-full.png'), fullPage: true });
         await page.getByRole('button', { name: 'Open the menu' }).click();
         await page.getByRole('navigation', { name: 'Menu' }).waitFor();
-        await audit(s, 'phone menu (dark)');
+        await audit(s, 'phone menu (dark)', { contrast: true });
       } finally {
         await s.close();
       }

@@ -151,7 +151,7 @@ describe('shop floor offline', () => {
         await page.getByRole('button', { name: 'Show the changes waiting to send' }).click();
         await page.getByRole('progressbar', { name: 'Upload of charger-offline.jpg' }).waitFor();
         expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
-        await audit(s, 'shop floor offline, six changes waiting (light)');
+        await audit(s, 'shop floor offline, six changes waiting (light)', { contrast: true });
         if (screens) await screenshot(s, 'offline-light.png');
 
         // Dark mode (this reloads the page, offline again from the service worker); the outbox survives.

@@ -184,8 +184,13 @@ export async function openBrowser(
  * Runs axe-core on the page as it is now; fails on any serious or critical violation. It first
  * lets the page settle (network idle, fades done) unless `settle` is false (a state the test holds
  * on purpose, such as a screen still loading).
+ *
+ * Colour contrast is checked where a test says `contrast: true`: every screen and overlay in both
+ * themes (tests/helpers/themes-audit.ts) and the audits that name their theme. Elsewhere a journey's
+ * audit checks names, roles, labels and structure of the states it reaches; contrast, which depends
+ * on the theme and the screen, is the costliest rule (about half of axe's time on a large screen).
  */
-export async function audit(s: BrowserSession, label?: string, { settle = true } = {}) {
+export async function audit(s: BrowserSession, label?: string, { settle = true, contrast = false } = {}) {
   const { page } = s;
   // Best effort, as before the longer default wait: a page that keeps a request open goes on after 30 s.
   if (settle) await page.waitForLoadState('networkidle', { timeout: 30_000 }).catch(() => undefined);
@@ -202,7 +207,7 @@ export async function audit(s: BrowserSession, label?: string, { settle = true }
     .catch(() => undefined);
   const hasAxe = await page.evaluate(() => typeof (window as unknown as { axe?: unknown }).axe !== 'undefined');
   if (!hasAxe) await page.addScriptTag({ path: axePath });
-  const violations = await page.evaluate(async () => {
+  const violations = await page.evaluate(async (withContrast) => {
     const axe = (
       window as unknown as {
         axe: {
@@ -220,7 +225,10 @@ export async function audit(s: BrowserSession, label?: string, { settle = true }
         };
       }
     ).axe;
-    const r = await axe.run(document, { resultTypes: ['violations'] });
+    const r = await axe.run(document, {
+      resultTypes: ['violations'],
+      rules: { 'color-contrast': { enabled: withContrast } },
+    });
     return r.violations
       .filter((v) => v.impact === 'serious' || v.impact === 'critical')
       .map(
@@ -233,7 +241,7 @@ export async function audit(s: BrowserSession, label?: string, { settle = true }
             )
             .join('\n    ')}`,
       );
-  });
+  }, contrast);
   const where = label ?? page.url();
   s.audited.push(where);
   if (violations.length) throw new Error(`accessibility violations on ${where}:\n  ${violations.join('\n  ')}`);

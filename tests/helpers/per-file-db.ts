@@ -1,8 +1,17 @@
 // Runs before each API or browser test file: clones the template database into a database of
 // the file's own, and points the server's configuration at it. Files never share rows.
-import { inject } from 'vitest';
+import { inject, vi } from 'vitest';
 import pg from 'pg';
 import { randomBytes } from 'node:crypto';
+
+// A worker runs several files one after another (isolate: false saves loading the packages again for
+// each file): every file starts from the environment the worker started with and from freshly
+// evaluated modules of our own, so the server's configuration is read again for this file's database.
+const g = globalThis as { __bayslateEnv?: NodeJS.ProcessEnv };
+g.__bayslateEnv ??= { ...process.env };
+for (const k of Object.keys(process.env)) if (!(k in g.__bayslateEnv)) delete process.env[k];
+Object.assign(process.env, g.__bayslateEnv);
+vi.resetModules();
 
 const templateUrl = inject('pgTemplateUrl');
 const name = `t_${process.pid}_${randomBytes(4).toString('hex')}`;

@@ -59,7 +59,7 @@ export async function auditThemes(startMode: ColourMode, journey: (t: ThemesRun)
       const m = await mode();
       expect(await drawn(), `${label} draws in ${m} mode`).toBe(m);
       try {
-        await audit(s, `${label} (${m})`);
+        await audit(s, `${label} (${m})`, { contrast: true });
       } catch (e) {
         failures.push((e as Error).message);
       }
