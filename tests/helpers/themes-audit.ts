@@ -55,7 +55,15 @@ export async function auditThemes(startMode: ColourMode, journey: (t: ThemesRun)
     /** The mode the page draws in, read from the page itself (the root's theme variables). */
     const drawn = async () => page.evaluate(() => document.documentElement.dataset.mode);
     const check = async (label: string, ready: Locator) => {
-      await ready.waitFor();
+      try {
+        await ready.waitFor();
+      } catch (e) {
+        // What the page showed instead, so a failure on a loaded machine says more than "time-out".
+        const shown = await page
+          .evaluate(() => ({ url: location.href, text: document.body.innerText.replace(/\s+/g, ' ').slice(0, 600) }))
+          .catch(() => null);
+        throw new Error(`${label}: ${(e as Error).message}\nthe page at that moment: ${JSON.stringify(shown)}`);
+      }
       const m = await mode();
       expect(await drawn(), `${label} draws in ${m} mode`).toBe(m);
       try {
