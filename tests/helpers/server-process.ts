@@ -58,7 +58,9 @@ export async function startServerProcess(
   let out = '';
   child.stdout!.on('data', (c) => (out += c));
   child.stderr!.on('data', (c) => (out += c));
-  const exited = new Promise<number | null>((r) => child.once('exit', (code) => r(code)));
+  // 'close', not 'exit': a process that has exited may still have output in its pipes, and a test
+  // reads the whole output once the process is gone (Node's child_process docs on the two events).
+  const exited = new Promise<number | null>((r) => child.once('close', (code) => r(code)));
   await new Promise<void>((resolve, reject) => {
     // Generous: a start takes seconds on a busy 2-core machine; a slow start is not a failure.
     const timer = setTimeout(() => reject(new Error(`server did not start:\n${out}`)), 60_000);
@@ -96,7 +98,7 @@ export function runServerToEnd(
     child.stdout!.on('data', (c) => (out += c));
     child.stderr!.on('data', (c) => (out += c));
     const timer = setTimeout(() => child.kill('SIGKILL'), 60_000);
-    child.once('exit', (code) => (clearTimeout(timer), resolve({ code, output: out })));
+    child.once('close', (code) => (clearTimeout(timer), resolve({ code, output: out })));
   });
 }
 
