@@ -28,7 +28,7 @@ describe('the forecast finish', () => {
     expect(res.status).toBe(200);
     const cp = res.body.criticalPath;
     // The demo's surround-view camera (7 h, priority 1) waits on a camera set due 2026-12-29
-    // (server/db/seeders/data/project-tern-inside.ts). It cannot start before then, and 7 h at the
+    // (server/db/seeders/data/project-tern-electrical.ts). It cannot start before then, and 7 h at the
     // shop's 24 h a week is 7 × 7 / 24 ≈ 2.04 calendar days, so it cannot finish before the 31st.
     const due = later(todayIso(), '2026-12-29');
     expect(cp.earliestFinish > due).toBe(true);

@@ -2,8 +2,12 @@
 // top-trim showcase by Cedar Ridge Upfitters. Every name, part number, supplier and price is invented.
 // Money here is in whole dollars for readability; the seeder turns it into cents.
 import type { Area, Disposition, LabourKind, PartCondition, PartState, SafetyFlag } from '../../../../shared/domain';
-import { OUTSIDE_UPGRADES } from './project-tern-outside';
-import { INSIDE_UPGRADES } from './project-tern-inside';
+import { FRONT_UPGRADES } from './project-tern-front';
+import { SIDES_UPGRADES } from './project-tern-sides';
+import { REAR_UPGRADES } from './project-tern-rear';
+import { WHEELS_CHASSIS_UPGRADES } from './project-tern-wheels-chassis';
+import { CABIN_UPGRADES } from './project-tern-cabin';
+import { ELECTRICAL_UPGRADES } from './project-tern-electrical';
 
 export const TERN_BUILD = {
   slug: 'project-tern',
@@ -76,7 +80,15 @@ export interface SeedUpgrade {
 }
 
 /** Every upgrade, front to back then inside, in the order the seeder creates them. */
-export const TERN_UPGRADES: SeedUpgrade[] = [...OUTSIDE_UPGRADES, ...INSIDE_UPGRADES];
+// One file per area of the vehicle, in the order the demo backlog lists them.
+export const TERN_UPGRADES: SeedUpgrade[] = [
+  ...FRONT_UPGRADES,
+  ...SIDES_UPGRADES,
+  ...REAR_UPGRADES,
+  ...WHEELS_CHASSIS_UPGRADES,
+  ...CABIN_UPGRADES,
+  ...ELECTRICAL_UPGRADES,
+];
 
 export interface SeedLabour {
   upgrade: string;
