@@ -3,7 +3,7 @@
 // build. The installer's, the owner's and marketing's journeys: backlogRoles.test.ts.
 import { describe, it, expect } from 'vitest';
 import type { Page } from 'playwright-core';
-import { openBrowser, signIn, audit, visit } from '../helpers/browser';
+import { openBrowser, signIn, audit, visit, pickOption } from '../helpers/browser';
 import { freshAppPerTest } from '../helpers/fresh-db';
 import { outcomeOf } from '../helpers/outcome';
 import { apiGet, ternId, upgradeByTitle, drawer, JOURNEY_TIMEOUT } from '../helpers/backlog';
@@ -13,8 +13,7 @@ const app = freshAppPerTest();
 
 /** Picks an option of a naive-ui select inside the given form item. */
 async function choose(page: Page, scope: ReturnType<Page['locator']>, option: string) {
-  await scope.locator('.n-base-selection').first().click();
-  await page.locator('.n-base-select-option:visible', { hasText: option }).first().click();
+  await pickOption(page, scope.locator('.n-base-selection').first(), option);
 }
 
 describe('backlog in the browser', () => {

@@ -1,7 +1,14 @@
 // Kit sales in the browser: the owner imports a small export through the mapping step, reads the
 // preview and then the per-episode table with margin; marketing sees revenue but no margin or cost.
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
-import { openBrowser, audit, startAppServer, type AppServer, type BrowserSession } from '../helpers/browser';
+import {
+  openBrowser,
+  audit,
+  pickOption,
+  startAppServer,
+  type AppServer,
+  type BrowserSession,
+} from '../helpers/browser';
 import { Build, Episode, Part, Upgrade } from '../../server/models';
 import { DEMO_EMAIL, DEMO_PASSWORD, type DemoRole } from '../helpers/api';
 import { formatCents } from '../../src/theme';
@@ -92,10 +99,9 @@ describe('sales in the browser', () => {
         .setInputFiles({ name: 'orders.csv', mimeType: 'text/csv', buffer: Buffer.from(EXPORT) });
       await s.page.getByText('Still to pick: Order date.').waitFor();
       await s.page.getByRole('radio', { name: 'Campaign and content columns' }).check({ force: true });
-      await s.page.locator('[data-test="map-date"]').click();
-      await s.page.locator('.n-base-select-option', { hasText: 'Placed' }).click();
-      // The pick closes the list: audit the mapping step once its menu has gone, not mid-fade.
-      await s.page.locator('.n-base-select-menu').waitFor({ state: 'hidden' });
+      // The pick closes the list: the mapping step is audited once its menu has gone, not mid-fade.
+      await pickOption(s.page, s.page.locator('[data-test="map-date"]'), 'Placed');
+      await s.page.getByText('Still to pick:').waitFor({ state: 'detached' });
       await audit(s, 'sales, mapping');
       await s.page.locator('[data-test="sales-check"]').click();
       const report = s.page.locator('[data-test="sales-report"]');

@@ -11,7 +11,7 @@ import path from 'node:path';
 import net from 'node:net';
 import { createRequire } from 'node:module';
 import { afterAll, inject } from 'vitest';
-import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { chromium, type Browser, type BrowserContext, type Locator, type Page } from 'playwright-core';
 import { DEMO_EMAIL, DEMO_PASSWORD, type DemoRole } from './api';
 import { buildServer } from './server-process';
 
@@ -245,6 +245,19 @@ export async function audit(s: BrowserSession, label?: string, { settle = true, 
   const where = label ?? page.url();
   s.audited.push(where);
   if (violations.length) throw new Error(`accessibility violations on ${where}:\n  ${violations.join('\n  ')}`);
+}
+
+/**
+ * Picks `option` in a naive-ui select as a person does: opens its list with `trigger`, waits until the
+ * list has finished opening (seen on a busy machine: a pick made while the list was still growing in
+ * was lost and the list stayed open), picks, and waits until the list has closed.
+ */
+export async function pickOption(page: Page, trigger: Locator, option: string | RegExp) {
+  await trigger.click();
+  const menu = page.locator('.n-base-select-menu:visible');
+  await page.locator('.n-base-select-menu:visible:not([class*="transition-enter"])').first().waitFor();
+  await menu.locator('.n-base-select-option', { hasText: option }).first().click();
+  await menu.first().waitFor({ state: 'hidden' });
 }
 
 /** Goes to a path of the app and audits the page once it has settled. */
