@@ -26,6 +26,9 @@ const schema = z.object({
     .int()
     .min(1)
     .default(7 * 24),
+  // bcrypt's cost for stored passwords (each step doubles the work). 10 or more in production; the
+  // test harness lowers it so its hundreds of sign-ins do not each cost a tenth of a second of CPU.
+  PASSWORD_HASH_COST: z.coerce.number().int().min(4).max(15).default(10),
   LOGIN_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
   LOGIN_RATE_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
   // Demo data and accounts: off unless asked for (`npm start` and the tests turn it on).
@@ -108,6 +111,9 @@ const schema = z.object({
   PENDING_VOTES_PER_ADDRESS: z.coerce.number().int().min(1).default(5),
 });
 
+/** The lowest bcrypt cost a production server accepts (OWASP's password storage cheat sheet: 10 or more). */
+export const MIN_PRODUCTION_HASH_COST = 10;
+
 export type Config = ReturnType<typeof loadConfig>;
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env) {
@@ -117,6 +123,10 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env) {
     throw new Error(`Bayslate configuration is not valid:\n${lines.join('\n')}`);
   }
   const c = parsed.data;
+  if (c.NODE_ENV === 'production' && c.PASSWORD_HASH_COST < MIN_PRODUCTION_HASH_COST)
+    throw new Error(
+      `Bayslate configuration is not valid:\n  PASSWORD_HASH_COST: must be ${MIN_PRODUCTION_HASH_COST} or more in production (it is ${c.PASSWORD_HASH_COST}; unset it for the default, 10)`,
+    );
   return {
     ...c,
     isProduction: c.NODE_ENV === 'production',

@@ -1,8 +1,10 @@
 // The one date module for server and client: calendar days (YYYY-MM-DD) and "today" in a build's
 // IANA time zone. Zone arithmetic comes from date-fns-tz (the zone database of Intl), never from
 // hand-written offsets; day arithmetic works on calendar days, so no zone or DST can shift it.
-import { addDays as addCalendarDays } from 'date-fns';
-import { toZonedTime } from 'date-fns-tz';
+// Per-function entry points: the packages' index files load every function (a sixth of a second
+// of CPU at each server start).
+import { addDays as addCalendarDays } from 'date-fns/addDays';
+import { toZonedTime } from 'date-fns-tz/toZonedTime';
 
 /** A new build's zone until the owner picks the shop's own. */
 export const DEFAULT_TIME_ZONE = 'UTC';

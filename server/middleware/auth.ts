@@ -6,6 +6,7 @@ import connectPgSimple from 'connect-pg-simple';
 import { Passport } from 'passport';
 import bcrypt from 'bcryptjs';
 import pg from 'pg';
+import { randomBytes } from 'node:crypto';
 import rateLimit, { type Store } from 'express-rate-limit';
 import { config } from '../config';
 import { User } from '../models';
@@ -16,9 +17,18 @@ import { isDemoEmail } from '../db/demoAccounts';
 export const SESSION_COOKIE = 'bayslate.sid';
 
 // Compared against when the e-mail is unknown, so both failures take the same time: a bcrypt hash
-// of a random password nobody kept, at the same cost (10) as real ones. A literal, because hashing
-// at start-up cost every start (and every test file) a tenth of a second of CPU.
-export const DUMMY_HASH = '$2b$10$ULd2luDgNsYaTLROsa8zeuey1v2/DdCtHXSqtBGePyNSCQnvV4i32';
+// of a random password nobody kept, at the same cost as real ones (PASSWORD_HASH_COST). At the
+// default cost, 10, a literal, because hashing at start-up cost every start a tenth of a second of
+// CPU; at another cost it is made once, on the first unknown e-mail.
+export const DUMMY_HASH_COST_10 = '$2b$10$ULd2luDgNsYaTLROsa8zeuey1v2/DdCtHXSqtBGePyNSCQnvV4i32';
+let dummyAtCost: { cost: number; hash: string } | null = null;
+export function dummyHash(): string {
+  const cost = config().PASSWORD_HASH_COST;
+  if (cost === 10) return DUMMY_HASH_COST_10;
+  if (dummyAtCost?.cost !== cost)
+    dummyAtCost = { cost, hash: bcrypt.hashSync(randomBytes(24).toString('base64'), cost) };
+  return dummyAtCost.hash;
+}
 
 declare module 'express-session' {
   interface SessionData {
@@ -41,7 +51,7 @@ export async function verifyPassword(email: string, password: string) {
   // Demo accounts sign in only in demo mode (a database once seeded keeps them).
   if (!config().BAYSLATE_DEMO && isDemoEmail(email)) email = '';
   const user = await User.findOne({ where: { email: email.trim().toLowerCase() } });
-  const ok = await bcrypt.compare(password, user?.passwordHash ?? DUMMY_HASH);
+  const ok = await bcrypt.compare(password, user?.passwordHash ?? dummyHash());
   return ok && user && user.active ? user : null;
 }
 

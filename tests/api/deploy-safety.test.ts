@@ -43,6 +43,7 @@ afterAll(async () => {
 const production = {
   NODE_ENV: 'production',
   BAYSLATE_DEMO: undefined,
+  PASSWORD_HASH_COST: undefined,
   MAIL_WORKER: '0',
   VIEWER_KEY_SECRET: 'deploy-test-viewer-key-secret-0123456789abcdef',
 };

@@ -2,7 +2,7 @@
 // installer works from a phone (log hours, receive a part), the owner sees spend, marketing sees
 // retail but never cost.
 import { describe, it, expect } from 'vitest';
-import { openBrowser, signIn, audit, visit } from '../helpers/browser';
+import { openBrowser, signIn, signInQuick, audit, visit } from '../helpers/browser';
 import { freshAppPerTest } from '../helpers/fresh-db';
 import { outcomeOf } from '../helpers/outcome';
 import { apiGet, ternId, upgradeByTitle, drawer, JOURNEY_TIMEOUT } from '../helpers/backlog';
@@ -19,7 +19,7 @@ describe('backlog in the browser', () => {
       const s = await openBrowser({ server: app().server, phone: true });
       const { page } = s;
       try {
-        await signIn(s, 'installer');
+        await signInQuick(s, 'installer');
         const buildId = await ternId(s);
         await visit(s, `/builds/${buildId}/backlog`);
         const wiring = await upgradeByTitle(s, buildId, 'Trailer wiring, 7-pin');

@@ -2,7 +2,7 @@
 // with one click, in both themes and at phone width.
 import { describe, it, afterAll, beforeAll } from 'vitest';
 import { QueryTypes } from 'sequelize';
-import { openBrowser, signIn, audit, startAppServer, type AppServer } from '../helpers/browser';
+import { openBrowser, signIn, signInQuick, audit, startAppServer, type AppServer } from '../helpers/browser';
 import { sequelize } from '../../server/models';
 import { enqueueMail } from '../../server/mail/outbox';
 
@@ -50,7 +50,7 @@ describe('failed mail panel', () => {
     const s = await openBrowser({ server, phone: true });
     try {
       await s.page.emulateMedia({ colorScheme: 'light' });
-      await signIn(s, 'owner');
+      await signInQuick(s, 'owner');
       await s.page.goto(`${server.url}/users`);
       const row = s.page.locator(`[data-mail-id="${id}"]`);
       await row.getByRole('button', { name: 'Send again' }).waitFor();

@@ -1,22 +1,20 @@
 // The owner's numbers in the browser: the overview of the demo build, a chart's table alternative,
 // the click-through to the backlog, the printable report, and a build with nothing to add up yet.
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
-import { openBrowser, audit, startAppServer, type AppServer, type BrowserSession } from '../helpers/browser';
+import {
+  openBrowser,
+  audit,
+  signInQuick,
+  startAppServer,
+  type AppServer,
+  type BrowserSession,
+} from '../helpers/browser';
 import { Build } from '../../server/models';
 import { buildOverview } from '../../server/services/overview';
 import { formatCents } from '../../src/theme';
-import { DEMO_EMAIL, DEMO_PASSWORD, type DemoRole } from '../helpers/api';
 
 let server: AppServer;
 
-/** Signs in through the API in the page's own context (the form itself is tested in signin.test.ts). */
-async function signInQuick(s: BrowserSession, role: DemoRole) {
-  const res = await s.page.request.post(`${server.url}/api/auth/login`, {
-    data: { email: DEMO_EMAIL[role], password: DEMO_PASSWORD },
-    headers: { 'X-Requested-With': 'Bayslate' },
-  });
-  expect(res.status()).toBe(200);
-}
 let tern: Build;
 beforeAll(async () => {
   server = await startAppServer();

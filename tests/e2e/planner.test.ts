@@ -1,6 +1,6 @@
 // The producer plans the series in the browser: proposes, accepts, moves an upgrade by keyboard and sees the violation at once.
 import { describe, it, expect, beforeEach } from 'vitest';
-import { openBrowser, signIn, audit, visit } from '../helpers/browser';
+import { openBrowser, signInQuick, audit, visit } from '../helpers/browser';
 import { freshAppPerTest, ternId } from '../helpers/fresh-db';
 import { outcomeOf } from '../helpers/outcome';
 
@@ -19,7 +19,7 @@ describe('episode planner in the browser', () => {
       const s = await openBrowser({ server: app().server });
       const { page } = s;
       try {
-        await signIn(s, 'producer');
+        await signInQuick(s, 'producer');
         await visit(s, `/builds/${buildId}/planner`);
         await page.getByRole('heading', { name: 'Episode planner' }).waitFor();
         await page.getByRole('heading', { name: 'No problems in this plan' }).waitFor();
@@ -111,7 +111,7 @@ describe('episode planner in the browser', () => {
     const s = await openBrowser({ server: app().server });
     const { page } = s;
     try {
-      await signIn(s, 'producer');
+      await signInQuick(s, 'producer');
       await visit(s, `/builds/${buildId}/planner`);
       await page.getByRole('button', { name: 'Edit episode 8', exact: true }).click();
       const form = page.getByRole('dialog');

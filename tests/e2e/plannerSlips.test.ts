@@ -1,7 +1,7 @@
 // The producer sees on the planner what late parts do to the series: the part that holds the finish
 // back, releases at risk, notices with an unread badge, and each episode's baseline against now.
 import { describe, it, beforeAll, afterAll } from 'vitest';
-import { openBrowser, signIn, audit, visit, startAppServer, type AppServer } from '../helpers/browser';
+import { openBrowser, signInQuick, audit, visit, startAppServer, type AppServer } from '../helpers/browser';
 import { Build, Episode, Part } from '../../server/models';
 import { updatePart } from '../../server/services/parts';
 
@@ -23,7 +23,7 @@ describe('slips on the planner', () => {
       const s = await openBrowser({ server });
       const { page } = s;
       try {
-        await signIn(s, 'producer');
+        await signInQuick(s, 'producer');
         await visit(s, `/builds/${buildId}/planner`);
         // The demo's camera set (due 2026-12-29) holds the earliest finish back.
         await page

@@ -1,29 +1,13 @@
 // Kit sales in the browser: the owner imports a small export through the mapping step, reads the
 // preview and then the per-episode table with margin; marketing sees revenue but no margin or cost.
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
-import {
-  openBrowser,
-  audit,
-  pickOption,
-  startAppServer,
-  type AppServer,
-  type BrowserSession,
-} from '../helpers/browser';
+import { openBrowser, audit, pickOption, signInQuick, startAppServer, type AppServer } from '../helpers/browser';
 import { Build, Episode, Part, Upgrade } from '../../server/models';
-import { DEMO_EMAIL, DEMO_PASSWORD, type DemoRole } from '../helpers/api';
 import { formatCents } from '../../src/theme';
 
 let server: AppServer;
 let buildId: number;
 let tern: Build;
-
-async function signInQuick(s: BrowserSession, role: DemoRole) {
-  const res = await s.page.request.post(`${server.url}/api/auth/login`, {
-    data: { email: DEMO_EMAIL[role], password: DEMO_PASSWORD },
-    headers: { 'X-Requested-With': 'Bayslate' },
-  });
-  expect(res.status()).toBe(200);
-}
 
 beforeAll(async () => {
   server = await startAppServer();

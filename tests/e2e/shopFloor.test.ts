@@ -4,7 +4,15 @@
 // SHOP_FLOOR_SCREENS=<folder> also saves screenshots of the shop floor at 390 px in both modes.
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import path from 'node:path';
-import { openBrowser, signIn, audit, startAppServer, type AppServer, type BrowserSession } from '../helpers/browser';
+import {
+  openBrowser,
+  signIn,
+  signInQuick,
+  audit,
+  startAppServer,
+  type AppServer,
+  type BrowserSession,
+} from '../helpers/browser';
 import { setColourMode } from '../helpers/theme';
 import { Activity, Build, LabourEntry, Upgrade } from '../../server/models';
 
@@ -174,7 +182,7 @@ describe('shop floor on a phone', () => {
       const installer = await openBrowser({ server, phone: true });
       const producer = await openBrowser({ server });
       try {
-        await signIn(producer, 'producer');
+        await signInQuick(producer, 'producer');
         await producer.page.goto(`${server.url}/builds/${buildId}/shop-floor`);
         const watched = card(producer, 'Trailer wiring, 7-pin');
         await watched.getByText('In the bay · filmed: nothing yet').waitFor();

@@ -3,7 +3,7 @@
 // backlog, the producer plans it into an episode, marketing publishes that episode, and the
 // viewer's "it is live" mail arrives. The server runs its mail worker, as `npm start` does.
 import { describe, it, expect } from 'vitest';
-import { openBrowser, signIn, audit, visit, type BrowserSession } from '../helpers/browser';
+import { openBrowser, signIn, signInQuick, audit, visit, type BrowserSession } from '../helpers/browser';
 import { waitForMails, uniqueAddress } from '../helpers/mailbox';
 import { freshAppPerTest, ternId } from '../helpers/fresh-db';
 import { outcomeOf } from '../helpers/outcome';
@@ -99,7 +99,7 @@ describe('viewer story', () => {
     // 3. Marketing accepts it into the backlog as a new upgrade.
     const marketing = await openBrowser({ server: app().server });
     try {
-      await signIn(marketing, 'marketing');
+      await signInQuick(marketing, 'marketing');
       await visit(marketing, `/builds/${tern.id}/viewer-requests`);
       await marketing.page.getByRole('heading', { name: 'Viewer requests' }).waitFor();
       await marketing.page.locator('strong', { hasText: wish }).waitFor();
@@ -153,7 +153,7 @@ describe('viewer story', () => {
     // 5. Marketing publishes that episode on the Publish screen.
     const publisher = await openBrowser({ server: app().server });
     try {
-      await signIn(publisher, 'marketing');
+      await signInQuick(publisher, 'marketing');
       await visit(publisher, `/builds/${tern.id}/publish?episode=${episode.id}`);
       await publisher.page.getByRole('heading', { name: 'Publish', exact: true }).waitFor();
       const notes = publisher.page.locator('[data-test="show-notes"]');

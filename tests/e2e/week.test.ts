@@ -9,7 +9,7 @@
 // viewers whose upgrades it shows get the "it is live" mail.
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import { Op } from 'sequelize';
-import { openBrowser, signIn, audit, visit, startAppServer, type AppServer } from '../helpers/browser';
+import { openBrowser, signIn, signInQuick, audit, visit, startAppServer, type AppServer } from '../helpers/browser';
 import { waitForMails, uniqueAddress } from '../helpers/mailbox';
 import { Activity, Build, Episode, MailOutbox, Part, Upgrade, ViewerRequest, ViewerVote } from '../../server/models';
 import { outcomeOf } from '../helpers/outcome';
@@ -74,7 +74,7 @@ describe('a week in the shop', () => {
       const before = await planNow(tern.id);
       const producer = await openBrowser({ server });
       try {
-        await signIn(producer, 'producer');
+        await signInQuick(producer, 'producer');
         await visit(producer, `/builds/${tern.id}/planner`);
         await producer.page.getByRole('heading', { name: 'Episode planner' }).waitFor();
         await producer.page.getByRole('heading', { name: 'No release at risk from parts' }).waitFor();
@@ -182,7 +182,7 @@ describe('a week in the shop', () => {
       // Thursday: marketing opens episode 7 too early and is told what is missing.
       const marketing = await openBrowser({ server });
       try {
-        await signIn(marketing, 'marketing');
+        await signInQuick(marketing, 'marketing');
         await visit(marketing, `/builds/${tern.id}/publish?episode=${ep7.id}`);
         await marketing.page.getByRole('heading', { name: 'Publish', exact: true }).waitFor();
         const missing = marketing.page.locator('[data-test="unfinished"]');
@@ -204,7 +204,7 @@ describe('a week in the shop', () => {
       );
       const publisher = await openBrowser({ server });
       try {
-        await signIn(publisher, 'marketing');
+        await signInQuick(publisher, 'marketing');
         await visit(publisher, `/builds/${tern.id}/publish?episode=${ep7.id}`);
         await publisher.page.locator('[data-test="ready"]').waitFor();
         await publisher.page.getByRole('button', { name: 'Add a chapter' }).click();

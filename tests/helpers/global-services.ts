@@ -49,6 +49,8 @@ async function startServices(): Promise<Services> {
     DATABASE_URL: cluster.url,
     SESSION_SECRET: 'test-secret-test-secret-test-secret',
     BAYSLATE_DEMO: '1',
+    // bcrypt at its lowest cost: hundreds of sign-ins, each a tenth of a second of CPU at the default.
+    PASSWORD_HASH_COST: '4',
     S3_ENDPOINT: fakes.s3Endpoint,
     SMTP_URL: `smtp://127.0.0.1:${fakes.smtpPort}`,
   };

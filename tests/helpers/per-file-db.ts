@@ -32,6 +32,8 @@ Object.assign(process.env, {
   DATABASE_URL: url.toString(),
   SESSION_SECRET: 'test-secret-test-secret-test-secret',
   BAYSLATE_DEMO: '1',
+  // bcrypt at its lowest cost: hundreds of sign-ins, each a tenth of a second of CPU at the default.
+  PASSWORD_HASH_COST: '4',
   SERVE_CLIENT: '0',
   MAIL_WORKER: '0',
   S3_ENDPOINT: inject('s3Endpoint'),

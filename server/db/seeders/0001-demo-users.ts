@@ -1,7 +1,7 @@
 // The four demo sign-ins of Cedar Ridge Upfitters (invented people), demo mode only.
-import bcrypt from 'bcryptjs';
 import type { MigrationContext } from '../migrate';
 import { User } from '../../models';
+import { hashPassword } from '../../services/passwords';
 
 export const DEMO_PASSWORD = 'bayslate-demo';
 export const DEMO_USERS = [
@@ -12,7 +12,7 @@ export const DEMO_USERS = [
 ] as const;
 
 export async function up(_: { context: MigrationContext }) {
-  const hash = await bcrypt.hash(DEMO_PASSWORD, 10);
+  const hash = await hashPassword(DEMO_PASSWORD);
   for (const u of DEMO_USERS) {
     await User.findOrCreate({ where: { email: u.email }, defaults: { ...u, roles: [...u.roles], passwordHash: hash } });
   }
