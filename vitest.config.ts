@@ -3,6 +3,7 @@
 import { defineConfig } from 'vitest/config';
 import vue from '@vitejs/plugin-vue';
 import { fileURLToPath } from 'node:url';
+import LongestFirst from './tests/helpers/sequencer';
 
 // Two workers per project: Vitest's default (cores − 1) leaves one of our two cores idle, and more
 // would only make each browser journey slower on a busy machine (the suite is CPU-bound).
@@ -17,6 +18,8 @@ export default defineConfig({
   plugins: [vue()],
   resolve: { alias },
   test: {
+    // Longest files first on a fresh clone too (tests/helpers/sequencer.ts).
+    sequence: { sequencer: LongestFirst },
     projects: [
       {
         extends: true,
