@@ -4,13 +4,11 @@
 import { config } from './config';
 import { createApp } from './app';
 import { migrate, seedDemo } from './db/migrate';
-import { sequelize } from './models';
-import { closeSharedPool } from './db/pool';
+import { closeDatabaseConnections } from './db/connections';
 import { installMail, startMailWorker, stopMailWorker } from './mail';
 import { checkNoDemoAccounts, checkSettings, demoAccountsExist, StartupRefused } from './startupChecks';
 import { markDraining } from './routes/health';
-import { startUserNotices, stopUserNotices } from './services/userNotices';
-import { stopOverviewCache } from './services/overviewCache';
+import { startUserNotices } from './services/userNotices';
 import { startMediaSweeper, stopMediaSweeper } from './services/mediaSweep';
 import { startReceiptSweeper, stopReceiptSweeper } from './services/requestReceipts';
 
@@ -62,13 +60,7 @@ async function main() {
     await Promise.all([Promise.race([closed, grace]), stopMailWorker()]);
     server.closeAllConnections();
     stopReceiptSweeper();
-    await Promise.allSettled([
-      stopMediaSweeper(),
-      stopUserNotices(),
-      stopOverviewCache(),
-      closeSharedPool(),
-      sequelize.close(),
-    ]);
+    await Promise.allSettled([stopMediaSweeper(), closeDatabaseConnections()]);
     console.log('[bayslate] stopped');
     process.exit(0);
   };

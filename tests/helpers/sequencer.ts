@@ -3,8 +3,9 @@
 // first, which put the two themes-audit files (small files, long journeys) at the end, where one of
 // the two workers ran them alone for half a minute. Here a fresh clone starts the files below in the
 // order of their measured time (seconds, quiet 2-core machine, `npm test` on 2026-12-02), longest
-// first; a file missing here starts before them, as Vitest starts files it has not seen. Refresh a
-// figure when a file's time changes a lot; a wrong one only costs time, never a result.
+// first; a file missing here starts after them (the API files not listed take a second or two). Give
+// a new long file its figure, and refresh one when a file's time changes a lot; a wrong figure only
+// costs time, never a result.
 import path from 'node:path';
 import { BaseSequencer, type TestSpecification } from 'vitest/node';
 
@@ -50,8 +51,8 @@ export default class LongestFirst extends BaseSequencer {
         out.push(...group);
         continue;
       }
-      const expected = (f: TestSpecification) => MEASURED_SECONDS[key(f)] ?? Infinity;
-      // A stable sort: files with the same figure (the unmeasured ones) keep Vitest's order.
+      const expected = (f: TestSpecification) => MEASURED_SECONDS[key(f)] ?? 0;
+      // A stable sort: files with the same figure (the unlisted ones) keep Vitest's order.
       out.push(
         ...group
           .map((f, i) => ({ f, i }))

@@ -1,5 +1,5 @@
 // The order test files start in on a fresh clone (tests/helpers/sequencer.ts): measured files
-// longest first, unmeasured ones before them; once Vitest has durations for a project, its order.
+// longest first, unlisted ones after them; once Vitest has durations for a project, its order.
 import { describe, it, expect } from 'vitest';
 import path from 'node:path';
 import type { TestSpecification } from 'vitest/node';
@@ -26,7 +26,7 @@ function sequencer(known: Record<string, number> = {}) {
 const names = (files: TestSpecification[]) => files.map((f) => path.relative(root, f.moduleId));
 
 describe('the order of test files', () => {
-  it('a fresh clone starts the measured browser files longest first, a new file before them', async () => {
+  it('a fresh clone starts the measured browser files longest first, an unlisted file after them', async () => {
     const files = [
       spec('e2e', 'tests/e2e/plannerSlips.test.ts', 2),
       spec('e2e', 'tests/e2e/signin.test.ts', 2),
@@ -36,10 +36,10 @@ describe('the order of test files', () => {
     ];
     expect(names(await sequencer().sort(files))).toEqual([
       'tests/unit/vin.test.ts',
-      'tests/e2e/brandNew.test.ts',
       'tests/e2e/themesProductionAndOverlays.test.ts',
       'tests/e2e/signin.test.ts',
       'tests/e2e/plannerSlips.test.ts',
+      'tests/e2e/brandNew.test.ts',
     ]);
   });
 
