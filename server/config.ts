@@ -26,6 +26,9 @@ const schema = z.object({
     .int()
     .min(1)
     .default(7 * 24),
+  // How long a session read is reused before the row is read again (services/sessionReads.ts);
+  // changes made anywhere are heard at once through change notices. 0: read it on every request.
+  SESSION_READ_CACHE_MS: z.coerce.number().int().min(0).max(60_000).default(2000),
   // bcrypt's cost for stored passwords (each step doubles the work). 10 or more in production; the
   // test harness lowers it so its hundreds of sign-ins do not each cost a tenth of a second of CPU.
   PASSWORD_HASH_COST: z.coerce.number().int().min(4).max(15).default(10),

@@ -29,6 +29,8 @@ async function serve() {
   const express = (await import('express')).default;
   const { createApp } = await import('../../server/app');
   const { sequelize } = await import('../../server/models');
+  // As server/index.ts does: other instances' changes to people and sessions are heard.
+  (await import('../../server/services/userNotices')).startUserNotices();
   const outer = express();
   // The bare route: no session, no helmet, one trivial query on the pool the overview uses.
   outer.get('/bench/bare', async (_req, res) => {

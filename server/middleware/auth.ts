@@ -11,7 +11,8 @@ import rateLimit, { type Store } from 'express-rate-limit';
 import { config } from '../config';
 import { User } from '../models';
 import { AppError } from '../errors';
-import { onUserChanged } from '../services/userNotices';
+import { noticesHeard, onUserChanged } from '../services/userNotices';
+import { cacheSessionReads } from '../services/sessionReads';
 import { isDemoEmail } from '../db/demoAccounts';
 
 export const SESSION_COOKIE = 'bayslate.sid';
@@ -65,6 +66,7 @@ export function installAuth(app: Express, pool: pg.Pool) {
     pruneSessionInterval: c.isTest ? false : 600,
   });
   throttleTouches(store);
+  cacheSessionReads(store, c.SESSION_READ_CACHE_MS, noticesHeard);
   app.use(
     session({
       name: SESSION_COOKIE,

@@ -14,6 +14,7 @@ import type { CreateUserInput, UpdateUserInput } from '../../shared/schemas/auth
 import type { Role } from '../../shared/domain';
 
 import { hashPassword } from './passwords';
+import { forgetSessionReads } from './sessionReads';
 export { hashPassword };
 
 export async function listUsers() {
@@ -70,10 +71,14 @@ async function activeOwnersOtherThan(id: number, t: import('sequelize').Transact
 
 /** Ends every session of a person at once (but `keepSessionId`, the one making the change). */
 export async function endSessionsOf(userId: number, t?: import('sequelize').Transaction, keepSessionId?: string) {
-  await sequelize.query(`DELETE FROM "session" WHERE (sess->'passport'->>'user')::int = :userId AND sid <> :keep`, {
-    replacements: { userId, keep: keepSessionId ?? '' },
-    transaction: t,
-  });
+  const [rows] = await sequelize.query(
+    `DELETE FROM "session" WHERE (sess->'passport'->>'user')::int = :userId AND sid <> :keep RETURNING sid`,
+    { replacements: { userId, keep: keepSessionId ?? '' }, transaction: t },
+  );
+  // This process's kept reads of them go now, and again once the deletion is committed.
+  const forget = () => (rows as { sid: string }[]).forEach((r) => forgetSessionReads(r.sid));
+  forget();
+  if (t) t.afterCommit(forget);
 }
 
 export async function updateUser(actor: Actor, id: number, input: UpdateUserInput) {

@@ -1,7 +1,8 @@
 // Several instances on one database (deploy): two compiled servers on this file's database.
-// A session made on one works on the other; the sign-in limit counts across both; a write
-// through one is in the other's overview at once; a person deactivated through one is signed out
-// on the other; two mail workers send each mail exactly once.
+// A session made on one works on the other, and one signed out on either ends on both (kept reads
+// included); the sign-in limit counts across both; a write through one is in the other's overview
+// at once; a person deactivated through one is signed out on the other; two mail workers send each
+// mail exactly once.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client, removeBuild, startServerProcess, type ServerProcess } from '../helpers/server-process';
 import { DEMO_EMAIL, DEMO_PASSWORD } from '../helpers/api';
@@ -21,6 +22,8 @@ beforeAll(async () => {
     MAIL_WORKER: '1',
     MAIL_POLL_MS: '50',
     LOG_TEST_ERRORS: '1',
+    // Kept session reads last a minute here, so only the change notice can end one in time below.
+    SESSION_READ_CACHE_MS: '60000',
   };
   [a, b] = await Promise.all([startServerProcess(env), startServerProcess(env)]);
 });
@@ -46,6 +49,21 @@ describe('two instances on one database', () => {
     // Signing out on B ends the session on A too.
     expect((await onB.post('/api/auth/logout', {})).status).toBe(200);
     expect((await onA.get('/api/auth/me')).status).toBe(401);
+  });
+
+  it('a session read kept on one ends there at once when it is signed out on the other', async () => {
+    const onA = await signedIn(a, DEMO_EMAIL.producer);
+    expect((await onA.get('/api/auth/me')).status).toBe(200);
+    expect((await onA.get('/api/auth/me')).status).toBe(200);
+    expect((await onA.on(b.url).post('/api/auth/logout', {})).status).toBe(200);
+    // A kept its read for a minute; the notice ends it within moments (asked until 10 s have passed).
+    const until = Date.now() + 10_000;
+    let status = (await onA.get('/api/auth/me')).status;
+    while (status === 200 && Date.now() < until) {
+      await new Promise((r) => setTimeout(r, 50));
+      status = (await onA.get('/api/auth/me')).status;
+    }
+    expect(status).toBe(401);
   });
 
   it('the sign-in limit counts attempts on both together', async () => {
