@@ -7,6 +7,9 @@
 //   0034; services/userNotices.ts);
 // - while notices were started but their connection is down, every read goes to the database.
 // A read that started before a change is never kept, so a late answer cannot bring an old copy back.
+// The store's own expiry check stands: a kept read is used only within `ms` of the database saying
+// the session was valid. (The expiry written inside the session is not a guide: the store's touch
+// moves only the row's expiry column, so after the idle time the written one is always past.)
 
 /** The part of a session store this wraps (express-session's Store has these). */
 export interface SessionStoreLike {
@@ -15,7 +18,7 @@ export interface SessionStoreLike {
   destroy(sid: string, cb?: (err?: unknown) => void): void;
 }
 
-type Kept = { json: string; at: number; expires: number | null };
+type Kept = { json: string; at: number };
 
 // More sessions than this in the copy (or changes remembered) and it starts again empty.
 const MOST = 10_000;
@@ -57,18 +60,13 @@ export function cacheSessionReads(store: SessionStoreLike, ms: number, trusted: 
     const now = Date.now();
     const useKept = trusted();
     const hit = useKept ? kept.get(sid) : undefined;
-    if (hit && now - hit.at < ms && (hit.expires === null || hit.expires > now)) return cb(null, JSON.parse(hit.json));
+    if (hit && now - hit.at < ms) return cb(null, JSON.parse(hit.json));
     const began = changes;
     get(sid, (err, sess) => {
       const unchanged = began >= allChangedAt && (changedAt.get(sid) ?? 0) <= began;
       if (!err && sess && useKept && unchanged) {
         if (kept.size >= MOST) kept.clear();
-        const expires = (sess as { cookie?: { expires?: string | Date | null } }).cookie?.expires;
-        kept.set(sid, {
-          json: JSON.stringify(sess),
-          at: now,
-          expires: expires ? new Date(expires).getTime() : null,
-        });
+        kept.set(sid, { json: JSON.stringify(sess), at: now });
       }
       cb(err, sess);
     });
