@@ -10,11 +10,20 @@ import { stopOverviewCache } from '../services/overviewCache';
 import { stopBuildEvents } from '../services/buildEvents';
 
 export async function closeDatabaseConnections(): Promise<void> {
-  await Promise.allSettled([
-    stopUserNotices(),
-    stopOverviewCache(),
-    stopBuildEvents(),
-    closeSharedPool(),
-    sequelize.close(),
-  ]);
+  // The listening connections do not keep the process alive (they are unref'd so that a process
+  // may end with them open). While they end, something must: once the pools have gone, a stop
+  // could otherwise reach an empty event loop and exit before its last step (seen: the graceful
+  // stop exited 0 without "[bayslate] stopped").
+  const hold = setInterval(() => undefined, 60_000);
+  try {
+    await Promise.allSettled([
+      stopUserNotices(),
+      stopOverviewCache(),
+      stopBuildEvents(),
+      closeSharedPool(),
+      sequelize.close(),
+    ]);
+  } finally {
+    clearInterval(hold);
+  }
 }
