@@ -75,10 +75,11 @@ export async function endSessionsOf(userId: number, t?: import('sequelize').Tran
     `DELETE FROM "session" WHERE (sess->'passport'->>'user')::int = :userId AND sid <> :keep RETURNING sid`,
     { replacements: { userId, keep: keepSessionId ?? '' }, transaction: t },
   );
-  // This process's kept reads of them go now, and again once the deletion is committed.
+  // This process's kept reads of them go once the deletion is committed (until then the rows are
+  // still there for every other connection).
   const forget = () => (rows as { sid: string }[]).forEach((r) => forgetSessionReads(r.sid));
-  forget();
   if (t) t.afterCommit(forget);
+  else forget();
 }
 
 export async function updateUser(actor: Actor, id: number, input: UpdateUserInput) {

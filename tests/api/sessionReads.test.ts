@@ -5,7 +5,8 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { anonymous, DEMO_EMAIL, DEMO_PASSWORD } from '../helpers/api';
 import { sharedPool } from '../../server/db/pool';
-import { sequelize } from '../../server/models';
+import { sequelize, User } from '../../server/models';
+import { endSessionsOf } from '../../server/services/users';
 
 /** Counts the session store's reads of a session row while `work` runs. */
 async function sessionReadsDuring(work: () => Promise<void>): Promise<number> {
@@ -58,12 +59,8 @@ describe('reading a signed-in person’s session', () => {
     const cookie = await signedInCookie(DEMO_EMAIL.owner);
     expect((await meWith(cookie)).status).toBe(200);
     // As "sign out my other sessions" does (services/users.ts endSessionsOf), through the service.
-    const { endSessionsOf } = await import('../../server/services/users');
-    const [[row]] = (await sequelize.query(`SELECT id FROM users WHERE email = 'owner@cedar-ridge.test'`)) as [
-      { id: number }[],
-      unknown,
-    ];
-    await sequelize.transaction((t) => endSessionsOf(row.id, t));
+    const owner = (await User.findOne({ where: { email: DEMO_EMAIL.owner } }))!;
+    await sequelize.transaction((t) => endSessionsOf(owner.id, t));
     expect((await meWith(cookie)).status).toBe(401);
   });
 });
